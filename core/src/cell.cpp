@@ -1,0 +1,34 @@
+#include "assoc/cell.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+#include "assoc/error.hpp"
+
+namespace assoc {
+
+std::string Cell::describe() const {
+    switch (kind_) {
+    case Kind::blank: return "a blank";
+    case Kind::text: return "the text \"" + text_ + "\"";
+    case Kind::number:
+        if (std::isnan(number_)) return "a value that is not a number";
+        if (std::isinf(number_)) return "an infinite value";
+        char buffer[32];
+        std::snprintf(buffer, sizeof buffer, "%.15g", number_);
+        return std::string("the number ") + buffer;
+    }
+    return "an unknown value";
+}
+
+CellGrid CellGrid::from_rows(const std::vector<std::vector<Cell>>& rows) {
+    const std::size_t columns = rows.empty() ? 0 : rows.front().size();
+    CellGrid grid(rows.size(), columns);
+    for (std::size_t r = 0; r < rows.size(); ++r) {
+        require(rows[r].size() == columns, "the rows of the range have different lengths");
+        for (std::size_t c = 0; c < columns; ++c) grid.at(r, c) = rows[r][c];
+    }
+    return grid;
+}
+
+}  // namespace assoc

@@ -1,0 +1,49 @@
+#include "assoc/effect_size.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include "assoc/error.hpp"
+#include "assoc/statistics.hpp"
+#include "extended_arithmetic.hpp"
+
+namespace assoc {
+
+double cramers_v(const CountTable& table) {
+    const double smaller_side = static_cast<double>(std::min(table.rows(), table.columns()));
+    return std::sqrt(pearson_statistic(table) / (table.total() * (smaller_side - 1)));
+}
+
+double cramers_v_corrected(const CountTable& table) {
+    const double n = table.total();
+    require(n > 1, "the bias-corrected Cramér's V needs a total count above 1");
+    const double r = static_cast<double>(table.rows()), c = static_cast<double>(table.columns());
+    const double phi_squared = std::max(0.0, pearson_statistic(table) / n - (r - 1) * (c - 1) / (n - 1));
+    const double r_tilde = r - (r - 1) * (r - 1) / (n - 1);
+    const double c_tilde = c - (c - 1) * (c - 1) / (n - 1);
+    const double denominator = std::min(r_tilde - 1, c_tilde - 1);
+    if (phi_squared == 0) return 0.0;
+    require(denominator > 0, "the bias-corrected Cramér's V is undefined for so few counts");
+    return std::sqrt(phi_squared / denominator);
+}
+
+double phi_coefficient(const CountTable& table) {
+    require(table.is_two_by_two(), "phi is defined for 2×2 tables only; this table has " +
+                                       std::to_string(table.rows()) + " rows and " +
+                                       std::to_string(table.columns()) + " columns with counts; use Cramér's V");
+    // ad − bc without cancellation, then one division.
+    const detail::DoubleDouble cross = detail::exact_product(table.count(0, 0), table.count(1, 1)) -
+                                       detail::exact_product(table.count(0, 1), table.count(1, 0));
+    // Two square roots rather than one of the product of four margins, which could overflow.
+    return cross.value() / std::sqrt(table.row_total(0) * table.row_total(1)) /
+           std::sqrt(table.column_total(0) * table.column_total(1));
+}
+
+double contingency_coefficient(const CountTable& table) {
+    const double x2 = pearson_statistic(table);
+    return std::sqrt(x2 / (x2 + table.total()));
+}
+
+double cohens_w(const CountTable& table) { return std::sqrt(pearson_statistic(table) / table.total()); }
+
+}  // namespace assoc

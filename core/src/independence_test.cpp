@@ -1,0 +1,31 @@
+#include "assoc/chi_squared_distribution.hpp"
+#include "assoc/statistics.hpp"
+
+namespace assoc {
+
+double degrees_of_freedom(const CountTable& table) {
+    return static_cast<double>(table.rows() - 1) * static_cast<double>(table.columns() - 1);
+}
+
+TestResult independence_test(const CountTable& table, Method method) {
+    TestResult result;
+    switch (method) {
+    case Method::pearson: result.statistic = pearson_statistic(table); break;
+    case Method::likelihood_ratio: result.statistic = likelihood_ratio_statistic(table); break;
+    case Method::yates: result.statistic = yates_statistic(table); break;
+    }
+    result.df = degrees_of_freedom(table);
+    result.p_value = chi_squared_p_value(result.statistic, result.df);
+    return result;
+}
+
+std::string method_name(Method method) {
+    switch (method) {
+    case Method::pearson: return "Pearson X²";
+    case Method::likelihood_ratio: return "likelihood-ratio G²";
+    case Method::yates: return "Yates-corrected X²";
+    }
+    return "";
+}
+
+}  // namespace assoc

@@ -1,0 +1,30 @@
+#include <boost/math/special_functions/log1p.hpp>
+
+#include "assoc/expected_counts.hpp"
+#include "assoc/statistics.hpp"
+#include "boost_policy.hpp"
+
+namespace assoc {
+
+double likelihood_ratio_statistic(const CountTable& table) {
+    // G² = 2 Σ [O ln(O/E) − (O − E)], since Σ (O − E) = 0. Each bracket is ≥ 0, and with
+    // x = (O − E)/E it equals E·[(1 + x) ln(1 + x) − x] = E·[log1pmx(x) + x·log1p(x)],
+    // which keeps its digits when O is close to E (a naive sum of O ln(O/E) does not).
+    const Matrix deviation = deviations_from_expected(table);
+    const Matrix expected = expected_counts(table);
+    const detail::Policy policy;
+    double sum = 0.0;
+    for (std::size_t i = 0; i < deviation.size(); ++i) {
+        const double e = expected.values()[i];
+        const double observed = table.counts().values()[i];
+        if (observed == 0) {  // 0·ln 0 = 0, leaving −(O − E) = E
+            sum += e;
+            continue;
+        }
+        const double x = deviation.values()[i] / e;
+        sum += e * (boost::math::log1pmx(x, policy) + x * boost::math::log1p(x, policy));
+    }
+    return 2.0 * sum;
+}
+
+}  // namespace assoc

@@ -1,0 +1,170 @@
+// Reading a count table from a range of cells: headers, body, empty rows and columns.
+#include <cmath>
+#include <string>
+
+#include "assoc/count_table.hpp"
+#include "assoc/error.hpp"
+#include "assoc/format.hpp"
+
+namespace assoc {
+namespace {
+
+std::string cell_name(std::size_t row, std::size_t column) {
+    return "row " + std::to_string(row + 1) + ", column " + std::to_string(column + 1);
+}
+
+// A header line holds only labels: every cell text or blank, one at least text.
+template <class CellAt>
+bool is_header_line(std::size_t length, CellAt cell_at) {
+    bool any_text = false;
+    for (std::size_t i = 0; i < length; ++i) {
+        const Cell& cell = cell_at(i);
+        if (cell.is_number()) return false;
+        any_text = any_text || cell.is_text();
+    }
+    return any_text;
+}
+
+std::string plural(std::size_t n, const char* word) {
+    return std::to_string(n) + " " + word + (n == 1 ? "" : "s");
+}
+
+}  // namespace
+
+CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
+    require(!range.empty(), "the range is empty; select a table of counts");
+
+    const bool header_row = is_header_line(range.columns(), [&](std::size_t c) -> const Cell& { return range.at(0, c); });
+    const std::size_t first_body_row = header_row ? 1 : 0;
+    const bool header_column = first_body_row < range.rows() &&
+        is_header_line(range.rows() - first_body_row,
+                       [&](std::size_t r) -> const Cell& { return range.at(first_body_row + r, 0); });
+    const std::size_t first_body_column = header_column ? 1 : 0;
+
+    const std::size_t body_rows = range.rows() - first_body_row;
+    const std::size_t body_columns = range.columns() - first_body_column;
+    require(body_rows > 0 && body_columns > 0, "the range holds only labels and no counts");
+    require(body_rows <= options.max_body_cells / body_columns,
+            "the table has " + format_count(static_cast<double>(body_rows) * static_cast<double>(body_columns)) +
+                " count cells; Assoc reads at most " + format_count(static_cast<double>(options.max_body_cells)));
+
+    // Without a header row, text in row 1 next to numbers is a mistake to report as such:
+    // a header row must hold only labels.
+    if (!header_row) {
+        for (std::size_t c = first_body_column; c < range.columns(); ++c) {
+            if (range.at(0, c).is_text())
+                throw Error("row 1 mixes labels and numbers (" + cell_name(0, c) + " holds " + range.at(0, c).describe() +
+                            "); a header row must hold only labels and a row of counts only numbers");
+        }
+    }
+
+    CountTable table;
+    Matrix body(body_rows, body_columns);
+    for (std::size_t r = 0; r < body_rows; ++r) {
+        for (std::size_t c = 0; c < body_columns; ++c) {
+            const std::size_t range_row = first_body_row + r, range_column = first_body_column + c;
+            const Cell& cell = range.at(range_row, range_column);
+            if (cell.is_blank()) {
+                ++table.blank_cells_;
+                continue;
+            }
+            const std::string where = cell_name(range_row, range_column) + " holds " + cell.describe();
+            require(cell.is_number(), where + "; counts must be numbers");
+            const double value = cell.as_number();
+            require(std::isfinite(value), where + "; counts must be ordinary numbers");
+            require(value >= 0, where + "; counts cannot be negative");
+            body(r, c) = value;
+        }
+    }
+
+    table.has_column_labels_ = header_row;
+    table.has_row_labels_ = header_column;
+    table.body_column_labels_.assign(body_columns, "");
+    table.body_row_labels_.assign(body_rows, "");
+    if (header_row)
+        for (std::size_t c = 0; c < body_columns; ++c) {
+            const Cell& cell = range.at(0, first_body_column + c);
+            if (cell.is_text()) table.body_column_labels_[c] = cell.as_text();
+        }
+    if (header_column)
+        for (std::size_t r = 0; r < body_rows; ++r) {
+            const Cell& cell = range.at(first_body_row + r, 0);
+            if (cell.is_text()) table.body_row_labels_[r] = cell.as_text();
+        }
+    table.finish(body, options);
+    return table;
+}
+
+CountTable CountTable::from_counts(const Matrix& counts, const ReadOptions& options) {
+    require(counts.size() > 0, "the range is empty; select a table of counts");
+    for (std::size_t r = 0; r < counts.rows(); ++r)
+        for (std::size_t c = 0; c < counts.columns(); ++c) {
+            const double value = counts(r, c);
+            require(std::isfinite(value) && value >= 0,
+                    "row " + std::to_string(r + 1) + ", column " + std::to_string(c + 1) +
+                        " holds " + Cell::number(value).describe() + "; counts must be numbers of zero or more");
+        }
+    CountTable table;
+    table.body_row_labels_.assign(counts.rows(), "");
+    table.body_column_labels_.assign(counts.columns(), "");
+    table.finish(counts, options);
+    return table;
+}
+
+// Sets aside all-zero rows and columns, then fills the totals of what is kept.
+void CountTable::finish(const Matrix& body, const ReadOptions& options) {
+    body_rows_ = body.rows();
+    body_columns_ = body.columns();
+    std::vector<double> body_row_totals(body_rows_, 0.0), body_column_totals(body_columns_, 0.0);
+    for (std::size_t r = 0; r < body_rows_; ++r)
+        for (std::size_t c = 0; c < body_columns_; ++c) {
+            const double value = body(r, c);
+            body_row_totals[r] += value;
+            body_column_totals[c] += value;
+            whole_counts_ = whole_counts_ && value == std::floor(value);
+        }
+    for (std::size_t r = 0; r < body_rows_; ++r) {
+        if (body_row_totals[r] > 0) kept_rows_.push_back(r);
+        else set_aside_rows_.push_back({r, body_row_labels_[r]});
+    }
+    for (std::size_t c = 0; c < body_columns_; ++c) {
+        if (body_column_totals[c] > 0) kept_columns_.push_back(c);
+        else set_aside_columns_.push_back({c, body_column_labels_[c]});
+    }
+
+    if (options.require_two_by_two) {
+        auto shortfall = [](std::size_t kept, std::size_t aside, const char* word) {
+            std::string message = "the table has " + std::string(kept == 0 ? "no" : "only 1") + " " + word +
+                                  " with counts";
+            if (aside > 0) message += " (" + plural(aside, word) + " with all zeros set aside)";
+            return message + "; a test of association needs at least 2 rows and 2 columns with counts";
+        };
+        require(kept_rows_.size() >= 2, shortfall(kept_rows_.size(), set_aside_rows_.size(), "row"));
+        require(kept_columns_.size() >= 2, shortfall(kept_columns_.size(), set_aside_columns_.size(), "column"));
+    }
+
+    counts_ = Matrix(kept_rows_.size(), kept_columns_.size());
+    row_totals_.assign(kept_rows_.size(), 0.0);
+    column_totals_.assign(kept_columns_.size(), 0.0);
+    for (std::size_t r = 0; r < kept_rows_.size(); ++r) {
+        row_totals_[r] = body_row_totals[kept_rows_[r]];
+        row_labels_.push_back(body_row_labels_[kept_rows_[r]]);
+        for (std::size_t c = 0; c < kept_columns_.size(); ++c) counts_(r, c) = body(kept_rows_[r], kept_columns_[c]);
+    }
+    for (std::size_t c = 0; c < kept_columns_.size(); ++c) {
+        column_totals_[c] = body_column_totals[kept_columns_[c]];
+        column_labels_.push_back(body_column_labels_[kept_columns_[c]]);
+    }
+    total_ = 0.0;
+    for (double t : row_totals_) total_ += t;
+    require(std::isfinite(total_), "the counts add up to more than a spreadsheet number can hold");
+}
+
+Matrix CountTable::to_body_shape(const Matrix& kept, double fill) const {
+    Matrix body(body_rows_, body_columns_, fill);
+    for (std::size_t r = 0; r < kept_rows_.size(); ++r)
+        for (std::size_t c = 0; c < kept_columns_.size(); ++c) body(kept_rows_[r], kept_columns_[c]) = kept(r, c);
+    return body;
+}
+
+}  // namespace assoc

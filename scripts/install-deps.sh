@@ -1,0 +1,25 @@
+#!/usr/bin/env bash
+# Installs the Debian packages Assoc needs to build and test (and, with --bench or
+# --reference, the reference tools). Uses sudo when not root; skips what is installed.
+set -euo pipefail
+
+packages=(cmake g++ make libboost-math-dev libgtest-dev
+          libreoffice-dev libreoffice-calc-nogui python3 python3-uno poppler-utils)
+for arg in "$@"; do
+  case "$arg" in
+    --bench) packages+=(r-base-core) ;;
+    --reference) packages+=(python3-scipy python3-statsmodels python3-mpmath r-base-core) ;;
+    *) echo "install-deps.sh: unknown option $arg" >&2; exit 2 ;;
+  esac
+done
+
+missing=()
+for p in "${packages[@]}"; do
+  dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")
+done
+[ ${#missing[@]} -eq 0 ] && exit 0
+
+if [ "$(id -u)" -eq 0 ]; then as_root=(); else as_root=(sudo); fi
+echo "Installing: ${missing[*]}"
+"${as_root[@]}" apt-get update -qq
+DEBIAN_FRONTEND=noninteractive "${as_root[@]}" apt-get install -y -qq --no-install-recommends "${missing[@]}"

@@ -1,0 +1,130 @@
+// Reading a count table from a range: headers, blanks, set-aside rows, and every error path.
+#include <gtest/gtest.h>
+
+#include "assoc/count_table.hpp"
+#include "assoc/error.hpp"
+#include "test_support.hpp"
+
+using namespace assoc;
+using assoc::test::grid;
+using assoc::test::expect_error;
+
+TEST(ReadCountTable, ReadsAPlainBlockOfNumbersAsTheBody) {
+    const CountTable table = read_count_table(grid({{1, 2, 3}, {4, 5, 6}}));
+    EXPECT_EQ(table.rows(), 2u);
+    EXPECT_EQ(table.columns(), 3u);
+    EXPECT_DOUBLE_EQ(table.total(), 21);
+    EXPECT_DOUBLE_EQ(table.row_total(1), 15);
+    EXPECT_DOUBLE_EQ(table.column_total(2), 9);
+    EXPECT_FALSE(table.has_row_labels());
+    EXPECT_FALSE(table.has_column_labels());
+}
+
+TEST(ReadCountTable, SetsAsideAHeaderRowAndAHeaderColumn) {
+    const CountTable table = read_count_table(grid({{"", "Yes", "No"}, {"Sales", 3, 7}, {"Legal", 2, 8}}));
+    ASSERT_EQ(table.rows(), 2u);
+    ASSERT_EQ(table.columns(), 2u);
+    EXPECT_EQ(table.column_labels(), (std::vector<std::string>{"Yes", "No"}));
+    EXPECT_EQ(table.row_labels(), (std::vector<std::string>{"Sales", "Legal"}));
+    EXPECT_DOUBLE_EQ(table.count(1, 0), 2);
+}
+
+TEST(ReadCountTable, AcceptsRowLabelsWithoutAHeaderRow) {
+    const CountTable table = read_count_table(grid({{"North", 3, 7}, {"South", 2, 8}}));
+    EXPECT_TRUE(table.has_row_labels());
+    EXPECT_FALSE(table.has_column_labels());
+    EXPECT_DOUBLE_EQ(table.count(0, 1), 7);
+}
+
+TEST(ReadCountTable, ReadsBlanksAsZeroAndCountsThem) {
+    const CountTable table = read_count_table(grid({{1, nullptr}, {3, 4}, {nullptr, 6}}));
+    EXPECT_EQ(table.blank_cells(), 2u);
+    EXPECT_DOUBLE_EQ(table.count(0, 1), 0);
+    EXPECT_DOUBLE_EQ(table.total(), 14);
+}
+
+TEST(ReadCountTable, SetsAsideAllZeroRowsAndColumnsWithTheirLabels) {
+    const CountTable table =
+        read_count_table(grid({{"", "A", "B", "C"}, {"x", 1, 0, 2}, {"y", 0, 0, 0}, {"z", 3, nullptr, 4}}));
+    EXPECT_EQ(table.rows(), 2u);
+    EXPECT_EQ(table.columns(), 2u);
+    ASSERT_EQ(table.set_aside_rows().size(), 1u);
+    EXPECT_EQ(table.set_aside_rows()[0].label, "y");
+    EXPECT_EQ(table.set_aside_rows()[0].index, 1u);
+    ASSERT_EQ(table.set_aside_columns().size(), 1u);
+    EXPECT_EQ(table.set_aside_columns()[0].label, "B");
+    EXPECT_EQ(table.kept_rows(), (std::vector<std::size_t>{0, 2}));
+}
+
+TEST(ReadCountTable, SpreadsKeptResultsBackToTheBodyShapeWithZeros) {
+    const CountTable table = read_count_table(grid({{1, 0, 2}, {0, 0, 0}, {3, 0, 4}}));
+    Matrix kept(2, 2, 9.0);
+    const Matrix body = table.to_body_shape(kept);
+    ASSERT_EQ(body.rows(), 3u);
+    ASSERT_EQ(body.columns(), 3u);
+    EXPECT_EQ(body(0, 0), 9.0);
+    EXPECT_EQ(body(1, 1), 0.0);
+    EXPECT_EQ(body(0, 1), 0.0);
+    EXPECT_EQ(body(2, 2), 9.0);
+}
+
+TEST(ReadCountTable, AllowsWeightedCountsButSaysTheyAreNotWhole) {
+    const CountTable table = read_count_table(grid({{1.5, 2}, {3, 4}}));
+    EXPECT_FALSE(table.whole_counts());
+    EXPECT_TRUE(read_count_table(grid({{1, 2}, {3, 4}})).whole_counts());
+}
+
+TEST(ReadCountTable, RejectsTextInTheBodyNamingTheCell) {
+    expect_error([] { read_count_table(grid({{"", "A", "B"}, {"x", 1, 2}, {"y", "n/a", 4}})); },
+                 "row 3, column 2 holds the text \"n/a\"; counts must be numbers");
+}
+
+TEST(ReadCountTable, RejectsNegativeCountsNamingTheCell) {
+    expect_error([] { read_count_table(grid({{1, 2}, {3, -4}})); },
+                 "row 2, column 2 holds the number -4; counts cannot be negative");
+}
+
+TEST(ReadCountTable, RejectsNonFiniteNumbers) {
+    expect_error([] { read_count_table(grid({{1, 2}, {std::nan(""), 4}})); },
+                 "row 2, column 1 holds a value that is not a number; counts must be ordinary numbers");
+    expect_error([] { read_count_table(grid({{1, HUGE_VAL}, {3, 4}})); },
+                 "row 1, column 2 holds an infinite value; counts must be ordinary numbers");
+}
+
+TEST(ReadCountTable, RejectsAFirstRowThatMixesLabelsAndNumbers) {
+    expect_error([] { read_count_table(grid({{"A", 5, "C"}, {1, 2, 3}, {4, 5, 6}})); },
+                 "row 1 mixes labels and numbers (row 1, column 1 holds the text \"A\"); a header row must hold "
+                 "only labels and a row of counts only numbers");
+}
+
+TEST(ReadCountTable, RejectsATableWithOneNonEmptyRow) {
+    expect_error([] { read_count_table(grid({{1, 2, 3}, {0, 0, nullptr}})); },
+                 "the table has only 1 row with counts (1 row with all zeros set aside); a test of association "
+                 "needs at least 2 rows and 2 columns with counts");
+}
+
+TEST(ReadCountTable, RejectsASingleColumn) {
+    expect_error([] { read_count_table(grid({{"", "Count"}, {"a", 1}, {"b", 2}})); },
+                 "the table has only 1 column with counts; a test of association needs at least 2 rows and 2 "
+                 "columns with counts");
+}
+
+TEST(ReadCountTable, RejectsAnEmptyRange) {
+    expect_error([] { read_count_table(CellGrid()); }, "the range is empty; select a table of counts");
+}
+
+TEST(ReadCountTable, RejectsARangeOfLabelsOnly) {
+    expect_error([] { read_count_table(grid({{"Region", "Team"}})); }, "the range holds only labels and no counts");
+}
+
+TEST(ReadCountTable, RejectsATableAboveTheSizeCap) {
+    ReadOptions options;
+    options.max_body_cells = 5;
+    expect_error([&] { read_count_table(grid({{1, 2, 3}, {4, 5, 6}}), options); },
+                 "the table has 6 count cells; Assoc reads at most 5");
+}
+
+TEST(ReadCountTable, RejectsAMillionAndOneCellsByDefault) {
+    CellGrid big(1001, 1000);
+    expect_error([&] { read_count_table(big); }, "the table has 1,001,000 count cells; Assoc reads at most 1,000,000");
+}
