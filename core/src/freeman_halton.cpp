@@ -1,0 +1,499 @@
+// The Freeman–Halton exact test: the probability, given both margins, of all tables no more
+// probable than the observed one.
+//
+// Under independence with fixed margins a table has probability
+//     P = K · ∏ 1/x_ij!,   K = ∏ R_i! ∏ C_j! / n!.
+// Tables are built one column at a time (a "network", after Mehta & Patel 1983): after k
+// columns, all that matters for the rest is the multiset of row totals still to fill, so partial
+// tables meet in shared nodes keyed by those totals, sorted. Each node keeps the distinct "past"
+// values (log ∏ 1/x! of the filled columns) that reach it, with their multiplicity.
+//
+// Three devices keep the work small:
+// - Bounds. For every node the largest and smallest "future" value over all completions is known
+//   (a dynamic programme over the same network). A past whose every completion is no more probable
+//   than the observed table adds the total mass of its completions in closed form,
+//       Σ over completions of ∏ 1/x! = S! / (∏ r_i! ∏ c_j!)   (remaining totals r, c; S = Σ r),
+//   and a past none of whose completions qualify is dropped.
+// - Meeting in the last two columns. With two columns left a fill of the first fixes the second,
+//   so a node's futures are one short sorted list with prefix sums of their probabilities. The
+//   pasts arriving there are never stored one by one: each parent's sorted list of pasts arrives
+//   as a whole, shifted by the weight of the column fill, and every past is settled by a binary
+//   search over the futures.
+// - Symmetry. Rows are the smaller side of the table, so node keys are short (packed into 128
+//   bits); a column fill is enumerated once per distinct arrangement over rows with equal
+//   remaining totals, weighted by the number of arrangements, since those reach the same node
+//   with the same value.
+#include "freeman_halton.hpp"
+
+#include <algorithm>
+#include <chrono>
+#include <cmath>
+#include <cstdint>
+#include <functional>
+#include <limits>
+#include <string>
+#include <unordered_map>
+#include <vector>
+
+#include "assoc/error.hpp"
+#include "assoc/format.hpp"
+
+namespace assoc::detail {
+namespace {
+
+constexpr double minus_infinity = -std::numeric_limits<double>::infinity();
+
+// Remaining row totals, largest first, packed `bits` bits each into 128 bits.
+struct NodeKey {
+    std::uint64_t low = 0, high = 0;
+    friend bool operator==(const NodeKey& a, const NodeKey& b) { return a.low == b.low && a.high == b.high; }
+};
+
+struct NodeKeyHash {
+    std::size_t operator()(const NodeKey& key) const {
+        return std::hash<std::uint64_t>{}(key.low ^ (key.high * 0x9E3779B97F4A7C15ull + 0x632BE59BD9B4E019ull));
+    }
+};
+
+struct Past {
+    double log_value;  // log ∏ 1/x! over the filled columns
+    double mass;       // number of partial tables with this value (merged values weighted exactly)
+};
+
+struct Bounds {
+    double largest;   // max over completions of log ∏ 1/x!
+    double smallest;  // min over completions
+};
+
+// The futures of a node with two columns left: sorted values, and for each position the log of
+// the summed probability mass Σ mass·exp(value) of it and all smaller values.
+struct FutureList {
+    std::vector<double> log_values;
+    std::vector<double> log_prefix_mass;
+    // The same prefix masses divided by the total, for sums that need no exp per term.
+    std::vector<double> prefix_share;
+    double log_range() const { return log_prefix_mass.back() - log_prefix_mass.front(); }
+};
+
+// Number of values in values[0, end) that are ≤ limit, given that it is at most `end`: a
+// galloping search down from `end`, cheap when the answer is close to it.
+std::size_t count_up_to(const std::vector<double>& values, std::size_t end, double limit) {
+    std::size_t step = 1;
+    while (end > 0 && values[end - 1] > limit) {
+        const std::size_t low = end > step ? end - step : 0;
+        if (values[low] > limit) {
+            end = low;
+            step *= 2;
+        } else {
+            return static_cast<std::size_t>(
+                std::upper_bound(values.begin() + static_cast<std::ptrdiff_t>(low + 1),
+                                 values.begin() + static_cast<std::ptrdiff_t>(end), limit) - values.begin());
+        }
+    }
+    return end;
+}
+
+// Sum of exp(terms) without overflow or underflow.
+class LogSum {
+public:
+    void add(double log_term) {
+        if (log_term == minus_infinity) return;
+        if (log_term <= largest_) {
+            sum_ += std::exp(log_term - largest_);
+        } else {
+            sum_ = sum_ * std::exp(largest_ - log_term) + 1.0;
+            largest_ = log_term;
+        }
+    }
+    double value() const { return sum_ == 0 ? 0.0 : std::exp(largest_ + std::log(sum_)); }
+
+private:
+    double largest_ = minus_infinity;
+    double sum_ = 0.0;
+};
+
+// Sorts pasts by value and merges those whose values agree to within rounding, keeping the
+// mass exact (the merged mass is expressed relative to the kept value).
+void merge_equal_values(std::vector<Past>& pasts) {
+    std::sort(pasts.begin(), pasts.end(), [](const Past& a, const Past& b) { return a.log_value < b.log_value; });
+    std::size_t kept = 0;
+    for (std::size_t i = 0; i < pasts.size(); ++i) {
+        if (kept > 0 && pasts[i].log_value - pasts[kept - 1].log_value <= 1e-9) {
+            pasts[kept - 1].mass += pasts[i].mass * std::exp(pasts[i].log_value - pasts[kept - 1].log_value);
+        } else {
+            pasts[kept++] = pasts[i];
+        }
+    }
+    pasts.resize(kept);
+}
+
+class Network {
+public:
+    Network(const Matrix& counts, const ExactLimits& limits) : limits_(limits), start_(Clock::now()) {
+        const Matrix table = counts.rows() > counts.columns() ? counts.transposed() : counts;
+        std::vector<unsigned> rows(table.rows(), 0), columns(table.columns(), 0);
+        double n = 0;
+        for (std::size_t r = 0; r < table.rows(); ++r)
+            for (std::size_t c = 0; c < table.columns(); ++c) {
+                rows[r] += static_cast<unsigned>(table(r, c));
+                columns[c] += static_cast<unsigned>(table(r, c));
+                n += table(r, c);
+            }
+        require(n <= 1e7, "the exact test handles totals up to 10,000,000; this table is larger (use the chi-squared test)");
+        const auto total = static_cast<unsigned>(n);
+        log_factorial_.resize(total + 1);
+        for (unsigned k = 0; k <= total; ++k) log_factorial_[k] = std::lgamma(k + 1.0);
+
+        std::sort(rows.begin(), rows.end(), std::greater<unsigned>());
+        row_count_ = rows.size();
+        bits_ = 1;
+        while ((rows.front() >> bits_) != 0) ++bits_;
+        if (row_count_ * bits_ > 128) fail_too_large();
+        root_ = pack(rows.data());
+
+        // Small columns first: few pasts in the early stages, where every one must be stored.
+        columns_ = columns;
+        std::sort(columns_.begin(), columns_.end());
+
+        double observed = 0, log_k = -log_factorial_[total];
+        for (std::size_t r = 0; r < table.rows(); ++r)
+            for (std::size_t c = 0; c < table.columns(); ++c) observed -= log_factorial_[static_cast<unsigned>(table(r, c))];
+        for (unsigned r : rows) log_k += log_factorial_[r];
+        for (unsigned c : columns) log_k += log_factorial_[c];
+        log_k_ = log_k;
+        threshold_ = observed + std::log1p(exact_tie_tolerance);
+
+        log_column_factorials_from_.assign(columns_.size() + 1, 0.0);
+        for (std::size_t k = columns_.size(); k-- > 0;)
+            log_column_factorials_from_[k] = log_column_factorials_from_[k + 1] + log_factorial_[columns_[k]];
+        bounds_.resize(columns_.size());
+        fill_.resize(row_count_);
+        capacity_.resize(row_count_ + 1);
+        child_.resize(row_count_);
+    }
+
+    double p_value() {
+        const std::size_t meeting = columns_.size() - 2;
+        using Stage = std::unordered_map<NodeKey, std::vector<Past>, NodeKeyHash>;
+        Stage stage{{root_, {Past{0.0, 1.0}}}};
+        count_stored(1);
+        for (std::size_t k = 0; k < meeting; ++k) {
+            const bool last = k + 1 == meeting;
+            Stage next;
+            for (auto& [node, pasts] : stage) {
+                const std::size_t appended = pasts.size();
+                merge_equal_values(pasts);
+                if (last) {
+                    settle_before_meeting(k, node, pasts);
+                } else {
+                    const auto [first, end] = split_by_bounds(pasts, bounds_of(k, node), log_total_future(k, node));
+                    if (first < end)
+                        for_each_fill(node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
+                            std::vector<Past>& target = next[child];
+                            for (std::size_t i = first; i < end; ++i)
+                                target.push_back(Past{pasts[i].log_value + fill_value, pasts[i].mass * arrangements});
+                            count_stored(end - first);
+                        });
+                }
+                stored_ -= appended;
+                std::vector<Past>().swap(pasts);
+            }
+            stage.swap(next);
+        }
+        return std::min(1.0, result_.value());
+    }
+
+private:
+    using Clock = std::chrono::steady_clock;
+
+    // Pasts are sorted: a prefix qualifies with every completion (its total mass is added here),
+    // a suffix with none; returns the range [first, end) in between, which needs a closer look.
+    std::pair<std::size_t, std::size_t> split_by_bounds(const std::vector<Past>& pasts, const Bounds& bounds,
+                                                        double log_total) {
+        std::size_t first = 0, end = pasts.size();
+        while (first < end && pasts[first].log_value + bounds.largest <= threshold_) {
+            result_.add(log_k_ + pasts[first].log_value + std::log(pasts[first].mass) + log_total);
+            ++first;
+        }
+        while (end > first && pasts[end - 1].log_value + bounds.smallest > threshold_) --end;
+        return {first, end};
+    }
+
+    // A node three columns from the end: each fill of its column leads to a node whose futures
+    // are a sorted list, so every past is settled there by binary search, without storing it again.
+    void settle_before_meeting(std::size_t k, const NodeKey& node, const std::vector<Past>& all_pasts) {
+        // The cheap bounds first: when they settle every past, the fills need not be enumerated.
+        const double log_total = log_total_future(k, node);
+        const auto [cheap_first, cheap_end] = split_by_bounds(all_pasts, bounds_of(k, node), log_total);
+        if (cheap_first == cheap_end) return;
+        const std::vector<Past> pasts(all_pasts.begin() + static_cast<std::ptrdiff_t>(cheap_first),
+                                      all_pasts.begin() + static_cast<std::ptrdiff_t>(cheap_end));
+        struct Child {
+            const FutureList* futures;
+            double fill_value;
+            double log_arrangements;
+        };
+        std::vector<Child> children;
+        for_each_fill(node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
+            children.push_back(Child{nullptr, fill_value, std::log(arrangements)});
+            pending_.push_back(child);
+        });
+        Bounds bounds{minus_infinity, std::numeric_limits<double>::infinity()};
+        for (std::size_t c = 0; c < children.size(); ++c) {
+            children[c].futures = &futures_of(pending_[c]);
+            bounds.largest = std::max(bounds.largest, children[c].fill_value + children[c].futures->log_values.back());
+            bounds.smallest = std::min(bounds.smallest, children[c].fill_value + children[c].futures->log_values.front());
+        }
+        pending_.clear();
+        const auto [first, end] = split_by_bounds(pasts, bounds, log_total);
+        if (first == end) return;
+        // Each past's weight mass·exp(value), relative to the largest, so that a child's sum needs
+        // products only; when the weights or the futures span too wide a range for that, the sum
+        // falls back to logarithms term by term.
+        std::vector<double> log_weighted(end - first), share(end - first);
+        for (std::size_t i = first; i < end; ++i) log_weighted[i - first] = pasts[i].log_value + std::log(pasts[i].mass);
+        const double log_weighted_max = *std::max_element(log_weighted.begin(), log_weighted.end());
+        const double log_weighted_min = *std::min_element(log_weighted.begin(), log_weighted.end());
+        for (std::size_t i = 0; i < share.size(); ++i) share[i] = std::exp(log_weighted[i] - log_weighted_max);
+        for (const Child& child : children) {
+            const FutureList& futures = *child.futures;
+            const double log_limit = threshold_ - child.fill_value;
+            const bool linear = (log_weighted_max - log_weighted_min) + futures.log_range() < 600;
+            std::size_t cut = futures.log_values.size();
+            double sum = 0;
+            for (std::size_t i = first; i < end; ++i) {
+                // Pasts rise, so the qualifying futures shrink: search only below the last cut.
+                cut = count_up_to(futures.log_values, cut, log_limit - pasts[i].log_value);
+                if (cut == 0) break;
+                if (linear)
+                    sum += share[i - first] * futures.prefix_share[cut - 1];
+                else
+                    result_.add(log_k_ + child.fill_value + child.log_arrangements + log_weighted[i - first] +
+                                futures.log_prefix_mass[cut - 1]);
+            }
+            if (linear && sum > 0)
+                result_.add(log_k_ + child.fill_value + child.log_arrangements + log_weighted_max +
+                            futures.log_prefix_mass.back() + std::log(sum));
+            if ((work_ += end - first) > next_time_check_) check_time();
+        }
+    }
+
+    NodeKey pack(const unsigned* values) const {
+        NodeKey key;
+        for (std::size_t i = 0; i < row_count_; ++i) {
+            const std::size_t shift = i * bits_;
+            const auto v = static_cast<std::uint64_t>(values[i]);
+            if (shift < 64) {
+                key.low |= v << shift;
+                if (shift + bits_ > 64) key.high |= v >> (64 - shift);
+            } else {
+                key.high |= v << (shift - 64);
+            }
+        }
+        return key;
+    }
+
+    void unpack(const NodeKey& key, unsigned* values) const {
+        const std::uint64_t mask = (std::uint64_t{1} << bits_) - 1;
+        for (std::size_t i = 0; i < row_count_; ++i) {
+            const std::size_t shift = i * bits_;
+            std::uint64_t v;
+            if (shift < 64) {
+                v = key.low >> shift;
+                if (shift + bits_ > 64) v |= key.high << (64 - shift);
+            } else {
+                v = key.high >> (shift - 64);
+            }
+            values[i] = static_cast<unsigned>(v & mask);
+        }
+    }
+
+    // Calls visit(child, log ∏ 1/x_i!, arrangements) for each way to put `total` into the rows
+    // of `node` (x_i ≤ r_i), once per arrangement class over rows with equal totals. The callback
+    // must not enumerate fills itself (the buffers are shared).
+    template <class Visit>
+    void for_each_fill(const NodeKey& node, unsigned total, Visit&& visit) {
+        std::vector<unsigned> rows(row_count_);
+        unpack(node, rows.data());
+        std::size_t length = row_count_;
+        while (length > 0 && rows[length - 1] == 0) --length;
+        rows_ = rows;
+        length_ = length;
+        capacity_[length] = 0;
+        for (std::size_t i = length; i-- > 0;) capacity_[i] = capacity_[i + 1] + rows[i];
+        fill_rows(0, total, 0.0, 1.0, 0, 0, visit);
+    }
+
+    template <class Visit>
+    void fill_rows(std::size_t i, unsigned remaining, double fill_value, double arrangements, unsigned group_position,
+                   unsigned run, Visit& visit) {
+        if (i == length_) {
+            for (std::size_t k = 0; k < row_count_; ++k) child_[k] = k < length_ ? rows_[k] - fill_[k] : 0;
+            // Insertion sort, largest first: the rows are few and nearly in order already.
+            for (std::size_t a = 1; a < length_; ++a)
+                for (std::size_t b = a; b > 0 && child_[b - 1] < child_[b]; --b) std::swap(child_[b - 1], child_[b]);
+            visit(pack(child_.data()), fill_value, arrangements);
+            if (++work_ > next_time_check_) check_time();
+            return;
+        }
+        const bool same_group = i > 0 && rows_[i] == rows_[i - 1];
+        unsigned highest = std::min(rows_[i], remaining);
+        if (same_group) highest = std::min(highest, fill_[i - 1]);
+        const unsigned after = capacity_[i + 1];
+        const unsigned lowest = remaining > after ? remaining - after : 0;
+        for (unsigned v = lowest; v <= highest; ++v) {
+            fill_[i] = v;
+            const unsigned position = same_group ? group_position + 1 : 0;
+            const unsigned new_run = same_group && v == fill_[i - 1] ? run + 1 : 1;
+            fill_rows(i + 1, remaining - v, fill_value - log_factorial_[v], arrangements * (position + 1) / new_run,
+                      position, new_run, visit);
+        }
+    }
+
+    // log of Σ over completions of ∏ 1/x! from stage k: S!/(∏ r_i! ∏_{j≥k} c_j!).
+    double log_total_future(std::size_t k, const NodeKey& node) const {
+        std::vector<unsigned> rows(row_count_);
+        unpack(node, rows.data());
+        unsigned s = 0;
+        double log_rows = 0;
+        for (unsigned r : rows) {
+            s += r;
+            log_rows += log_factorial_[r];
+        }
+        return log_factorial_[s] - log_rows - log_column_factorials_from_[k];
+    }
+
+    // Bounds on the future values of a node from stage k on. Exact (from the futures) two columns
+    // before the end; before that, from relaxations that drop one set of margins, which are cheap
+    // and still valid: the most probable completion is no more probable than the best way to
+    // spread each row (or each column) evenly, and no less probable than the least probable
+    // way, putting each row (or each column) into a single cell.
+    Bounds bounds_of(std::size_t k, const NodeKey& node) {
+        if (k == columns_.size() - 2) {
+            const FutureList& futures = futures_of(node);
+            return {futures.log_values.back(), futures.log_values.front()};
+        }
+        std::vector<unsigned> rows(row_count_);
+        unpack(node, rows.data());
+        const std::size_t columns_left = columns_.size() - k;
+        double spread_rows = 0, spread_columns = 0, single_rows = 0, single_columns = 0;
+        for (unsigned r : rows) {
+            spread_rows -= evenly_spread(r, columns_left);
+            single_rows -= log_factorial_[r];
+        }
+        for (std::size_t j = k; j < columns_.size(); ++j) {
+            spread_columns -= evenly_spread(columns_[j], length_of(rows));
+            single_columns -= log_factorial_[columns_[j]];
+        }
+        return {std::min(spread_rows, spread_columns), std::max(single_rows, single_columns)};
+    }
+
+    static std::size_t length_of(const std::vector<unsigned>& rows) {
+        std::size_t length = rows.size();
+        while (length > 0 && rows[length - 1] == 0) --length;
+        return length;
+    }
+
+    // Σ log x_j! when `total` is spread as evenly as whole numbers allow over `parts` cells.
+    double evenly_spread(unsigned total, std::size_t parts) const {
+        const auto base = static_cast<unsigned>(total / parts);
+        const auto extra = static_cast<unsigned>(total % parts);
+        return static_cast<double>(parts - extra) * log_factorial_[base] + extra * log_factorial_[base + 1];
+    }
+
+    // The futures of a node with two columns left: each fill x of the first column leaves r − x
+    // for the last, so a future's value is −Σ log x_i! + log (r_i − x_i)!.
+    const FutureList& futures_of(const NodeKey& node) {
+        if (auto found = futures_.find(node); found != futures_.end()) return found->second;
+        std::vector<unsigned> rows(row_count_);
+        unpack(node, rows.data());
+        const std::size_t length = length_of(rows);
+        std::vector<unsigned> capacity(length + 1, 0), fill(length, 0);
+        for (std::size_t i = length; i-- > 0;) capacity[i] = capacity[i + 1] + rows[i];
+        std::vector<Past> values;
+        // The same walk as fill_rows, kept separate because it needs no child keys.
+        auto walk = [&](auto& self, std::size_t i, unsigned remaining, double value, double arrangements,
+                        unsigned group_position, unsigned run) -> void {
+            if (i == length) {
+                values.push_back(Past{value, arrangements});
+                return;
+            }
+            const bool same_group = i > 0 && rows[i] == rows[i - 1];
+            unsigned highest = std::min(rows[i], remaining);
+            if (same_group) highest = std::min(highest, fill[i - 1]);
+            const unsigned lowest = remaining > capacity[i + 1] ? remaining - capacity[i + 1] : 0;
+            for (unsigned v = lowest; v <= highest; ++v) {
+                fill[i] = v;
+                const unsigned position = same_group ? group_position + 1 : 0;
+                const unsigned new_run = same_group && v == fill[i - 1] ? run + 1 : 1;
+                self(self, i + 1, remaining - v, value - log_factorial_[v] - log_factorial_[rows[i] - v],
+                     arrangements * (position + 1) / new_run, position, new_run);
+            }
+        };
+        walk(walk, 0, columns_[columns_.size() - 2], 0.0, 1.0, 0, 0);
+        work_ += values.size();
+        merge_equal_values(values);
+        FutureList list;
+        list.log_values.reserve(values.size());
+        list.log_prefix_mass.reserve(values.size());
+        list.prefix_share.reserve(values.size());
+        const double largest = values.back().log_value;
+        double running = 0;  // Σ mass·exp(value − largest): the largest term is at least 1, so no overflow
+        for (const Past& v : values) {
+            running += v.mass * std::exp(v.log_value - largest);
+            list.log_values.push_back(v.log_value);
+            list.log_prefix_mass.push_back(largest + std::log(running));
+        }
+        for (double log_mass : list.log_prefix_mass) list.prefix_share.push_back(std::exp(log_mass - list.log_prefix_mass.back()));
+        count_stored(2 * values.size() + 3);
+        return futures_.emplace(node, std::move(list)).first->second;
+    }
+
+    void count_stored(std::size_t added) {
+        stored_ += added;
+        if (stored_ > limits_.max_stored_values) fail("memory");
+    }
+
+    void check_time() {
+        next_time_check_ = work_ + (1u << 16);
+        const double seconds = std::chrono::duration<double>(Clock::now() - start_).count();
+        if (seconds > limits_.max_seconds) fail("time");
+    }
+
+    [[noreturn]] void fail(const char* resource) const {
+        throw Error(std::string("the exact test for this table needs more ") + resource +
+                    " than allowed (the limit is " + format_number(limits_.max_seconds, 3) + " seconds and " +
+                    format_count(static_cast<double>(limits_.max_stored_values)) +
+                    " stored values); use ASSOC.SIMULATE for a Monte Carlo p-value instead");
+    }
+
+    [[noreturn]] void fail_too_large() const {
+        throw Error("the exact test cannot enumerate a table with this many rows and columns and such totals; "
+                    "use ASSOC.SIMULATE for a Monte Carlo p-value instead");
+    }
+
+    ExactLimits limits_;
+    Clock::time_point start_;
+    std::vector<double> log_factorial_;
+    std::vector<unsigned> columns_;
+    std::vector<double> log_column_factorials_from_;
+    std::size_t row_count_ = 0, bits_ = 1, length_ = 0;
+    NodeKey root_;
+    double log_k_ = 0, threshold_ = 0;
+    std::vector<std::unordered_map<NodeKey, Bounds, NodeKeyHash>> bounds_;
+    std::unordered_map<NodeKey, FutureList, NodeKeyHash> futures_;
+    std::vector<unsigned> rows_, capacity_, fill_, child_;
+    std::vector<NodeKey> pending_;
+    std::size_t stored_ = 0;
+    unsigned long long work_ = 0, next_time_check_ = 1u << 16;
+    LogSum result_;
+};
+
+}  // namespace
+
+double freeman_halton_p_value(const Matrix& counts, const ExactLimits& limits) {
+    Network network(counts, limits);
+    return network.p_value();
+}
+
+}  // namespace assoc::detail
