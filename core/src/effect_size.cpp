@@ -4,8 +4,8 @@
 #include <cmath>
 
 #include "assoc/error.hpp"
+#include "assoc/expected_counts.hpp"
 #include "assoc/statistics.hpp"
-#include "extended_arithmetic.hpp"
 
 namespace assoc {
 
@@ -31,12 +31,12 @@ double phi_coefficient(const CountTable& table) {
     require(table.is_two_by_two(), "phi is defined for 2×2 tables only; this table has " +
                                        std::to_string(table.rows()) + " rows and " +
                                        std::to_string(table.columns()) + " columns with counts; use Cramér's V");
-    // ad − bc without cancellation, then one division.
-    const detail::DoubleDouble cross = detail::exact_product(table.count(0, 0), table.count(1, 1)) -
-                                       detail::exact_product(table.count(0, 1), table.count(1, 0));
-    // Two square roots rather than one of the product of four margins, which could overflow.
-    return cross.value() / std::sqrt(table.row_total(0) * table.row_total(1)) /
-           std::sqrt(table.column_total(0) * table.column_total(1));
+    // (ad − bc)/√(r1 r2 c1 c2) = (O − E)/√(E₁₁ E₂₂) for the top-left cell, since ad − bc = n (O − E)
+    // and E₁₁ E₂₂ = r1 c1 r2 c2 / n². O − E comes without cancellation, and nothing here can
+    // overflow the way the product of four margins does for large counts.
+    const Matrix deviation = deviations_from_expected(table);
+    const Matrix expected = expected_counts(table);
+    return deviation(0, 0) / std::sqrt(expected(0, 0)) / std::sqrt(expected(1, 1));
 }
 
 double contingency_coefficient(const CountTable& table) {
