@@ -129,7 +129,9 @@ def library_statistics(counts):
     t = t[t.sum(axis=1) > 0][:, t.sum(axis=0) > 0]
     x2, p, df, expected = st.chi2_contingency(t, correction=False)
     g2, gp, _, _ = st.chi2_contingency(t, correction=False, lambda_="log-likelihood")
-    table = sm.stats.Table(t)
+    # shift_zeros=False: statsmodels 0.13.5 otherwise replaces zero cells by 0.5, and does so in
+    # the array it was given (so on a copy, too, to keep t as it is).
+    table = sm.stats.Table(t.copy(), shift_zeros=False)
     n = t.sum()
     r, c = t.shape
     whole = bool(np.all(t == np.floor(t)))
