@@ -10,6 +10,8 @@
 namespace assoc {
 
 double cramers_v(const CountTable& table) {
+    // Only a table read without the 2×2 requirement can fail this; V would be 0/0 there.
+    require(table.rows() >= 2 && table.columns() >= 2, "Cramér's V needs at least 2 rows and 2 columns with counts");
     const double smaller_side = static_cast<double>(std::min(table.rows(), table.columns()));
     return std::sqrt(pearson_statistic(table) / (table.total() * (smaller_side - 1)));
 }

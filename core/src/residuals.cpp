@@ -3,6 +3,7 @@
 #include <cmath>
 #include <vector>
 
+#include "assoc/error.hpp"
 #include "assoc/expected_counts.hpp"
 #include "exact_margins.hpp"
 
@@ -15,6 +16,10 @@ Matrix residuals(const CountTable& table, ResidualKind kind) {
     // margins: that keeps the digits when one row or column holds nearly everything.
     std::vector<double> row_share_left, column_share_left;
     if (kind == ResidualKind::adjusted) {
+        // With one row (or column) 1 − R/n is 0 and every adjusted residual 0/0; only a table
+        // read without the 2×2 requirement can get here so.
+        require(table.rows() >= 2 && table.columns() >= 2,
+                "adjusted residuals need at least 2 rows and 2 columns with counts");
         const detail::ScaledMargins margins = detail::scaled_margins(table);
         for (const detail::DoubleDouble& row : margins.rows)
             row_share_left.push_back(((margins.total - row) / margins.total).value());
