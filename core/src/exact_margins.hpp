@@ -6,8 +6,9 @@
 // O·n − R·C is a small difference of large numbers, so a rounded R or n would leave
 // only a few correct digits in it.
 // Why scaled: O·n and R·C overflow for counts above about 1e154 (and underflow for
-// tiny weights). Every count is multiplied by the same power of two, 2^-exponent,
-// chosen to bring the total near 1; that is exact, and O − E and E scale back exactly.
+// tiny weights). When the total is beyond 2^±500, every count is multiplied by the same
+// power of two, 2^-exponent, chosen to bring the total near 1; that is exact, and O − E
+// and E scale back exactly.
 #include <cmath>
 #include <cstddef>
 #include <vector>
@@ -16,6 +17,9 @@
 #include "extended_arithmetic.hpp"
 
 namespace assoc::detail {
+
+// The few double-double operations the margins need. They are the "sloppy" kind, accurate for
+// sums of non-negative numbers and for products, which is all they are used for here.
 
 // hi + lo renormalised when |hi| ≥ |lo| is known (Dekker's fast two-sum).
 inline DoubleDouble renormalised(double hi, double lo) {
@@ -34,28 +38,31 @@ inline DoubleDouble operator*(const DoubleDouble& x, const DoubleDouble& y) {
     return renormalised(p.hi, p.lo + (x.hi * y.lo + x.lo * y.hi));
 }
 
-// x / y with one correction step of the double quotient: exact when the quotient is a
-// double, otherwise about 2^-104 relative.
-inline DoubleDouble operator/(const DoubleDouble& x, const DoubleDouble& y) {
-    const double first = x.hi / y.hi;
-    const DoubleDouble remainder = x - y * DoubleDouble{first, 0.0};
-    return renormalised(first, remainder.hi / y.hi);
-}
-
 struct ScaledMargins {
     int exponent = 0;  // every count was multiplied by 2^-exponent
     std::vector<DoubleDouble> rows, columns;
     DoubleDouble total;
 
-    double scaled(double count) const { return std::ldexp(count, -exponent); }
-    double unscaled(double value) const { return std::ldexp(value, exponent); }
+    double scaled(double count) const { return exponent == 0 ? count : std::ldexp(count, -exponent); }
+    double unscaled(double value) const { return exponent == 0 ? value : std::ldexp(value, exponent); }
 };
 
 inline ScaledMargins scaled_margins(const CountTable& table) {
     ScaledMargins margins;
-    if (table.total() > 0) margins.exponent = std::ilogb(table.total());
+    // Ordinary totals need no scaling (O·n stays far from overflow and underflow), which keeps
+    // the common case free of ldexp calls.
+    const double total = table.total();
+    if (total > 0 && (total > 0x1p500 || total < 0x1p-500)) margins.exponent = std::ilogb(total);
     margins.rows.assign(table.rows(), DoubleDouble{});
     margins.columns.assign(table.columns(), DoubleDouble{});
+    if (margins.exponent == 0 && table.whole_counts() && total <= 0x1p53) {
+        // The common case: whole counts whose total is below 2^53 add up exactly in doubles,
+        // so the table's own totals are already exact.
+        for (std::size_t r = 0; r < table.rows(); ++r) margins.rows[r].hi = table.row_total(r);
+        for (std::size_t c = 0; c < table.columns(); ++c) margins.columns[c].hi = table.column_total(c);
+        margins.total.hi = total;
+        return margins;
+    }
     for (std::size_t r = 0; r < table.rows(); ++r)
         for (std::size_t c = 0; c < table.columns(); ++c) {
             const double count = margins.scaled(table.count(r, c));

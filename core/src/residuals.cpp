@@ -22,9 +22,9 @@ Matrix residuals(const CountTable& table, ResidualKind kind) {
                 "adjusted residuals need at least 2 rows and 2 columns with counts");
         const detail::ScaledMargins margins = detail::scaled_margins(table);
         for (const detail::DoubleDouble& row : margins.rows)
-            row_share_left.push_back(((margins.total - row) / margins.total).value());
+            row_share_left.push_back((margins.total - row).value() / margins.total.value());
         for (const detail::DoubleDouble& column : margins.columns)
-            column_share_left.push_back(((margins.total - column) / margins.total).value());
+            column_share_left.push_back((margins.total - column).value() / margins.total.value());
     }
     Matrix result(table.rows(), table.columns());
     double chi_squared = 0.0;
