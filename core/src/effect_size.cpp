@@ -4,12 +4,14 @@
 #include <cmath>
 
 #include "assoc/error.hpp"
+#include "assoc/expected_counts.hpp"
 #include "assoc/statistics.hpp"
-#include "extended_arithmetic.hpp"
 
 namespace assoc {
 
 double cramers_v(const CountTable& table) {
+    // Only a table read without the 2×2 requirement can fail this; V would be 0/0 there.
+    require(table.rows() >= 2 && table.columns() >= 2, "Cramér's V needs at least 2 rows and 2 columns with counts");
     const double smaller_side = static_cast<double>(std::min(table.rows(), table.columns()));
     return std::sqrt(pearson_statistic(table) / (table.total() * (smaller_side - 1)));
 }
@@ -31,12 +33,12 @@ double phi_coefficient(const CountTable& table) {
     require(table.is_two_by_two(), "phi is defined for 2×2 tables only; this table has " +
                                        std::to_string(table.rows()) + " rows and " +
                                        std::to_string(table.columns()) + " columns with counts; use Cramér's V");
-    // ad − bc without cancellation, then one division.
-    const detail::DoubleDouble cross = detail::exact_product(table.count(0, 0), table.count(1, 1)) -
-                                       detail::exact_product(table.count(0, 1), table.count(1, 0));
-    // Two square roots rather than one of the product of four margins, which could overflow.
-    return cross.value() / std::sqrt(table.row_total(0) * table.row_total(1)) /
-           std::sqrt(table.column_total(0) * table.column_total(1));
+    // (ad − bc)/√(r1 r2 c1 c2) = (O − E)/√(E₁₁ E₂₂) for the top-left cell, since ad − bc = n (O − E)
+    // and E₁₁ E₂₂ = r1 c1 r2 c2 / n². O − E comes without cancellation, and nothing here can
+    // overflow the way the product of four margins does for large counts.
+    const Matrix deviation = deviations_from_expected(table);
+    const Matrix expected = expected_counts(table);
+    return deviation(0, 0) / std::sqrt(expected(0, 0)) / std::sqrt(expected(1, 1));
 }
 
 double contingency_coefficient(const CountTable& table) {

@@ -1,4 +1,5 @@
 #include <boost/math/special_functions/log1p.hpp>
+#include <cmath>
 
 #include "assoc/expected_counts.hpp"
 #include "assoc/statistics.hpp"
@@ -17,12 +18,19 @@ double likelihood_ratio_statistic(const CountTable& table) {
     for (std::size_t i = 0; i < deviation.size(); ++i) {
         const double e = expected.values()[i];
         const double observed = table.counts().values()[i];
+        const double d = deviation.values()[i];
         if (observed == 0) {  // 0·ln 0 = 0, leaving −(O − E) = E
             sum += e;
-            continue;
+        } else if (observed < 0.5 * e) {
+            // Far below E, x = (O − E)/E is close to −1 and 1 + x loses O/E's digits (it even
+            // rounds to 0 when O/E < 2^-53, where log1p(x) has a pole). The direct form has no
+            // cancellation here: O ln(O/E) lies in [−E/e, 0) while −(O − E) ≥ E/2.
+            const double ratio = observed / e;  // 0 only when O/E is below the smallest double
+            sum += observed * (ratio > 0 ? std::log(ratio) : std::log(observed) - std::log(e)) - d;
+        } else {
+            const double x = d / e;
+            sum += e * (boost::math::log1pmx(x, policy) + x * boost::math::log1p(x, policy));
         }
-        const double x = deviation.values()[i] / e;
-        sum += e * (boost::math::log1pmx(x, policy) + x * boost::math::log1p(x, policy));
     }
     return 2.0 * sum;
 }

@@ -1,5 +1,7 @@
 // Reading a count table from a range of cells: headers, body, empty rows and columns.
+#include <algorithm>
 #include <cmath>
+#include <limits>
 #include <string>
 
 #include "assoc/count_table.hpp"
@@ -158,6 +160,16 @@ void CountTable::finish(const Matrix& body, const ReadOptions& options) {
     total_ = 0.0;
     for (double t : row_totals_) total_ += t;
     require(std::isfinite(total_), "the counts add up to more than a spreadsheet number can hold");
+    // The smallest expected count must be an ordinary double, or E underflows to 0 and the
+    // statistics turn into 0/0: only counts near 1e-308, or spanning over 300 orders of
+    // magnitude, get here.
+    if (!row_totals_.empty() && !column_totals_.empty()) {
+        const double smallest_row = *std::min_element(row_totals_.begin(), row_totals_.end());
+        const double smallest_column = *std::min_element(column_totals_.begin(), column_totals_.end());
+        require(smallest_row / total_ * smallest_column >= std::numeric_limits<double>::min(),
+                "the counts are too small, or too far apart in size, to compute with (an expected count falls "
+                "below 1e-308); multiply them all by a common factor or round the smallest to 0");
+    }
 }
 
 Matrix CountTable::to_body_shape(const Matrix& kept, double fill) const {

@@ -1,15 +1,31 @@
 #include "assoc/residuals.hpp"
 
 #include <cmath>
+#include <vector>
 
+#include "assoc/error.hpp"
 #include "assoc/expected_counts.hpp"
+#include "exact_margins.hpp"
 
 namespace assoc {
 
 Matrix residuals(const CountTable& table, ResidualKind kind) {
     const Matrix deviation = deviations_from_expected(table);
     const Matrix expected = expected_counts(table);
-    const double n = table.total();
+    // 1 − R/n and 1 − C/n for the adjusted residuals, as (n − R)/n from the double-double
+    // margins: that keeps the digits when one row or column holds nearly everything.
+    std::vector<double> row_share_left, column_share_left;
+    if (kind == ResidualKind::adjusted) {
+        // With one row (or column) 1 − R/n is 0 and every adjusted residual 0/0; only a table
+        // read without the 2×2 requirement can get here so.
+        require(table.rows() >= 2 && table.columns() >= 2,
+                "adjusted residuals need at least 2 rows and 2 columns with counts");
+        const detail::ScaledMargins margins = detail::scaled_margins(table);
+        for (const detail::DoubleDouble& row : margins.rows)
+            row_share_left.push_back((margins.total - row).value() / margins.total.value());
+        for (const detail::DoubleDouble& column : margins.columns)
+            column_share_left.push_back((margins.total - column).value() / margins.total.value());
+    }
     Matrix result(table.rows(), table.columns());
     double chi_squared = 0.0;
     for (std::size_t r = 0; r < table.rows(); ++r)
@@ -18,16 +34,12 @@ Matrix residuals(const CountTable& table, ResidualKind kind) {
             switch (kind) {
             case ResidualKind::raw: result(r, c) = d; break;
             case ResidualKind::pearson: result(r, c) = d / std::sqrt(e); break;
-            case ResidualKind::adjusted: {
-                // 1 − R/n written as (n − R)/n keeps the digits when one row holds nearly everything.
-                const double row_share_left = (n - table.row_total(r)) / n;
-                const double column_share_left = (n - table.column_total(c)) / n;
-                result(r, c) = d / std::sqrt(e * row_share_left * column_share_left);
+            case ResidualKind::adjusted:
+                result(r, c) = d / std::sqrt(e * row_share_left[r] * column_share_left[c]);
                 break;
-            }
             case ResidualKind::contribution:
             case ResidualKind::percent:
-                result(r, c) = d * d / e;
+                result(r, c) = d * (d / e);
                 chi_squared += result(r, c);
                 break;
             }

@@ -1,8 +1,10 @@
 #include "assoc/validity.hpp"
 
 #include <algorithm>
+#include <cctype>
 #include <cmath>
 
+#include "assoc/error.hpp"
 #include "assoc/expected_counts.hpp"
 #include "assoc/format.hpp"
 
@@ -16,7 +18,11 @@ std::string describe_set_aside(const std::vector<SetAside>& lines, const char* w
         names += lines[i].label.empty() ? std::to_string(lines[i].index + 1) : "\"" + lines[i].label + "\"";
     }
     const bool one = lines.size() == 1;
-    return std::string("The ") + word + (one ? " " : "s ") + names + (one ? " has" : " have") +
+    const bool labelled = std::any_of(lines.begin(), lines.end(), [](const SetAside& line) { return !line.label.empty(); });
+    // "The row \"Legal\" has …", but "Row 2 has …" (not "The row 2").
+    std::string noun = std::string(word) + (one ? "" : "s");
+    noun = labelled ? "The " + noun : static_cast<char>(std::toupper(static_cast<unsigned char>(noun[0]))) + noun.substr(1);
+    return noun + " " + names + (one ? " has" : " have") +
            " no counts and " + (one ? "was" : "were") + " set aside.";
 }
 
@@ -26,6 +32,8 @@ ValidityCheck check_validity(const CountTable& table) {
     ValidityCheck check;
     const Matrix expected = expected_counts(table);
     check.cells = expected.size();
+    // Only a table read without the 2×2 requirement can get here empty; min_element on it crashed.
+    require(check.cells > 0, "the table holds no counts, so there is nothing to check");
     check.smallest_expected = *std::min_element(expected.values().begin(), expected.values().end());
     for (double e : expected.values()) {
         if (e < 5) ++check.cells_below_five;

@@ -16,7 +16,7 @@ double yates_statistic(const CountTable& table) {
     double sum = 0.0;
     for (std::size_t i = 0; i < deviation.size(); ++i) {
         const double corrected = std::max(0.0, std::fabs(deviation.values()[i]) - 0.5);
-        sum += corrected * corrected / expected.values()[i];
+        sum += corrected * (corrected / expected.values()[i]);
     }
     return sum;
 }

@@ -128,3 +128,136 @@ TEST(ReadCountTable, RejectsAMillionAndOneCellsByDefault) {
     CellGrid big(1001, 1000);
     expect_error([&] { read_count_table(big); }, "the table has 1,001,000 count cells; Assoc reads at most 1,000,000");
 }
+
+TEST(ReadCountTable, ReadsAnAllBlankFirstRowAsAnEmptyBodyRowNotAHeader) {
+    // A header row needs one text at least; an all-blank row is a row of zeros, set aside.
+    const CountTable table = read_count_table(grid({{nullptr, nullptr}, {1, 2}, {3, 4}}));
+    EXPECT_FALSE(table.has_column_labels());
+    EXPECT_EQ(table.blank_cells(), 2u);
+    ASSERT_EQ(table.set_aside_rows().size(), 1u);
+    EXPECT_EQ(table.set_aside_rows()[0].index, 0u);
+}
+
+TEST(ReadCountTable, AcceptsABlankLabelInTheHeaderColumn) {
+    const CountTable table = read_count_table(grid({{"", "A", "B"}, {"x", 1, 2}, {nullptr, 3, 4}}));
+    EXPECT_TRUE(table.has_row_labels());
+    EXPECT_EQ(table.row_labels(), (std::vector<std::string>{"x", ""}));
+    EXPECT_DOUBLE_EQ(table.count(1, 0), 3);
+}
+
+TEST(ReadCountTable, AcceptsABlankLabelInTheHeaderRow) {
+    const CountTable table = read_count_table(grid({{"", "A", nullptr}, {"x", 1, 2}, {"y", 3, 4}}));
+    EXPECT_EQ(table.column_labels(), (std::vector<std::string>{"A", ""}));
+}
+
+TEST(ReadCountTable, ReadsNumbersInTheFirstColumnAsCountsNotLabels) {
+    // The header-column rule is the header-row rule: numbers (years, say) make it a column of counts.
+    const CountTable table = read_count_table(grid({{"", "Yes", "No"}, {2021, 3, 4}, {2022, 5, 6}}));
+    EXPECT_FALSE(table.has_row_labels());
+    EXPECT_EQ(table.body_columns(), 3u);
+    EXPECT_DOUBLE_EQ(table.count(0, 0), 2021);
+}
+
+TEST(ReadCountTable, RejectsAFirstColumnMixingLabelsAndNumbersNamingTheText) {
+    expect_error([] { read_count_table(grid({{"", "Yes", "No"}, {"x", 1, 2}, {5, 3, 4}})); },
+                 "row 2, column 1 holds the text \"x\"; counts must be numbers");
+}
+
+TEST(ReadCountTable, NamesTheCellByItsPlaceInTheRangeIncludingHeaders) {
+    expect_error([] { read_count_table(grid({{"", "A", "B"}, {"x", 1, -2}, {"y", 3, 4}})); },
+                 "row 2, column 3 holds the number -2; counts cannot be negative");
+    expect_error([] { read_count_table(grid({{1, 2}, {-0.5, 4}})); },
+                 "row 2, column 1 holds the number -0.5; counts cannot be negative");
+}
+
+TEST(ReadCountTable, RejectsAFirstRowMixingLabelsAndNumbersBesideAHeaderColumn) {
+    expect_error([] { read_count_table(grid({{"", 5, "C"}, {"x", 1, 2}, {"y", 3, 4}})); },
+                 "row 1 mixes labels and numbers (row 1, column 3 holds the text \"C\"); a header row must hold "
+                 "only labels and a row of counts only numbers");
+}
+
+TEST(ReadCountTable, RejectsTextBelowTheFirstRowNamingTheCell) {
+    expect_error([] { read_count_table(grid({{1, 2, 3}, {4, "five", 6}})); },
+                 "row 2, column 2 holds the text \"five\"; counts must be numbers");
+}
+
+TEST(ReadCountTable, RejectsATableWhoseCountsAreAllZero) {
+    expect_error([] { read_count_table(grid({{0, 0}, {nullptr, 0}})); },
+                 "the table has no row with counts (2 rows with all zeros set aside); a test of association needs at "
+                 "least 2 rows and 2 columns with counts");
+}
+
+TEST(ReadCountTable, RejectsATableWithOneNonEmptyColumnAfterSettingAside) {
+    expect_error([] { read_count_table(grid({{"", "A", "B"}, {"x", 1, 0}, {"y", 2, 0}})); },
+                 "the table has only 1 column with counts (1 column with all zeros set aside); a test of "
+                 "association needs at least 2 rows and 2 columns with counts");
+}
+
+TEST(ReadCountTable, RejectsASingleColumnOfNumbers) {
+    expect_error([] { read_count_table(grid({{1}, {2}, {3}})); },
+                 "the table has only 1 column with counts; a test of association needs at least 2 rows and 2 "
+                 "columns with counts");
+}
+
+TEST(ReadCountTable, RejectsARangeOfLabelsInOneColumn) {
+    expect_error([] { read_count_table(grid({{"Region"}, {"North"}})); }, "the range holds only labels and no counts");
+}
+
+TEST(ReadCountTable, RejectsCountsWhoseTotalIsTooLargeForANumber) {
+    expect_error([] { read_count_table(grid({{1e308, 1e308}, {1e308, 1e308}})); },
+                 "the counts add up to more than a spreadsheet number can hold");
+}
+
+TEST(ReadCountTable, AcceptsATableOfExactlyTheSizeCap) {
+    ReadOptions options;
+    options.max_body_cells = 6;
+    EXPECT_EQ(read_count_table(grid({{1, 2, 3}, {4, 5, 6}}), options).rows(), 2u);
+}
+
+TEST(ReadCountTable, LeavesHeadersOutOfTheSizeCap) {
+    ReadOptions options;
+    options.max_body_cells = 6;
+    EXPECT_EQ(read_count_table(grid({{"", "A", "B", "C"}, {"x", 1, 2, 3}, {"y", 4, 5, 6}}), options).columns(), 3u);
+}
+
+TEST(ReadCountTable, ChecksTheSizeCapBeforeReadingAnyCell) {
+    // A million and one cells with text in them: the size, not the text, is what gets reported.
+    CellGrid big(1001, 1000);
+    big.at(500, 500) = Cell::text("x");
+    expect_error([&] { read_count_table(big); }, "the table has 1,001,000 count cells; Assoc reads at most 1,000,000");
+}
+
+TEST(CountTableFromCounts, RejectsNegativeAndNonFiniteCounts) {
+    Matrix counts(2, 2, 1.0);
+    counts(1, 0) = -1;
+    expect_error([&] { CountTable::from_counts(counts); },
+                 "row 2, column 1 holds the number -1; counts must be numbers of zero or more");
+    counts(1, 0) = std::nan("");
+    expect_error([&] { CountTable::from_counts(counts); },
+                 "row 2, column 1 holds a value that is not a number; counts must be numbers of zero or more");
+}
+
+TEST(CountTableFromCounts, RejectsAnEmptyMatrix) {
+    expect_error([] { CountTable::from_counts(Matrix()); }, "the range is empty; select a table of counts");
+}
+
+TEST(CountTableFromCounts, AcceptsOneRowWhenTheTwoByTwoRequirementIsOff) {
+    ReadOptions options;
+    options.require_two_by_two = false;
+    Matrix counts(1, 3, 2.0);
+    EXPECT_EQ(CountTable::from_counts(counts, options).rows(), 1u);
+}
+
+TEST(ReadCountTable, RejectsCountsTooSmallOrTooFarApartToComputeWith) {
+    // Expected counts below the smallest ordinary double (about 2.2e-308) would become 0 and the
+    // statistics 0/0; both tables get here: E = 1e-323·1e-323/2.5e-323 and 2e-300·2e-300/1e300.
+    const std::string message =
+        "the counts are too small, or too far apart in size, to compute with (an expected count falls below "
+        "1e-308); multiply them all by a common factor or round the smallest to 0";
+    expect_error([&] { read_count_table(grid({{5e-324, 5e-324}, {5e-324, 1e-323}})); }, message);
+    expect_error([&] { read_count_table(grid({{1e300, 1e-300}, {1e-300, 1e-300}})); }, message);
+}
+
+TEST(ReadCountTable, AcceptsTinyWeightsWhoseExpectedCountsAreOrdinaryNumbers) {
+    EXPECT_EQ(read_count_table(grid({{1e-300, 2e-300}, {3e-300, 4e-300}})).rows(), 2u);
+}

@@ -5,10 +5,10 @@
 
 namespace assoc {
 
-// P(X ≥ statistic) for X ~ chi-squared(df). df > 0, statistic ≥ 0.
+// P(X ≥ statistic) for X ~ chi-squared(df). 0 < df ≤ 1e10, statistic ≥ 0 (infinity gives 0).
 double chi_squared_p_value(double statistic, double df);
 
-// The value c with P(X ≥ c) = alpha for X ~ chi-squared(df). df > 0, 0 < alpha < 1.
+// The value c with P(X ≥ c) = alpha for X ~ chi-squared(df). 0 < df ≤ 1e10, 0 < alpha < 1.
 double chi_squared_critical_value(double df, double alpha);
 
 }  // namespace assoc

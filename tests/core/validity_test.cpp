@@ -1,0 +1,111 @@
+// The validity check before trusting a chi-squared p-value: expected counts below 5 and 1,
+// Cochran's rule (common practice: no E below 1, at most 20% below 5), the exact-test advice,
+// blanks, set-aside rows/columns, weighted counts, and the plain-language summary.
+#include <gtest/gtest.h>
+
+#include "assoc/validity.hpp"
+#include "test_support.hpp"
+
+using namespace assoc;
+using assoc::test::table;
+
+TEST(ValidityCheck, ReportsTheSmallestExpectedCount) {
+    // [[20, 30], [25, 35]]: smallest E = 45·50/110 = 20.4545… (exact arithmetic).
+    EXPECT_NEAR_REL(check_validity(table({{20, 30}, {25, 35}})).smallest_expected, 45.0 * 50 / 110, 1e-15);
+}
+
+TEST(ValidityCheck, CallsATableWithNoSmallExpectedCountsSound) {
+    const ValidityCheck check = check_validity(table({{20, 30}, {25, 35}}));
+    EXPECT_EQ(check.cells, 4u);
+    EXPECT_EQ(check.cells_below_five, 0u);
+    EXPECT_FALSE(check.any_below_one);
+    EXPECT_TRUE(check.cochran_rule_met);
+    EXPECT_FALSE(check.exact_test_recommended);
+    EXPECT_EQ(check.summary(),
+              "Sound: the smallest expected count is 20.5 and no cell expects fewer than 5, so the chi-squared "
+              "approximation can be trusted.");
+}
+
+TEST(ValidityCheck, AcceptsExactlyTwentyPercentOfCellsBelowFive) {
+    // Proportional 3×5 table, so E = O: 3 of 15 cells (20%) expect 2, none below 1.
+    const ValidityCheck check = check_validity(table({{2, 20, 20, 20, 20}, {2, 20, 20, 20, 20}, {2, 20, 20, 20, 20}}));
+    EXPECT_EQ(check.cells_below_five, 3u);
+    EXPECT_DOUBLE_EQ(check.share_below_five, 0.2);
+    EXPECT_TRUE(check.cochran_rule_met);
+    EXPECT_FALSE(check.exact_test_recommended);
+    EXPECT_EQ(check.summary(),
+              "Sound: the smallest expected count is 2 and 3 of 15 cells expect fewer than 5, within Cochran's rule "
+              "(at most 20%, none below 1).");
+}
+
+TEST(ValidityCheck, FailsCochransRuleWithMoreThanTwentyPercentBelowFive) {
+    // E = O again: 6 of 15 cells (40%) expect 2 or 3.
+    const ValidityCheck check = check_validity(table({{2, 3, 20, 20, 20}, {2, 3, 20, 20, 20}, {2, 3, 20, 20, 20}}));
+    EXPECT_EQ(check.cells_below_five, 6u);
+    EXPECT_FALSE(check.cochran_rule_met);
+    EXPECT_TRUE(check.exact_test_recommended);
+}
+
+TEST(ValidityCheck, FailsCochransRuleWhenAnyCellExpectsFewerThanOne) {
+    // Column 1 totals 2 over n = 242: E = 80·2/242 ≈ 0.66 in the first and last row.
+    const ValidityCheck check = check_validity(table({{1, 20, 20, 20, 20}, {0, 20, 20, 20, 20}, {1, 20, 20, 20, 20}}));
+    EXPECT_TRUE(check.any_below_one);
+    EXPECT_FALSE(check.cochran_rule_met);
+    EXPECT_EQ(check.summary(),
+              "Doubtful: the smallest expected count is 0.661, and 3 of 15 cells (20%) expect fewer than 5; Cochran's "
+              "rule asks for none below 1 and at most 20% below 5 (some cells expect fewer than 1). Use the exact "
+              "test (ASSOC.EXACT) or a simulated p-value (ASSOC.SIMULATE) instead.");
+}
+
+TEST(ValidityCheck, RecommendsTheExactTestForATwoByTwoTableWithAnExpectedCountBelowFive) {
+    // Fisher's tea-tasting table (references.md section 2): every E = 2.
+    const ValidityCheck check = check_validity(table({{3, 1}, {1, 3}}));
+    EXPECT_TRUE(check.exact_test_recommended);
+    EXPECT_EQ(check.smallest_expected, 2.0);
+    EXPECT_EQ(check.summary(),
+              "Doubtful: the smallest expected count is 2, and 4 of 4 cells (100%) expect fewer than 5; Cochran's "
+              "rule asks for none below 1 and at most 20% below 5. Use the exact test (ASSOC.EXACT) or a simulated "
+              "p-value (ASSOC.SIMULATE) instead.");
+}
+
+TEST(ValidityCheck, AdvisesCombiningCategoriesWhenCountsAreWeighted) {
+    const ValidityCheck check = check_validity(table({{3.5, 1}, {1, 3}}));
+    EXPECT_FALSE(check.whole_counts);
+    EXPECT_EQ(check.summary(),
+              "Doubtful: the smallest expected count is 1.88, and 4 of 4 cells (100%) expect fewer than 5; Cochran's "
+              "rule asks for none below 1 and at most 20% below 5. Combine sparse categories or collect more data. "
+              "Some counts are not whole numbers (weighted data); exact tests need whole counts.");
+}
+
+TEST(ValidityCheck, ReportsBlanksAndSetAsideRowsAndColumnsByTheirLabels) {
+    const ValidityCheck check = check_validity(table({{"", "A", "B", "C"},
+                                                      {"Sales", 20, nullptr, 30},
+                                                      {"Legal", 0, 0, 0},
+                                                      {"HR", 25, 0, 35},
+                                                      {"IT", 0, 0, nullptr}}));
+    EXPECT_EQ(check.blank_cells, 2u);
+    ASSERT_EQ(check.set_aside_rows.size(), 2u);
+    ASSERT_EQ(check.set_aside_columns.size(), 1u);
+    EXPECT_EQ(check.summary(),
+              "Sound: the smallest expected count is 20.5 and no cell expects fewer than 5, so the chi-squared "
+              "approximation can be trusted. 2 blank cells were read as 0. The rows \"Legal\" and \"IT\" have no "
+              "counts and were set aside. The column \"B\" has no counts and was set aside.");
+}
+
+TEST(ValidityCheck, NamesSetAsideRowsByNumberWhenTheyHaveNoLabel) {
+    const ValidityCheck check = check_validity(table({{20, 30}, {0, 0}, {25, 35}}));
+    EXPECT_EQ(check.summary(),
+              "Sound: the smallest expected count is 20.5 and no cell expects fewer than 5, so the chi-squared "
+              "approximation can be trusted. Row 2 has no counts and was set aside.");
+    EXPECT_EQ(check_validity(table({{20, 0, 30, 0}, {25, 0, 35, 0}})).summary(),
+              "Sound: the smallest expected count is 20.5 and no cell expects fewer than 5, so the chi-squared "
+              "approximation can be trusted. Columns 2 and 4 have no counts and were set aside.");
+}
+
+TEST(ValidityCheck, AppendsRemarksFromOtherRoutines) {
+    ValidityCheck check = check_validity(table({{20, 30}, {25, 35}}));
+    check.remarks.push_back("Yates' correction was applied.");
+    EXPECT_EQ(check.summary(),
+              "Sound: the smallest expected count is 20.5 and no cell expects fewer than 5, so the chi-squared "
+              "approximation can be trusted. Yates' correction was applied.");
+}
