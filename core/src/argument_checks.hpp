@@ -15,11 +15,6 @@ inline void check_confidence(double confidence) {
             "the confidence level must lie between 0 and 1 (for example 0.95), not " + format_number(confidence));
 }
 
-inline void check_alpha(double alpha) {
-    require(alpha > 0 && alpha < 1,
-            "alpha (the significance level) must lie between 0 and 1 (for example 0.05), not " + format_number(alpha));
-}
-
 // A whole number from `low` to `high`; `name` says what it is ("the number of trials").
 inline double whole_number(double value, double low, double high, const std::string& name) {
     require(std::isfinite(value) && value == std::floor(value),

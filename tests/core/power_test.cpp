@@ -42,7 +42,7 @@ TEST(ChiSquaredPower, RejectsATotalOfZero) {
 
 TEST(ChiSquaredPower, RejectsAnAlphaOutsideZeroAndOne) {
     expect_error([] { chi_squared_power(0.3, 100, 1, 5); },
-                 "alpha (the significance level) must lie between 0 and 1 (for example 0.05), not 5");
+                 "alpha (the significance level) must lie between 0 and 1, not 5");
 }
 
 TEST(ChiSquaredSampleSize, Gives88ForWPointThreeAtPowerPointEight) {
