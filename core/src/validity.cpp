@@ -7,6 +7,7 @@
 #include "assoc/error.hpp"
 #include "assoc/expected_counts.hpp"
 #include "assoc/format.hpp"
+#include "assoc/ratio_estimate.hpp"
 
 namespace assoc {
 namespace {
@@ -46,6 +47,7 @@ ValidityCheck check_validity(const CountTable& table) {
     check.whole_counts = table.whole_counts();
     check.set_aside_rows = table.set_aside_rows();
     check.set_aside_columns = table.set_aside_columns();
+    if (needs_zero_cell_correction(table)) check.remarks.push_back(zero_cell_correction_remark());
     return check;
 }
 

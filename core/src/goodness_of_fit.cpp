@@ -1,0 +1,99 @@
+#include "assoc/goodness_of_fit.hpp"
+
+#include <cmath>
+#include <string>
+
+#include "argument_checks.hpp"
+#include "assoc/chi_squared_distribution.hpp"
+#include "assoc/count_table.hpp"
+#include "assoc/error.hpp"
+#include "assoc/format.hpp"
+
+namespace assoc {
+namespace {
+
+std::string values_phrase(std::size_t n) { return std::to_string(n) + (n == 1 ? " value" : " values"); }
+
+// One row or one column of numbers, with the labels a table may have; zeros are kept in place.
+std::vector<double> read_line(const CellGrid& range) {
+    ReadOptions options;
+    options.require_two_by_two = false;
+    const CountTable table = read_count_table(range, options);
+    require(table.body_rows() == 1 || table.body_columns() == 1,
+            "select one row or one column of numbers; this range has " + std::to_string(table.body_rows()) +
+                " rows and " + std::to_string(table.body_columns()) + " columns of numbers");
+    // read_count_table sets all-zero rows aside; a category observed 0 times still counts here.
+    return table.to_body_shape(table.counts()).values();
+}
+
+void check_values(const std::vector<double>& values, const char* what) {
+    for (std::size_t i = 0; i < values.size(); ++i)
+        require(std::isfinite(values[i]) && values[i] >= 0, std::string(what) + " " + std::to_string(i + 1) + " is " +
+                                                                format_number(values[i]) +
+                                                                "; it must be a number of zero or more");
+}
+
+}  // namespace
+
+GoodnessOfFit goodness_of_fit(const std::vector<double>& observed, const std::vector<double>& expected,
+                              double estimated) {
+    require(!observed.empty(), "there are no observed counts; select one row or one column of counts");
+    detail::whole_number(estimated, 0, 1e6, "the number of estimated parameters");
+    check_values(observed, "observed count");
+    const std::vector<double> shares = expected.empty() ? std::vector<double>(observed.size(), 1.0) : expected;
+    require(shares.size() == observed.size(),
+            "the observed range has " + values_phrase(observed.size()) + " but the expected range has " +
+                values_phrase(shares.size()) + "; give one expected count or share per category");
+    check_values(shares, "expected value");
+
+    double observed_total = 0.0, share_total = 0.0;
+    for (std::size_t i = 0; i < observed.size(); ++i) {
+        observed_total += observed[i];
+        share_total += shares[i];
+    }
+    require(observed_total > 0, "the observed counts add up to 0; there is nothing to test");
+    require(share_total > 0, "the expected counts or shares add up to 0; give each category its expected share");
+    require(std::isfinite(observed_total) && std::isfinite(share_total),
+            "the counts add up to more than a spreadsheet number can hold");
+
+    GoodnessOfFit result;
+    result.observed = observed;
+    result.expected.assign(observed.size(), 0.0);
+    for (std::size_t i = 0; i < observed.size(); ++i) {
+        if (shares[i] == 0) {
+            require(observed[i] == 0, "category " + std::to_string(i + 1) + " is expected to have no counts but has " +
+                                          format_count(observed[i]) + "; give it an expected share above 0");
+            continue;  // expected and observed 0: no information, not a category of the test
+        }
+        ++result.categories;
+        const double e = observed_total * (shares[i] / share_total);
+        const double deviation = observed[i] - e;
+        result.expected[i] = e;
+        result.statistic += deviation * deviation / e;
+    }
+
+    const double categories = static_cast<double>(result.categories);
+    require(result.categories >= 2, "the test needs at least 2 categories with an expected count above 0");
+    result.df = categories - 1 - estimated;
+    require(result.df >= 1, std::to_string(result.categories) + " categories leave " + format_count(categories - 1) +
+                                " degrees of freedom, and " + format_count(estimated) +
+                                " estimated parameters leave none; the test needs at least 1");
+    result.p_value = chi_squared_p_value(result.statistic, result.df);
+    return result;
+}
+
+GoodnessOfFit goodness_of_fit(const CellGrid& observed, const CellGrid& expected, double estimated) {
+    const std::vector<double> observed_values = read_line(observed);
+    std::vector<double> expected_values;
+    if (!expected.empty()) {
+        try {
+            expected_values = read_line(expected);
+        } catch (const Error& error) {
+            // The reader's messages speak of counts; say which range they are about.
+            throw Error(std::string("in the expected range: ") + error.what());
+        }
+    }
+    return goodness_of_fit(observed_values, expected_values, estimated);
+}
+
+}  // namespace assoc

@@ -1,0 +1,123 @@
+// Pearson's goodness-of-fit test of one row or column of counts against expected shares.
+#include <gtest/gtest.h>
+
+#include "assoc/goodness_of_fit.hpp"
+#include "small_sample_values.hpp"
+#include "test_support.hpp"
+
+using namespace assoc;
+using assoc::test::expect_error;
+using assoc::test::grid;
+namespace ref = assoc::reference;
+
+TEST(GoodnessOfFit, MatchesMendelsPeasAgainstNineThreeThreeOne) {
+    // Mendel (1866), counts from memory (references.md section 6): X² = 196/417 exactly, df 3;
+    // p from scipy 1.10.1 chisquare (mpmath 0.92542589510361598).
+    const GoodnessOfFit fit = goodness_of_fit({315, 108, 101, 32}, {9, 3, 3, 1});
+    EXPECT_NEAR_REL(fit.statistic, 196.0 / 417.0, 1e-14);
+    EXPECT_NEAR_REL(fit.statistic, ref::mendel_statistic, 1e-14);
+    EXPECT_DOUBLE_EQ(fit.df, 3);
+    EXPECT_NEAR_REL(fit.p_value, ref::mendel_p_value, 1e-12);
+    EXPECT_EQ(fit.categories, 4u);
+}
+
+TEST(GoodnessOfFit, RescalesExpectedSharesToTheObservedTotal) {
+    const GoodnessOfFit fit = goodness_of_fit({315, 108, 101, 32}, {0.5625, 0.1875, 0.1875, 0.0625});
+    EXPECT_NEAR_REL(fit.expected[0], 556 * 9 / 16.0, 1e-15);
+    EXPECT_NEAR_REL(fit.expected[3], 556 / 16.0, 1e-15);
+    EXPECT_NEAR_REL(fit.statistic, 196.0 / 417.0, 1e-14);
+}
+
+TEST(GoodnessOfFit, UsesEqualSharesWhenNoExpectedValuesAreGiven) {
+    // Invented sick-leave days by weekday; scipy 1.10.1 chisquare with its default equal shares.
+    const GoodnessOfFit fit = goodness_of_fit({44, 25, 21, 18, 32});
+    EXPECT_NEAR_REL(fit.statistic, ref::weekday_statistic, 1e-14);
+    EXPECT_DOUBLE_EQ(fit.df, 4);
+    EXPECT_NEAR_REL(fit.p_value, ref::weekday_p_value, 1e-12);
+}
+
+TEST(GoodnessOfFit, LowersTheDegreesOfFreedomForEstimatedParameters) {
+    // scipy 1.10.1 chisquare(..., ddof=1): df 4 − 1 − 1 = 2.
+    const GoodnessOfFit fit = goodness_of_fit({315, 108, 101, 32}, {9, 3, 3, 1}, 1);
+    EXPECT_DOUBLE_EQ(fit.df, 2);
+    EXPECT_NEAR_REL(fit.p_value, ref::mendel_p_value_one_estimated, 1e-12);
+}
+
+TEST(GoodnessOfFit, LeavesOutACategoryExpectedAndObservedZero) {
+    const GoodnessOfFit with_empty = goodness_of_fit({315, 108, 0, 101, 32}, {9, 3, 0, 3, 1});
+    EXPECT_EQ(with_empty.categories, 4u);
+    EXPECT_DOUBLE_EQ(with_empty.df, 3);
+    EXPECT_NEAR_REL(with_empty.statistic, 196.0 / 417.0, 1e-14);
+    EXPECT_EQ(with_empty.expected[2], 0.0);
+}
+
+TEST(GoodnessOfFit, ReadsAColumnWithAHeaderCell) {
+    const GoodnessOfFit fit = goodness_of_fit(grid({{"Peas"}, {315}, {108}, {101}, {32}}), grid({{9}, {3}, {3}, {1}}));
+    EXPECT_NEAR_REL(fit.statistic, 196.0 / 417.0, 1e-14);
+}
+
+TEST(GoodnessOfFit, ReadsARowWithALabelCellAgainstAColumnOfShares) {
+    const GoodnessOfFit fit =
+        goodness_of_fit(grid({{"Observed", 315, 108, 101, 32}}), grid({{"Share"}, {9}, {3}, {3}, {1}}));
+    EXPECT_NEAR_REL(fit.statistic, 196.0 / 417.0, 1e-14);
+}
+
+TEST(GoodnessOfFit, ReadsAColumnOfCountsBesideAColumnOfLabels) {
+    const GoodnessOfFit fit = goodness_of_fit(
+        grid({{"Kind", "Count"}, {"round yellow", 315}, {"round green", 108}, {"wrinkled yellow", 101}, {"wrinkled green", 32}}),
+        grid({{9, 3, 3, 1}}));
+    EXPECT_NEAR_REL(fit.statistic, 196.0 / 417.0, 1e-14);
+    EXPECT_EQ(fit.observed.size(), 4u);
+}
+
+TEST(GoodnessOfFit, KeepsAZeroCountReadFromTheRange) {
+    // read_count_table sets all-zero rows aside; a category observed 0 times must stay a category.
+    const GoodnessOfFit fit = goodness_of_fit(grid({{10}, {0}, {nullptr}, {6}}));
+    EXPECT_EQ(fit.categories, 4u);
+    EXPECT_DOUBLE_EQ(fit.df, 3);
+    EXPECT_DOUBLE_EQ(fit.statistic, (36 + 16 + 16 + 4) / 4.0);  // E = 4 each
+}
+
+TEST(GoodnessOfFit, RejectsRangesOfDifferentLengths) {
+    expect_error([] { goodness_of_fit(grid({{1, 2, 3}}), grid({{1, 1}})); },
+                 "the observed range has 3 values but the expected range has 2 values; give one expected count or "
+                 "share per category");
+}
+
+TEST(GoodnessOfFit, RejectsAnObservedCountWhereNoneIsExpected) {
+    expect_error([] { goodness_of_fit({5, 3, 2}, {1, 0, 1}); },
+                 "category 2 is expected to have no counts but has 3; give it an expected share above 0");
+}
+
+TEST(GoodnessOfFit, RejectsNegativeExpectedValuesNamingTheRange) {
+    expect_error([] { goodness_of_fit(grid({{5, 3, 2}}), grid({{1, -1, 1}})); },
+                 "in the expected range: row 1, column 2 holds the number -1; counts cannot be negative");
+}
+
+TEST(GoodnessOfFit, RejectsNegativeObservedNumbers) {
+    expect_error([] { goodness_of_fit({5, -3, 2}); }, "observed count 2 is -3; it must be a number of zero or more");
+}
+
+TEST(GoodnessOfFit, RejectsARangeOfSeveralRowsAndColumns) {
+    expect_error([] { goodness_of_fit(grid({{1, 2}, {3, 4}})); },
+                 "select one row or one column of numbers; this range has 2 rows and 2 columns of numbers");
+}
+
+TEST(GoodnessOfFit, RejectsObservedCountsThatAddUpToZero) {
+    expect_error([] { goodness_of_fit({0, 0, 0}); }, "the observed counts add up to 0; there is nothing to test");
+}
+
+TEST(GoodnessOfFit, RejectsASingleCategory) {
+    expect_error([] { goodness_of_fit({7}); }, "the test needs at least 2 categories with an expected count above 0");
+}
+
+TEST(GoodnessOfFit, RejectsSoManyEstimatedParametersThatNoDegreeOfFreedomIsLeft) {
+    expect_error([] { goodness_of_fit({5, 3, 2}, {}, 2); },
+                 "3 categories leave 2 degrees of freedom, and 2 estimated parameters leave none; the test needs at "
+                 "least 1");
+}
+
+TEST(GoodnessOfFit, RejectsAFractionalNumberOfEstimatedParameters) {
+    expect_error([] { goodness_of_fit({5, 3, 2, 4}, {}, 0.5); },
+                 "the number of estimated parameters must be a whole number, not 0.5");
+}
