@@ -7,8 +7,9 @@
 Everything lives in one temporary folder: the user profile, the shared extension folder, HOME and
 TMPDIR of the office. Nothing is written outside it, so this works the same as root and as an
 ordinary user, and leaves nothing behind. The office is one headless soffice on a named pipe in its
-own process group; leaving the `with` block (also through an exception) asks it to quit, kills the
-process group if it does not, and removes the folder.
+own process group; leaving the `with` block (also through an exception, or SIGTERM, which becomes
+KeyboardInterrupt) asks it to quit, kills the process group if it does not, and removes the folder.
+A small watchdog process does the same if this process is killed outright.
 
 Needs /usr/bin/python3 with the uno module (Debian's python3-uno).
 """
@@ -18,6 +19,7 @@ import pathlib
 import shutil
 import signal
 import subprocess
+import sys
 import tempfile
 import time
 import uuid
@@ -35,6 +37,21 @@ UNOPKG = shutil.which("unopkg") or "/usr/bin/unopkg"
 START_TIMEOUT_SECONDS = 60
 INSTALL_TIMEOUT_SECONDS = 120
 
+# Run beside the office: if this Python process dies without cleaning up (SIGKILL from a test
+# runner's timeout), it kills the office's process group and removes the folder.
+WATCHDOG = r"""
+import os, shutil, signal, sys, time
+parent, group, folder = int(sys.argv[1]), int(sys.argv[2]), sys.argv[3]
+while os.getppid() == parent and os.path.isdir(folder):
+    time.sleep(0.5)
+if os.path.isdir(folder):
+    try:
+        os.killpg(group, signal.SIGKILL)
+    except ProcessLookupError:
+        pass
+    shutil.rmtree(folder, ignore_errors=True)
+"""
+
 
 def properties(**values):
     """A tuple of PropertyValue, as UNO calls take them."""
@@ -44,6 +61,10 @@ def properties(**values):
         prop.Name, prop.Value = name, value
         result.append(prop)
     return tuple(result)
+
+
+def _interrupt(signum, frame):
+    raise KeyboardInterrupt(f"signal {signum}")
 
 
 def file_url(path):
@@ -56,12 +77,15 @@ class ThrowawayOffice:
         self.log = log or (lambda message: None)
         self.folder = None
         self.process = None
+        self.watchdog = None
         self.context = None
         self.desktop = None
 
     # -- life cycle ---------------------------------------------------------------------------
 
     def __enter__(self):
+        # A test runner's timeout sends SIGTERM: unwind through the normal clean-up.
+        signal.signal(signal.SIGTERM, _interrupt)
         try:
             self._prepare()
             self._install_extension()
@@ -107,6 +131,8 @@ class ThrowawayOffice:
             [SOFFICE, "--headless", "--invisible", "--nologo", "--norestore", "--nodefault", "--nolockcheck",
              *self.office_flags, f"--accept=pipe,name={pipe};urp;StarOffice.ComponentContext"],
             env=self.env, stdout=self.office_log, stderr=subprocess.STDOUT, start_new_session=True)
+        self.watchdog = subprocess.Popen([sys.executable, "-c", WATCHDOG, str(os.getpid()), str(self.process.pid),
+                                          str(self.folder)], start_new_session=True)
         local = uno.getComponentContext()
         resolver = local.ServiceManager.createInstanceWithContext("com.sun.star.bridge.UnoUrlResolver", local)
         deadline = time.monotonic() + START_TIMEOUT_SECONDS
@@ -132,17 +158,20 @@ class ThrowawayOffice:
 
     def close(self):
         """Quits the office (killing its process group if it lingers) and removes the folder."""
+        asked_to_quit = False
         if self.desktop is not None:
             try:
                 self.desktop.terminate()
             except Exception:  # the bridge goes down while terminate() returns
                 pass
+            asked_to_quit = True
             self.desktop = None
         if self.process is not None:
-            try:
-                self.process.wait(timeout=15)
-            except subprocess.TimeoutExpired:
-                pass
+            if asked_to_quit:
+                try:
+                    self.process.wait(timeout=10)
+                except subprocess.TimeoutExpired:
+                    pass
             # The launcher may have exited while soffice.bin lives on in the same group.
             try:
                 os.killpg(self.process.pid, signal.SIGKILL)
@@ -153,6 +182,10 @@ class ThrowawayOffice:
             except subprocess.TimeoutExpired:
                 pass
             self.process = None
+        if self.watchdog is not None:
+            self.watchdog.kill()
+            self.watchdog.wait()
+            self.watchdog = None
         if getattr(self, "office_log", None) is not None:
             self.office_log.close()
             self.office_log = None
