@@ -170,7 +170,8 @@ FUNCTIONS = [
         "statistics and p-values, decision, strength, validity, a conclusion in words and a caution.",
         [TABLE, Argument("alpha", "number", "Optional. The significance level, between 0 and 1; 0.05 when omitted.",
                          default=0.05)],
-        "cells", "a two-column array (labels, values) of 18 rows; enter it as an array formula over 2 columns",
+        "cells", "a two-column array of labels and values, one row per line of the report (18 lines); enter it "
+                 "as an array formula over 2 columns and 18 rows",
         ["When the corner cell of a table with both headers names the variables as \"rows / columns\" "
          "(for example \"Department / Outcome\"), the conclusion uses those names."],
         "=ASSOC.REPORT(A1:D3; 0.05)"),

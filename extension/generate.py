@@ -309,7 +309,8 @@ DOCS_INTRO = """\
 Assoc adds {count} worksheet functions to LibreOffice Calc, all in the Function Wizard's
 **{category}** category. They test whether two classifications of the same people or items (for
 example department and promotion outcome) are associated, with Pearson's chi-squared test of
-independence and its family.
+independence and its family. The sample workbook `samples/promotions.fods` (invented data of a
+fictional company) uses each of them; `scripts/demo.sh` recalculates it and prints the results.
 
 ## Tables
 
