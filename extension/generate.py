@@ -118,8 +118,8 @@ def argument_description(argument):
 
 
 def syntax(function):
-    parts = [a.name if a.kind in ("table",) or (a.kind == "number" and a.default is None) else f"[{a.name}]"
-             for a in function.arguments]
+    required = [a.kind == "table" or (a.kind == "number" and a.default is None) for a in function.arguments]
+    parts = [a.name if needed else f"[{a.name}]" for a, needed in zip(function.arguments, required)]
     return f"{function.name}({'; '.join(parts)})"
 
 

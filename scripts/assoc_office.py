@@ -106,7 +106,6 @@ class ThrowawayOffice:
         for sub in ("profile", "shared", "home", "tmp"):
             (self.folder / sub).mkdir()
         self.env = dict(os.environ, HOME=str(self.folder / "home"), TMPDIR=str(self.folder / "tmp"))
-        self.env.pop("SAL_USE_VCLPLUGIN", None)
         self.office_flags = [
             f"-env:UserInstallation={file_url(self.folder / 'profile')}",
             f"-env:UNO_SHARED_PACKAGES={file_url(self.folder / 'shared')}",

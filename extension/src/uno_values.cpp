@@ -8,13 +8,12 @@
 #include "assoc/format.hpp"
 
 namespace assoc::calc {
-namespace {
 
 using css::uno::Any;
 using css::uno::Sequence;
 using css::uno::TypeClass;
 
-Cell cell_from_any(const Any& value) {
+Cell to_cell(const Any& value) {
     switch (value.getValueTypeClass()) {
     case TypeClass::TypeClass_VOID: return Cell::blank();
     case TypeClass::TypeClass_STRING: {
@@ -29,6 +28,8 @@ Cell cell_from_any(const Any& value) {
     }
     }
 }
+
+namespace {
 
 double finite(double value) {
     require(std::isfinite(value), "the result is not a finite number for this table");
@@ -59,15 +60,13 @@ CellGrid to_cell_grid(const AnyTable& range) {
     for (std::size_t r = 0; r < rows; ++r) {
         const Sequence<Any>& row = range[static_cast<sal_Int32>(r)];
         require(static_cast<std::size_t>(row.getLength()) == columns, "the rows of the range have different lengths");
-        for (std::size_t c = 0; c < columns; ++c) grid.at(r, c) = cell_from_any(row[static_cast<sal_Int32>(c)]);
+        for (std::size_t c = 0; c < columns; ++c) grid.at(r, c) = to_cell(row[static_cast<sal_Int32>(c)]);
     }
     return grid;
 }
 
-Cell to_cell(const Any& argument) { return cell_from_any(argument); }
-
 double read_number(const Any& argument, const char* name, std::optional<double> fallback) {
-    const Cell cell = cell_from_any(argument);
+    const Cell cell = to_cell(argument);
     if (cell.is_blank() && fallback) return *fallback;
     require(!cell.is_blank(), std::string("the argument ") + name + " is missing");
     require(cell.is_number(), std::string("the argument ") + name + " must be a number, not " + cell.describe());

@@ -25,8 +25,9 @@ std::string to_utf8(const OUString& text);
 
 // A range as Calc passes it to an any[][] argument: numbers, texts, and blanks as empty texts.
 CellGrid to_cell_grid(const AnyTable& range);
-// One scalar argument: omitted (void) and empty text are blank.
-Cell to_cell(const css::uno::Any& argument);
+// One value from Calc (a scalar argument or a cell of a range): omitted (void) and empty text
+// are blank, booleans are 1 or 0.
+Cell to_cell(const css::uno::Any& value);
 // A number argument; omitted takes `fallback`, or is an error when there is none.
 double read_number(const css::uno::Any& argument, const char* name, std::optional<double> fallback);
 
