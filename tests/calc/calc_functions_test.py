@@ -5,7 +5,7 @@
 
 Installs the .oxt into a throwaway profile, starts one headless soffice (scripts/assoc_office.py),
 and checks every function against outside references: the published figures in
-/work/shared/references.md (named beside each check) and values computed with scipy 1.10.1,
+../shared/references.md (named beside each check) and values computed with scipy 1.10.1,
 numpy 1.24.2 and statsmodels 0.13.5 by make_reference_values.py (stored in reference_values.json).
 Also: the Function Wizard's texts, errors for bad input with ASSOC.CHECK explaining them, and
 results that survive saving as .ods and loading again. CTest runs it (tests/calc/CMakeLists.txt).

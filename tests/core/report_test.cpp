@@ -79,7 +79,7 @@ TEST(AssociationReport, GivesTheSizesOfTheAgrestiPartyTable) {
 
 TEST(AssociationReport, GivesPearsonAndLikelihoodRatioTestsOfTheAgrestiPartyTable) {
     // Agresti (2007) quotes X² ≈ 30.1 and G² ≈ 30.0; full values from scipy 1.10.1
-    // chi2_contingency (R 4.2.2 chisq.test agrees), see /work/shared/references.md section 3.
+    // chi2_contingency (R 4.2.2 chisq.test agrees), see ../shared/references.md section 3.
     const auto lines = report_of(party_range(""));
     EXPECT_NEAR_REL(number(lines, "Pearson X²"), 30.070149095754672, 1e-12);
     EXPECT_NEAR_REL(number(lines, "p-value, Pearson X²"), 2.9535891832e-07, 1e-9);
