@@ -1,0 +1,163 @@
+#include "assoc/report.hpp"
+
+#include <optional>
+#include <utility>
+
+#include "assoc/chi_squared_distribution.hpp"
+#include "assoc/effect_size.hpp"
+#include "assoc/format.hpp"
+#include "assoc/statistics.hpp"
+#include "assoc/validity.hpp"
+
+namespace assoc {
+namespace {
+
+// Everything the lines are made of, computed once. A new line that needs a new figure adds
+// it here and adds itself to one of the sections below.
+struct Findings {
+    const CountTable& table;
+    const ReportOptions& options;
+    TestResult pearson;
+    TestResult likelihood_ratio;
+    std::optional<TestResult> yates;  // 2×2 tables only
+    double critical_value;
+    bool independence_rejected;
+    ValidityCheck validity;
+};
+
+class Lines {
+public:
+    void number(std::string label, double value) { lines_.push_back({std::move(label), Cell::number(value)}); }
+    void text(std::string label, std::string value) { lines_.push_back({std::move(label), Cell::text(std::move(value))}); }
+    std::vector<ReportLine> take() { return std::move(lines_); }
+
+private:
+    std::vector<ReportLine> lines_;
+};
+
+std::string level(double alpha) { return format_number(100.0 * alpha, 3) + "%"; }
+
+void add_size(const Findings& f, Lines& lines) {
+    lines.number("Total count (n)", f.table.total());
+    lines.number("Rows with counts", static_cast<double>(f.table.rows()));
+    lines.number("Columns with counts", static_cast<double>(f.table.columns()));
+    lines.number("Degrees of freedom", f.pearson.df);
+}
+
+void add_tests(const Findings& f, Lines& lines) {
+    lines.number("Pearson X²", f.pearson.statistic);
+    lines.number("p-value, Pearson X²", f.pearson.p_value);
+    lines.number("Likelihood-ratio G²", f.likelihood_ratio.statistic);
+    lines.number("p-value, G²", f.likelihood_ratio.p_value);
+    const std::string only = "2×2 tables only";
+    if (f.yates) {
+        lines.number("Yates-corrected X²", f.yates->statistic);
+        lines.number("p-value, Yates-corrected X²", f.yates->p_value);
+    } else {
+        lines.text("Yates-corrected X²", only);
+        lines.text("p-value, Yates-corrected X²", only);
+    }
+}
+
+void add_decision(const Findings& f, Lines& lines) {
+    const std::string at = level(f.options.alpha);
+    lines.number("Critical X² at " + at, f.critical_value);
+    lines.text("Decision at " + at, f.independence_rejected
+                                        ? "Independence rejected: Pearson X² is above the critical value (p below " + at + ")"
+                                        : "Independence not rejected: Pearson X² is not above the critical value (p of " +
+                                              at + " or more)");
+}
+
+void add_strength(const Findings& f, Lines& lines) { lines.number("Cramér's V", cramers_v(f.table)); }
+
+void add_validity(const Findings& f, Lines& lines) {
+    lines.number("Smallest expected count", f.validity.smallest_expected);
+    lines.number("Share of cells expecting fewer than 5", f.validity.share_below_five);
+    lines.text("Validity", f.validity.summary());
+}
+
+// "the rows (Sales, Legal, Support)": how the conclusion names a side that has no variable name.
+std::string describe_side(const char* side, bool has_labels, const std::vector<std::string>& labels) {
+    std::string text = std::string("the ") + side;
+    if (!has_labels) return text;
+    std::string names;
+    const std::size_t shown = 4;
+    for (std::size_t i = 0; i < labels.size() && i < shown; ++i) {
+        if (labels[i].empty()) return text;
+        names += (i > 0 ? ", " : "") + labels[i];
+    }
+    if (labels.size() > shown) names += ", …";
+    return text + " (" + names + ")";
+}
+
+void add_conclusion(const Findings& f, Lines& lines) {
+    const VariableNames& names = f.options.variables;
+    const std::string rows = names.rows.empty()
+                                 ? describe_side("rows", f.table.has_row_labels(), f.table.row_labels())
+                                 : names.rows;
+    const std::string columns = names.columns.empty()
+                                    ? describe_side("columns", f.table.has_column_labels(), f.table.column_labels())
+                                    : names.columns;
+    const std::string p = "(p = " + format_p_value(f.pearson.p_value) + ")";
+    std::string text = "At the " + level(f.options.alpha) + " level, ";
+    text += f.independence_rejected ? rows + " and " + columns + " appear associated " + p + "."
+                                    : "the data do not show an association between " + rows + " and " + columns +
+                                          " " + p + ".";
+    if (f.validity.exact_test_recommended)
+        text += " The chi-squared approximation is doubtful for this table (see the validity line), so this "
+                "p-value may be unreliable.";
+    lines.text("Conclusion", text);
+}
+
+void add_caution(const Findings&, Lines& lines) {
+    lines.text("Caution",
+               "An association is not proof of cause, nor of discrimination, and small samples can mislead. "
+               "For decisions about people, follow applicable law and policy and seek qualified advice.");
+}
+
+std::string trimmed(const std::string& text) {
+    const std::size_t first = text.find_first_not_of(" \t");
+    if (first == std::string::npos) return "";
+    return text.substr(first, text.find_last_not_of(" \t") - first + 1);
+}
+
+// "Department" reads as "department" inside a sentence; "HR band" keeps its capitals.
+std::string in_sentence(const std::string& name) {
+    std::string text = trimmed(name);
+    if (text.size() >= 2 && text[0] >= 'A' && text[0] <= 'Z' && text[1] >= 'a' && text[1] <= 'z')
+        text[0] = static_cast<char>(text[0] - 'A' + 'a');
+    return text;
+}
+
+}  // namespace
+
+std::vector<ReportLine> association_report(const CountTable& table, const ReportOptions& options) {
+    const TestResult pearson = independence_test(table, Method::pearson);
+    const double critical = chi_squared_critical_value(pearson.df, options.alpha);
+    const Findings findings{table,
+                            options,
+                            pearson,
+                            independence_test(table, Method::likelihood_ratio),
+                            table.is_two_by_two() ? std::optional<TestResult>(independence_test(table, Method::yates))
+                                                  : std::nullopt,
+                            critical,
+                            pearson.p_value < options.alpha,
+                            check_validity(table)};
+    Lines lines;
+    for (auto section : {add_size, add_tests, add_decision, add_strength, add_validity, add_conclusion, add_caution})
+        section(findings, lines);
+    return lines.take();
+}
+
+VariableNames variable_names_from_corner(const CellGrid& range, const CountTable& table) {
+    VariableNames names;
+    if (range.empty() || !table.has_row_labels() || !table.has_column_labels() || !range.at(0, 0).is_text())
+        return names;
+    const std::string& corner = range.at(0, 0).as_text();
+    const std::size_t separator = corner.find_first_of("/\\");
+    names.rows = in_sentence(corner.substr(0, separator));
+    if (separator != std::string::npos) names.columns = in_sentence(corner.substr(separator + 1));
+    return names;
+}
+
+}  // namespace assoc

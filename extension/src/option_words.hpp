@@ -1,0 +1,53 @@
+#pragma once
+// Option words ("pearson", "g", "yates"...): read case-insensitively, the first word is the
+// default, and an unknown word is an error that lists the accepted ones.
+#include <com/sun/star/uno/Any.hxx>
+#include <initializer_list>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "assoc/error.hpp"
+#include "uno_values.hpp"
+
+namespace assoc::calc {
+
+// "a", "b" and "c" (each quoted), for messages.
+std::string quoted_list(const std::vector<std::string>& words, const char* last_joiner = "and");
+// Lower case (ASCII letters only) without surrounding spaces: how option words are compared.
+std::string normalized_word(const std::string& text);
+
+template <class Value>
+class OptionWords {
+public:
+    OptionWords(std::string what, std::initializer_list<std::pair<const char*, Value>> words)
+        : what_(std::move(what)), words_(words.begin(), words.end()) {}
+
+    // The value of an optional option argument: omitted or empty text gives the first word's value.
+    Value read(const css::uno::Any& argument) const {
+        const Cell cell = to_cell(argument);
+        if (cell.is_blank()) return words_.front().second;
+        require(cell.is_text(), "the " + what_ + " must be one of the words " + accepted() + ", not " + cell.describe());
+        return parse(cell.as_text());
+    }
+
+    Value parse(const std::string& text) const {
+        const std::string word = normalized_word(text);
+        if (word.empty()) return words_.front().second;
+        for (const auto& [known, value] : words_)
+            if (word == known) return value;
+        throw Error("the " + what_ + " \"" + text + "\" is unknown; the accepted words are " + accepted());
+    }
+
+private:
+    std::string accepted() const {
+        std::vector<std::string> words;
+        for (const auto& entry : words_) words.emplace_back(entry.first);
+        return quoted_list(words);
+    }
+
+    std::string what_;
+    std::vector<std::pair<const char*, Value>> words_;
+};
+
+}  // namespace assoc::calc

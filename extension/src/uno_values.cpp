@@ -1,0 +1,114 @@
+#include "uno_values.hpp"
+
+#include <cmath>
+#include <rtl/string.hxx>
+#include <rtl/ustring.hxx>
+
+#include "assoc/count_table.hpp"
+#include "assoc/format.hpp"
+
+namespace assoc::calc {
+
+using css::uno::Any;
+using css::uno::Sequence;
+using css::uno::TypeClass;
+
+Cell to_cell(const Any& value) {
+    switch (value.getValueTypeClass()) {
+    case TypeClass::TypeClass_VOID: return Cell::blank();
+    case TypeClass::TypeClass_STRING: {
+        const std::string text = to_utf8(value.get<OUString>());
+        return text.empty() ? Cell::blank() : Cell::text(text);
+    }
+    case TypeClass::TypeClass_BOOLEAN: return Cell::number(value.get<bool>() ? 1.0 : 0.0);
+    default: {
+        double number = 0.0;
+        if (value >>= number) return Cell::number(number);  // double, and the integer types Calc never sends
+        throw Error("a value of type " + to_utf8(value.getValueTypeName()) + " cannot be read as a cell");
+    }
+    }
+}
+
+namespace {
+
+double finite(double value) {
+    require(std::isfinite(value), "the result is not a finite number for this table");
+    return value;
+}
+
+}  // namespace
+
+OUString to_ou_string(const std::string& utf8) {
+    return OUString(utf8.data(), static_cast<sal_Int32>(utf8.size()), RTL_TEXTENCODING_UTF8);
+}
+
+std::string to_utf8(const OUString& text) {
+    const rtl::OString bytes = rtl::OUStringToOString(text, RTL_TEXTENCODING_UTF8);
+    return std::string(bytes.getStr(), static_cast<std::size_t>(bytes.getLength()));
+}
+
+CellGrid to_cell_grid(const AnyTable& range) {
+    const std::size_t rows = static_cast<std::size_t>(range.getLength());
+    const std::size_t columns = rows == 0 ? 0 : static_cast<std::size_t>(range[0].getLength());
+    // The reader has its own cap on the body; this one keeps a huge range (a whole column) from
+    // being copied before that check can run. A header row and column are allowed on top.
+    const std::size_t cap = ReadOptions{}.max_body_cells;
+    require(columns == 0 || rows <= (cap + rows + columns) / columns,
+            "the range has " + format_count(static_cast<double>(rows) * static_cast<double>(columns)) +
+                " cells; Assoc reads tables of at most " + format_count(static_cast<double>(cap)) + " counts");
+    CellGrid grid(rows, columns);
+    for (std::size_t r = 0; r < rows; ++r) {
+        const Sequence<Any>& row = range[static_cast<sal_Int32>(r)];
+        require(static_cast<std::size_t>(row.getLength()) == columns, "the rows of the range have different lengths");
+        for (std::size_t c = 0; c < columns; ++c) grid.at(r, c) = to_cell(row[static_cast<sal_Int32>(c)]);
+    }
+    return grid;
+}
+
+double read_number(const Any& argument, const char* name, std::optional<double> fallback) {
+    const Cell cell = to_cell(argument);
+    if (cell.is_blank() && fallback) return *fallback;
+    require(!cell.is_blank(), std::string("the argument ") + name + " is missing");
+    require(cell.is_number(), std::string("the argument ") + name + " must be a number, not " + cell.describe());
+    return cell.as_number();
+}
+
+Any to_any(double value) { return Any(finite(value)); }
+
+Any to_any(const std::vector<double>& row) {
+    Sequence<Sequence<Any>> result(1);
+    result.getArray()[0].realloc(static_cast<sal_Int32>(row.size()));
+    Any* cells = result.getArray()[0].getArray();
+    for (std::size_t c = 0; c < row.size(); ++c) cells[c] <<= finite(row[c]);
+    return Any(result);
+}
+
+Any to_any(const Matrix& values) {
+    Sequence<Sequence<double>> result(static_cast<sal_Int32>(values.rows()));
+    Sequence<double>* rows = result.getArray();
+    for (std::size_t r = 0; r < values.rows(); ++r) {
+        rows[r].realloc(static_cast<sal_Int32>(values.columns()));
+        double* cells = rows[r].getArray();
+        for (std::size_t c = 0; c < values.columns(); ++c) cells[c] = finite(values(r, c));
+    }
+    return Any(result);
+}
+
+Any to_any(const std::string& text) { return Any(to_ou_string(text)); }
+
+Any to_any(const CellGrid& cells) {
+    Sequence<Sequence<Any>> result(static_cast<sal_Int32>(cells.rows()));
+    Sequence<Any>* rows = result.getArray();
+    for (std::size_t r = 0; r < cells.rows(); ++r) {
+        rows[r].realloc(static_cast<sal_Int32>(cells.columns()));
+        Any* out = rows[r].getArray();
+        for (std::size_t c = 0; c < cells.columns(); ++c) {
+            const Cell& cell = cells.at(r, c);
+            if (cell.is_number()) out[c] <<= finite(cell.as_number());
+            else out[c] <<= to_ou_string(cell.as_text());  // a blank is an empty text
+        }
+    }
+    return Any(result);
+}
+
+}  // namespace assoc::calc

@@ -1,0 +1,58 @@
+#pragma once
+// The border between UNO and the core: Calc's values in, core types out, and back; and the one
+// place where exceptions are mapped, so that only UNO exceptions leave the add-in.
+#include <com/sun/star/lang/IllegalArgumentException.hpp>
+#include <com/sun/star/uno/Any.hxx>
+#include <com/sun/star/uno/RuntimeException.hpp>
+#include <com/sun/star/uno/Sequence.hxx>
+#include <exception>
+#include <rtl/ustring.hxx>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "assoc/cell.hpp"
+#include "assoc/error.hpp"
+#include "assoc/matrix.hpp"
+
+namespace assoc::calc {
+
+using ::rtl::OUString;
+using AnyTable = css::uno::Sequence<css::uno::Sequence<css::uno::Any>>;
+
+OUString to_ou_string(const std::string& utf8);
+std::string to_utf8(const OUString& text);
+
+// A range as Calc passes it to an any[][] argument: numbers, texts, and blanks as empty texts.
+CellGrid to_cell_grid(const AnyTable& range);
+// One value from Calc (a scalar argument or a cell of a range): omitted (void) and empty text
+// are blank, booleans are 1 or 0.
+Cell to_cell(const css::uno::Any& value);
+// A number argument; omitted takes `fallback`, or is an error when there is none.
+double read_number(const css::uno::Any& argument, const char* name, std::optional<double> fallback);
+
+// Results. Each refuses a non-finite number with an assoc::Error rather than pass it on silently.
+css::uno::Any to_any(double value);
+css::uno::Any to_any(const std::vector<double>& row);
+css::uno::Any to_any(const Matrix& values);
+css::uno::Any to_any(const std::string& text);
+css::uno::Any to_any(const CellGrid& cells);
+
+// Runs one worksheet function. assoc::Error (a problem with the input) becomes
+// IllegalArgumentException, shown as Err:502; anything else becomes RuntimeException.
+template <class Compute>
+css::uno::Any guarded(const char* function, Compute compute) {
+    try {
+        return compute();
+    } catch (const Error& error) {
+        throw css::lang::IllegalArgumentException(to_ou_string(std::string(function) + ": " + error.what()),
+                                                  css::uno::Reference<css::uno::XInterface>(), 0);
+    } catch (const std::exception& error) {
+        throw css::uno::RuntimeException(
+            to_ou_string(std::string(function) + ": unexpected failure: " + error.what()));
+    } catch (...) {
+        throw css::uno::RuntimeException(to_ou_string(std::string(function) + ": unexpected failure"));
+    }
+}
+
+}  // namespace assoc::calc

@@ -1,0 +1,27 @@
+#!/usr/bin/env bash
+# The main job: installs what is missing, builds the extension, opens the sample workbook
+# (samples/promotions.fods, invented data of a fictional company) in a throwaway headless
+# LibreOffice with the extension installed, recalculates it, prints the key results read from
+# the cells, and writes a PDF of the sheet.
+#
+#   scripts/demo.sh [PDF path]      (default: build/promotions.pdf)
+set -euo pipefail
+pdf=""
+[ $# -ge 1 ] && pdf="$(realpath -m "$1")"
+cd "$(dirname "$0")/.."
+pdf="${pdf:-$(pwd)/build/promotions.pdf}"
+
+scripts/install-deps.sh
+cmake -S . -B build
+cmake --build build -j2
+oxt="$(pwd)/build/extension/assoc.oxt"
+
+/usr/bin/python3 scripts/demo.py --oxt "$oxt" --workbook samples/promotions.fods --pdf "$pdf"
+
+cat <<EOT
+
+To use Assoc in your own LibreOffice (close LibreOffice first):
+  unopkg add "$oxt"
+or in LibreOffice: Tools > Extension Manager > Add..., choose that file, and restart LibreOffice.
+The functions are in the Function Wizard's Statistical category (ASSOC.*); see docs/functions.md.
+EOT
