@@ -63,19 +63,21 @@ SelectionImpact selection_impact(const std::vector<double>& selected, const std:
 }
 
 SelectionImpact selection_impact(const CellGrid& selected, const CellGrid& considered, double threshold) {
-    const auto numbers = [](const CellGrid& grid, const std::string& what) {
+    // `what` names the range ("selected counts"), `each` one of its cells ("selected count").
+    const auto numbers = [](const CellGrid& grid, const std::string& what, const std::string& each) {
         const detail::CellLine line(grid, what);
         std::vector<double> values;
         for (std::size_t i = 0; i < line.size(); ++i) {
             const Cell& cell = line[i];
-            require(cell.is_number(), "the " + what + " for " + group_name(i) + " is " +
+            require(cell.is_number(), "the " + each + " of " + group_name(i) + " is " +
                                           (cell.is_blank() ? std::string("blank") : cell.describe()) +
                                           "; give a number of 0 or more");
             values.push_back(cell.as_number());
         }
         return values;
     };
-    return selection_impact(numbers(selected, "selected counts"), numbers(considered, "considered counts"), threshold);
+    return selection_impact(numbers(selected, "selected counts", "selected count"),
+                            numbers(considered, "considered counts", "considered count"), threshold);
 }
 
 }  // namespace assoc
