@@ -17,15 +17,13 @@ std::string count_text(std::size_t n) { return format_count(static_cast<double>(
 
 std::string plural(std::size_t n, const std::string& word) { return count_text(n) + " " + word + (n == 1 ? "" : "s"); }
 
-// The weight of record `i`, checked: a finite number of 0 or more.
+// The weight of record `i`, checked: a finite number of 0 or more. The message is only built
+// on failure, since this runs once per record.
 double checked_weight(const Cell& cell, std::size_t i, std::size_t length) {
+    if (cell.is_number() && std::isfinite(cell.as_number()) && cell.as_number() >= 0) return cell.as_number();
     const std::string where = "weight " + count_text(i + 1) + " of " + count_text(length);
-    require(!cell.is_blank(), where + " is blank; give every record a weight (0 leaves it out)");
-    require(cell.is_number(), where + " holds " + cell.describe() + "; weights must be numbers of 0 or more");
-    const double weight = cell.as_number();
-    require(std::isfinite(weight) && weight >= 0,
-            where + " holds " + cell.describe() + "; weights must be numbers of 0 or more");
-    return weight;
+    if (cell.is_blank()) throw Error(where + " is blank; give every record a weight (0 leaves it out)");
+    throw Error(where + " holds " + cell.describe() + "; weights must be numbers of 0 or more");
 }
 
 }  // namespace

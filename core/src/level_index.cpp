@@ -1,7 +1,6 @@
 #include "level_index.hpp"
 
 #include <algorithm>
-#include <cmath>
 #include <numeric>
 
 #include "ascii_case.hpp"
@@ -66,9 +65,8 @@ std::vector<std::string> LevelIndex::lookalike_remarks(const std::string& what) 
     return remarks;
 }
 
-void require_usable_label(const Cell& cell, std::size_t position, std::size_t length, const std::string& what) {
-    require(!cell.is_number() || std::isfinite(cell.as_number()),
-            "label " + format_count(static_cast<double>(position)) + " of " + format_count(static_cast<double>(length)) +
+void throw_unusable_label(const Cell& cell, std::size_t position, std::size_t length, const std::string& what) {
+    throw Error("label " + format_count(static_cast<double>(position)) + " of " + format_count(static_cast<double>(length)) +
                 " in the " + what + " holds " + cell.describe() + "; labels must be texts or ordinary numbers");
 }
 

@@ -2,6 +2,7 @@
 // Interning of labels: each distinct label gets a small index in one hash lookup, so that
 // counting a million records costs the same whether they hold 4 levels or 4,000.
 // Texts are keyed by a view into the cell that holds them: no string is copied per record.
+#include <cmath>
 #include <cstddef>
 #include <cstdint>
 #include <string>
@@ -52,8 +53,14 @@ private:
     std::vector<const Cell*> levels_;  // in order of first appearance
 };
 
+// Throws the Error for a label that is an infinite or not-a-number value.
+[[noreturn]] void throw_unusable_label(const Cell& cell, std::size_t position, std::size_t length,
+                                       const std::string& what);
+
 // Throws Error unless `cell` can be a label: a blank, a text or a finite number.
-// `position` is 1-based, `what` names the range ("row labels").
-void require_usable_label(const Cell& cell, std::size_t position, std::size_t length, const std::string& what);
+// `position` is 1-based, `what` names the range ("row labels"). Inline: it runs once per record.
+inline void require_usable_label(const Cell& cell, std::size_t position, std::size_t length, const char* what) {
+    if (cell.is_number() && !std::isfinite(cell.as_number())) throw_unusable_label(cell, position, length, what);
+}
 
 }  // namespace assoc::detail

@@ -46,7 +46,8 @@ PairedResult paired_test(const Matrix& square, std::optional<PairedMethod> metho
                                        std::to_string(square.columns()) + " columns of counts");
     require(k >= 2, "a paired table needs at least 2 categories");
     for (double value : square.values())
-        require(std::isfinite(value) && value >= 0, "counts must be numbers of 0 or more, not " + format_number(value));
+        if (!(std::isfinite(value) && value >= 0))
+            throw Error("counts must be numbers of 0 or more, not " + format_number(value));
 
     if (k > 2 && method && *method != PairedMethod::uncorrected)
         throw Error(std::string("the ") + (*method == PairedMethod::exact ? "exact test" : "continuity correction") +

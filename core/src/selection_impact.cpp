@@ -38,12 +38,14 @@ SelectionImpact selection_impact(const std::vector<double>& selected, const std:
     result.threshold = threshold;
     for (std::size_t i = 0; i < selected.size(); ++i) {
         const double chosen = selected[i], pool = considered[i];
-        require(std::isfinite(chosen) && chosen >= 0 && std::isfinite(pool) && pool >= 0,
-                group_name(i) + " has " + format_number(chosen, 15) + " selected of " + format_number(pool, 15) +
-                    " considered; both must be numbers of 0 or more");
-        require(pool > 0, group_name(i) + " has 0 people considered, so it has no selection rate; leave it out");
-        require(chosen <= pool, group_name(i) + " has more selected (" + format_number(chosen, 15) +
-                                    ") than considered (" + format_number(pool, 15) + ")");
+        // Messages are built only on failure: there may be many groups.
+        if (!(std::isfinite(chosen) && chosen >= 0 && std::isfinite(pool) && pool >= 0))
+            throw Error(group_name(i) + " has " + format_number(chosen, 15) + " selected of " +
+                        format_number(pool, 15) + " considered; both must be numbers of 0 or more");
+        if (pool == 0) throw Error(group_name(i) + " has 0 people considered, so it has no selection rate; leave it out");
+        if (chosen > pool)
+            throw Error(group_name(i) + " has more selected (" + format_number(chosen, 15) + ") than considered (" +
+                        format_number(pool, 15) + ")");
         GroupImpact group;
         group.selection_rate = chosen / pool;
         if (group.selection_rate > result.highest_rate) {
@@ -69,9 +71,9 @@ SelectionImpact selection_impact(const CellGrid& selected, const CellGrid& consi
         std::vector<double> values;
         for (std::size_t i = 0; i < line.size(); ++i) {
             const Cell& cell = line[i];
-            require(cell.is_number(), "the " + each + " of " + group_name(i) + " is " +
-                                          (cell.is_blank() ? std::string("blank") : cell.describe()) +
-                                          "; give a number of 0 or more");
+            if (!cell.is_number())
+                throw Error("the " + each + " of " + group_name(i) + " is " +
+                            (cell.is_blank() ? std::string("blank") : cell.describe()) + "; give a number of 0 or more");
             values.push_back(cell.as_number());
         }
         return values;

@@ -35,7 +35,7 @@ TrendResult trend_test(const Matrix& table, const std::vector<double>& scores) {
     for (std::size_t i = 0; i < k; ++i) {
         require(std::isfinite(first(i)) && first(i) >= 0 && std::isfinite(second(i)) && second(i) >= 0,
                 "counts must be numbers of 0 or more");
-        require(std::isfinite(score(i)), "scores must be ordinary numbers, not " + format_number(score(i)));
+        if (!std::isfinite(score(i))) throw Error("scores must be ordinary numbers, not " + format_number(score(i)));
         const double total = first(i) + second(i);
         n += total;
         events += first(i);
@@ -72,8 +72,8 @@ TrendResult trend_test(const CellGrid& table, const CellGrid& scores) {
         const detail::CellLine line(scores, "scores");
         for (std::size_t i = 0; i < line.size(); ++i) {
             const Cell& cell = line[i];
-            require(cell.is_number() && std::isfinite(cell.as_number()),
-                    "score " + std::to_string(i + 1) + " holds " + cell.describe() + "; scores must be numbers");
+            if (!(cell.is_number() && std::isfinite(cell.as_number())))
+                throw Error("score " + std::to_string(i + 1) + " holds " + cell.describe() + "; scores must be numbers");
             score_values.push_back(cell.as_number());
         }
     }
