@@ -5,7 +5,7 @@
 
 #include "assoc/chi_squared_distribution.hpp"
 #include "assoc/error.hpp"
-#include "assoc/mantel_haenszel.hpp"
+#include "common_odds_ratio.hpp"
 
 namespace assoc {
 namespace {
@@ -34,13 +34,13 @@ double fitted_a(const Stratum& t, double psi) {
 HomogeneityResult breslow_day_test(const Strata& strata) {
     HomogeneityResult result;
     result.remarks = detail::uninformative_strata_remarks(strata);
-    for (const Stratum& t : strata.strata) result.strata_used += t.informative() ? 1 : 0;
+    for (const Stratum& t : strata.tables) result.strata_used += t.informative() ? 1 : 0;
     require(result.strata_used >= 2,
             "the test of equal odds ratios needs at least 2 strata with counts in both rows and both columns");
     const double psi = detail::common_odds_ratio(strata);
 
     double sum_squares = 0.0, sum_a = 0.0, sum_fitted = 0.0, sum_variance = 0.0;
-    for (const Stratum& t : strata.strata) {
+    for (const Stratum& t : strata.tables) {
         if (!t.informative()) continue;
         const double fitted = fitted_a(t, psi);
         const double r1 = t.a + t.b, r2 = t.c + t.d, c1 = t.a + t.c;

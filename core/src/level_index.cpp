@@ -48,7 +48,9 @@ std::vector<std::string> LevelIndex::lookalike_remarks(const std::string& what) 
     }
     if (case_pairs > 0) {
         std::string remark = "The " + what + " " + first_pair + " differ only in capitals and are counted apart";
-        if (case_pairs > 1) remark += " (" + format_count(static_cast<double>(case_pairs - 1)) + " more such labels)";
+        if (case_pairs > 1)
+            remark += "; so are " + format_count(static_cast<double>(case_pairs - 1)) +
+                      (case_pairs == 2 ? " other label" : " other labels") + " that differ from another only in capitals";
         remarks.push_back(remark + ".");
     }
 

@@ -9,6 +9,7 @@
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
 #include "boost_policy.hpp"
+#include "common_odds_ratio.hpp"
 
 namespace assoc {
 
@@ -22,7 +23,7 @@ namespace detail {
 
 double common_odds_ratio(const Strata& strata) {
     double ad = 0.0, bc = 0.0;  // Σ a d / n and Σ b c / n
-    for (const Stratum& s : strata.strata) {
+    for (const Stratum& s : strata.tables) {
         if (!s.informative()) continue;
         ad += s.a * s.d / s.total();
         bc += s.b * s.c / s.total();
@@ -35,8 +36,8 @@ double common_odds_ratio(const Strata& strata) {
 
 std::vector<std::string> uninformative_strata_remarks(const Strata& strata) {
     std::vector<std::string> remarks;
-    for (std::size_t k = 0; k < strata.strata.size(); ++k)
-        if (!strata.strata[k].informative())
+    for (std::size_t k = 0; k < strata.tables.size(); ++k)
+        if (!strata.tables[k].informative())
             remarks.push_back("The " + stratum_name(strata, k) +
                               " has an empty row or column and adds nothing to the test.");
     return remarks;
@@ -55,7 +56,7 @@ MantelHaenszelResult mantel_haenszel_test(const Strata& strata, Continuity conti
     // Sums for the Robins–Breslow–Greenland variance: R = Σ ad/n, S = Σ bc/n and the P·R, P·S + Q·R,
     // Q·S terms with P = (a + d)/n, Q = (b + c)/n.
     double r = 0.0, s = 0.0, pr = 0.0, ps_qr = 0.0, qs = 0.0;
-    for (const Stratum& t : strata.strata) {
+    for (const Stratum& t : strata.tables) {
         if (!t.informative()) continue;
         ++result.strata_used;
         const double n = t.total();

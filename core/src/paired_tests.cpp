@@ -23,6 +23,11 @@ std::optional<PairedMethod> parse_paired_method(const std::string& word) {
 
 namespace {
 
+std::string not_square(std::size_t rows, std::size_t columns) {
+    return "a paired table must be square, the same categories as rows and as columns; this one has " +
+           std::to_string(rows) + " rows and " + std::to_string(columns) + " columns of counts";
+}
+
 // Two-sided: twice the smaller tail of Binomial(b + c, ½), at most 1.
 PairedResult exact_mcnemar(double b, double c) {
     require(b == std::floor(b) && c == std::floor(c),
@@ -41,9 +46,7 @@ PairedResult exact_mcnemar(double b, double c) {
 
 PairedResult paired_test(const Matrix& square, std::optional<PairedMethod> method) {
     const std::size_t k = square.rows();
-    require(k == square.columns(), "a paired table must be square, the same categories as rows and as columns; "
-                                   "this one has " + std::to_string(square.rows()) + " rows and " +
-                                       std::to_string(square.columns()) + " columns of counts");
+    require(k == square.columns(), not_square(square.rows(), square.columns()));
     require(k >= 2, "a paired table needs at least 2 categories");
     for (double value : square.values())
         if (!(std::isfinite(value) && value >= 0))
@@ -81,10 +84,7 @@ PairedResult paired_test(const CellGrid& table, std::optional<PairedMethod> meth
     ReadOptions options;
     options.require_two_by_two = false;  // a category nobody chose is still a row and a column
     const CountTable read = read_count_table(table, options);
-    require(read.body_rows() == read.body_columns(),
-            "a paired table must be square, the same categories as rows and as columns; this one has " +
-                std::to_string(read.body_rows()) + " rows and " + std::to_string(read.body_columns()) +
-                " columns of counts");
+    require(read.body_rows() == read.body_columns(), not_square(read.body_rows(), read.body_columns()));
     return paired_test(read.to_body_shape(read.counts()), method);
 }
 

@@ -23,7 +23,7 @@ Strata read_strata(const CellGrid& range) {
     if (body.columns() == 4) {
         result.layout = StrataLayout::one_row_each;
         for (std::size_t k = 0; k < rows; ++k)
-            result.strata.push_back({body(k, 0), body(k, 1), body(k, 2), body(k, 3), row_labels[k]});
+            result.tables.push_back({body(k, 0), body(k, 1), body(k, 2), body(k, 3), row_labels[k]});
     } else if (body.columns() == 2) {
         require(rows % 2 == 0, "stacked 2×2 tables need an even number of rows of counts; this range has " +
                                    std::to_string(rows));
@@ -31,20 +31,20 @@ Strata read_strata(const CellGrid& range) {
         for (std::size_t k = 0; k < rows / 2; ++k) {
             // A block is named by its first row's label when the second row has none.
             const std::string label = row_labels[2 * k + 1].empty() ? row_labels[2 * k] : std::string();
-            result.strata.push_back({body(2 * k, 0), body(2 * k, 1), body(2 * k + 1, 0), body(2 * k + 1, 1), label});
+            result.tables.push_back({body(2 * k, 0), body(2 * k, 1), body(2 * k + 1, 0), body(2 * k + 1, 1), label});
         }
     } else {
         throw Error("strata must be given as one row of 4 counts (a, b, c, d) per stratum, or as 2×2 tables "
                     "stacked in 2 columns; this range has " +
                     std::to_string(body.columns()) + " columns of counts");
     }
-    require(result.strata.size() >= 2, "a stratified test needs at least 2 strata; this range holds " +
-                                           std::to_string(result.strata.size()));
+    require(result.tables.size() >= 2, "a stratified test needs at least 2 strata; this range holds " +
+                                           std::to_string(result.tables.size()));
     return result;
 }
 
 std::string stratum_name(const Strata& strata, std::size_t index) {
-    const std::string& label = strata.strata[index].label;
+    const std::string& label = strata.tables[index].label;
     return "stratum " + std::to_string(index + 1) + (label.empty() ? "" : " (" + label + ")");
 }
 

@@ -171,3 +171,11 @@ TEST(CountsFromRecords, RejectsATableLargerThanTheCellLimit) {
                  "the labels give 3 row levels and 3 column levels, a table of 9 cells; Assoc builds tables of at "
                  "most 8 cells");
 }
+
+TEST(CountsFromRecords, CountsFurtherLabelsThatDifferOnlyInCapitalsWithoutNamingThem) {
+    const RecordCounts counts = counts_from_records(grid({{"Sales", "sales", "SALES", "Legal", "legal"}}),
+                                                    grid({{1, 2, 1, 2, 1}}));
+    ASSERT_EQ(counts.remarks.size(), 1u);
+    EXPECT_EQ(counts.remarks[0], "The row labels \"Sales\" and \"sales\" differ only in capitals and are counted "
+                                 "apart; so are 2 other labels that differ from another only in capitals.");
+}

@@ -10,18 +10,18 @@ using assoc::test::grid;
 
 TEST(ReadStrata, ReadsOneRowOfFourCountsPerStratumWithLabels) {
     const Strata strata = read_strata(grid({{"", "a", "b", "c", "d"}, {"North", 1, 2, 3, 4}, {"South", 5, 6, 7, 8}}));
-    ASSERT_EQ(strata.strata.size(), 2u);
+    ASSERT_EQ(strata.tables.size(), 2u);
     EXPECT_EQ(strata.layout, StrataLayout::one_row_each);
-    EXPECT_EQ(strata.strata[1].label, "South");
-    EXPECT_EQ(strata.strata[1].a, 5);
-    EXPECT_EQ(strata.strata[1].d, 8);
+    EXPECT_EQ(strata.tables[1].label, "South");
+    EXPECT_EQ(strata.tables[1].a, 5);
+    EXPECT_EQ(strata.tables[1].d, 8);
 }
 
 TEST(ReadStrata, ReadsTwoByTwoTablesStackedInTwoColumns) {
     const Strata strata = read_strata(grid({{1, 2}, {3, 4}, {5, 6}, {7, 8}}));
-    ASSERT_EQ(strata.strata.size(), 2u);
+    ASSERT_EQ(strata.tables.size(), 2u);
     EXPECT_EQ(strata.layout, StrataLayout::stacked_blocks);
-    const Stratum& second = strata.strata[1];
+    const Stratum& second = strata.tables[1];
     EXPECT_EQ(second.a, 5);
     EXPECT_EQ(second.b, 6);
     EXPECT_EQ(second.c, 7);
@@ -30,15 +30,15 @@ TEST(ReadStrata, ReadsTwoByTwoTablesStackedInTwoColumns) {
 
 TEST(ReadStrata, NamesAStackedTableByTheLabelOfItsFirstRow) {
     const Strata strata = read_strata(grid({{"North", 1, 2}, {nullptr, 3, 4}, {"South", 5, 6}, {nullptr, 7, 8}}));
-    EXPECT_EQ(strata.strata[1].label, "South");
+    EXPECT_EQ(strata.tables[1].label, "South");
     EXPECT_EQ(stratum_name(strata, 1), "stratum 2 (South)");
 }
 
 TEST(ReadStrata, KeepsAStratumOfZerosInItsPlace) {
     const Strata strata = read_strata(grid({{1, 2, 3, 4}, {0, 0, 0, 0}, {5, 6, 7, 8}}));
-    ASSERT_EQ(strata.strata.size(), 3u);
-    EXPECT_EQ(strata.strata[2].a, 5);
-    EXPECT_FALSE(strata.strata[1].informative());
+    ASSERT_EQ(strata.tables.size(), 3u);
+    EXPECT_EQ(strata.tables[2].a, 5);
+    EXPECT_FALSE(strata.tables[1].informative());
 }
 
 TEST(ReadStrata, RejectsThreeColumnsOfCounts) {

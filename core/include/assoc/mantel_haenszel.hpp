@@ -39,12 +39,4 @@ MantelHaenszelResult mantel_haenszel_test(const Strata& strata, Continuity conti
 MantelHaenszelResult mantel_haenszel_test(const CellGrid& strata, Continuity continuity = Continuity::corrected,
                                           double confidence = 0.95);
 
-namespace detail {
-// The Mantel–Haenszel common odds ratio, shared with the Breslow–Day test; errors when it is
-// 0 or infinite.
-double common_odds_ratio(const Strata& strata);
-// Remarks naming the strata that add nothing.
-std::vector<std::string> uninformative_strata_remarks(const Strata& strata);
-}  // namespace detail
-
 }  // namespace assoc

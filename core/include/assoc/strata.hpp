@@ -26,7 +26,7 @@ enum class StrataLayout {
 };
 
 struct Strata {
-    std::vector<Stratum> strata;
+    std::vector<Stratum> tables;  // one 2×2 table per stratum, in the order of the range
     StrataLayout layout = StrataLayout::one_row_each;
     std::size_t blank_cells = 0;  // blank count cells, read as 0
 };
