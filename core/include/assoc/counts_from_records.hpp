@@ -1,0 +1,49 @@
+#pragma once
+// A count table built from raw records: one pair of labels per record (e.g. each employee's
+// department and whether they were promoted), optionally weighted.
+#include <cstddef>
+#include <string>
+#include <vector>
+
+#include "assoc/cell.hpp"
+#include "assoc/count_table.hpp"
+#include "assoc/levels.hpp"
+#include "assoc/matrix.hpp"
+
+namespace assoc {
+
+struct RecordCounts {
+    std::vector<Cell> row_levels;     // the label of each row of counts (a number or a text)
+    std::vector<Cell> column_levels;  // the label of each column of counts
+    Matrix counts;                    // row_levels.size() × column_levels.size(): records, or sums of weights
+    double total = 0.0;               // sum of all counts
+
+    std::size_t records = 0;        // records in the ranges (cells in each)
+    std::size_t skipped_blank = 0;  // records left out because a label is blank
+    std::size_t zero_weight = 0;    // counted records whose weight is 0
+    bool weighted = false;          // whether weights were given
+    bool whole_counts = true;       // whether every count is a whole number
+    // Sentences about labels that look alike but are counted apart ("Sales" and "sales").
+    std::vector<std::string> remarks;
+
+    // What was counted and what was left out, in plain sentences.
+    std::string feedback() const;
+
+    // The counts as a CountTable labelled with the levels (numbers written as text), ready for
+    // the tests of association; `options` as for read_count_table.
+    CountTable table(const ReadOptions& options = {}) const;
+};
+
+// Counts records into a table. `row_labels` and `column_labels` are equally long single rows or
+// columns (they need not have the same orientation); `weights`, when not empty, is a single row
+// or column of the same length with numbers of 0 or more. A record whose row or column label is
+// blank is skipped (and counted in skipped_blank); its weight is not read. Levels are identified
+// as described in levels.hpp and listed in `order`. Throws Error when the table would have more
+// than `max_cells` cells.
+//
+// Cost: one hash lookup per label and record, independent of the number of levels.
+RecordCounts counts_from_records(const CellGrid& row_labels, const CellGrid& column_labels,
+                                 const CellGrid& weights = CellGrid(), LevelOrder order = LevelOrder::sorted,
+                                 std::size_t max_cells = 1'000'000);
+
+}  // namespace assoc

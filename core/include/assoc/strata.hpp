@@ -1,0 +1,43 @@
+#pragma once
+// K 2×2 tables of the same two questions, one per stratum (e.g. promoted or not by sex, one
+// table per department), for the Mantel–Haenszel and Breslow–Day tests.
+#include <cstddef>
+#include <string>
+#include <vector>
+
+#include "assoc/cell.hpp"
+
+namespace assoc {
+
+// One stratum's table:   column 1  column 2
+//                row 1      a         b
+//                row 2      c         d
+struct Stratum {
+    double a = 0.0, b = 0.0, c = 0.0, d = 0.0;
+    std::string label;  // from the label column, or "" when there is none
+    double total() const { return a + b + c + d; }
+    // Both rows and both columns hold counts; otherwise the stratum says nothing about the odds ratio.
+    bool informative() const { return a + b > 0 && c + d > 0 && a + c > 0 && b + d > 0; }
+};
+
+enum class StrataLayout {
+    one_row_each,    // K rows × 4 columns: a, b, c, d per stratum
+    stacked_blocks,  // 2K rows × 2 columns: the 2×2 tables one below the other
+};
+
+struct Strata {
+    std::vector<Stratum> tables;  // one 2×2 table per stratum, in the order of the range
+    StrataLayout layout = StrataLayout::one_row_each;
+    std::size_t blank_cells = 0;  // blank count cells, read as 0
+};
+
+// Reads strata from a range. The header row and label column are recognised as for
+// read_count_table (a first row or column of texts). The counts must be 4 columns (one
+// stratum per row) or 2 columns with an even number of rows (stacked 2×2 tables); any other
+// shape is an error, never reshaped. At least 2 strata are needed.
+Strata read_strata(const CellGrid& range);
+
+// "stratum 3" or "stratum 3 (Legal)", for messages.
+std::string stratum_name(const Strata& strata, std::size_t index);
+
+}  // namespace assoc

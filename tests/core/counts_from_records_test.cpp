@@ -1,0 +1,181 @@
+// Counting raw records into a table: levels, weights, blanks, feedback and every error path.
+#include <gtest/gtest.h>
+
+#include <map>
+#include <random>
+#include <string>
+#include <utility>
+
+#include "assoc/counts_from_records.hpp"
+#include "test_support.hpp"
+
+using namespace assoc;
+using assoc::test::expect_error;
+using assoc::test::grid;
+
+namespace {
+
+CellGrid column_of_texts(const std::vector<std::string>& values) {
+    CellGrid cells(values.size(), 1);
+    for (std::size_t i = 0; i < values.size(); ++i)
+        cells.at(i, 0) = values[i].empty() ? Cell::blank() : Cell::text(values[i]);
+    return cells;
+}
+
+std::string text_of(const Cell& cell) { return cell.as_text(); }
+
+}  // namespace
+
+TEST(CountsFromRecords, CountsEachPairOfLabelsIntoItsCell) {
+    const RecordCounts counts = counts_from_records(grid({{"Sales"}, {"Legal"}, {"Sales"}, {"Sales"}}),
+                                                    grid({{"yes"}, {"no"}, {"no"}, {"yes"}}));
+    EXPECT_EQ(counts.row_levels, (std::vector<Cell>{Cell::text("Legal"), Cell::text("Sales")}));
+    EXPECT_EQ(counts.column_levels, (std::vector<Cell>{Cell::text("no"), Cell::text("yes")}));
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{1, 0, 1, 2}));
+    EXPECT_EQ(counts.total, 4);
+    EXPECT_EQ(counts.records, 4u);
+}
+
+// Independent check: the same random records counted with a plain std::map of label pairs.
+TEST(CountsFromRecords, AgreesWithANaiveMapCountOfRandomRecords) {
+    std::mt19937 generator(20240611);
+    std::uniform_int_distribution<int> department(0, 6), grade(0, 3), blank(0, 49);
+    const std::vector<std::string> departments = {"Sales", "Legal", "Audit", "IT", "HR", "Ops", "sales"};
+    std::vector<std::string> rows, columns;
+    std::map<std::pair<std::string, std::string>, double> naive;
+    for (int i = 0; i < 20000; ++i) {
+        std::string row = departments[department(generator)];
+        std::string column = "G" + std::to_string(grade(generator));
+        if (blank(generator) == 0) row.clear();
+        rows.push_back(row);
+        columns.push_back(column);
+        if (!row.empty()) naive[{row, column}] += 1;
+    }
+    const RecordCounts counts = counts_from_records(column_of_texts(rows), column_of_texts(columns));
+    double cells_checked = 0;
+    for (std::size_t r = 0; r < counts.row_levels.size(); ++r)
+        for (std::size_t c = 0; c < counts.column_levels.size(); ++c) {
+            const auto key = std::make_pair(text_of(counts.row_levels[r]), text_of(counts.column_levels[c]));
+            const auto found = naive.find(key);
+            EXPECT_EQ(counts.counts(r, c), found == naive.end() ? 0.0 : found->second) << key.first << "/" << key.second;
+            cells_checked += found == naive.end() ? 0 : 1;
+        }
+    EXPECT_EQ(cells_checked, static_cast<double>(naive.size()));  // every naive cell has its place
+    double naive_total = 0;
+    for (const auto& cell : naive) naive_total += cell.second;
+    EXPECT_EQ(counts.total, naive_total);
+    EXPECT_EQ(counts.skipped_blank, 20000u - static_cast<std::size_t>(naive_total));
+}
+
+TEST(CountsFromRecords, ListsLevelsInTheOrderOfFirstAppearanceWhenAsked) {
+    const RecordCounts counts = counts_from_records(grid({{"b", "a", "b"}}), grid({{2, 1, 3}}), CellGrid(),
+                                                    LevelOrder::first_seen);
+    EXPECT_EQ(counts.row_levels, (std::vector<Cell>{Cell::text("b"), Cell::text("a")}));
+    EXPECT_EQ(counts.column_levels, (std::vector<Cell>{Cell::number(2), Cell::number(1), Cell::number(3)}));
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{1, 0, 1, 0, 1, 0}));
+}
+
+TEST(CountsFromRecords, AcceptsARowOfLabelsBesideAColumnOfLabels) {
+    const RecordCounts counts = counts_from_records(grid({{"x", "y", "x"}}), grid({{1}, {1}, {2}}));
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{1, 1, 1, 0}));
+}
+
+TEST(CountsFromRecords, AddsWeightsInsteadOfCountingRecords) {
+    const RecordCounts counts =
+        counts_from_records(grid({{"x"}, {"x"}, {"y"}}), grid({{"a"}, {"a"}, {"b"}}), grid({{1.5}, {2}, {0}}));
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{3.5, 0, 0, 0}));
+    EXPECT_TRUE(counts.weighted);
+    EXPECT_FALSE(counts.whole_counts);
+    EXPECT_EQ(counts.zero_weight, 1u);
+}
+
+TEST(CountsFromRecords, SkipsRecordsWithABlankLabelAndCountsThem) {
+    const RecordCounts counts =
+        counts_from_records(grid({{"x"}, {nullptr}, {"y"}, {"x"}}), grid({{"a"}, {"b"}, {nullptr}, {"b"}}));
+    EXPECT_EQ(counts.skipped_blank, 2u);
+    EXPECT_EQ(counts.total, 2);
+}
+
+TEST(CountsFromRecords, DoesNotReadTheWeightOfASkippedRecord) {
+    const RecordCounts counts =
+        counts_from_records(grid({{"x"}, {nullptr}}), grid({{"a"}, {"b"}}), grid({{2}, {"n/a"}}));
+    EXPECT_EQ(counts.total, 2);
+}
+
+TEST(CountsFromRecords, SaysInItsFeedbackWhatWasCountedAndSkipped) {
+    const RecordCounts counts =
+        counts_from_records(grid({{"x"}, {nullptr}, {"y"}, {"x"}}), grid({{"a"}, {"b"}, {nullptr}, {"b"}}));
+    EXPECT_EQ(counts.feedback(),
+              "Counted 2 of 4 records into 1 row level and 2 column levels. 2 records have a blank label and were "
+              "skipped.");
+}
+
+TEST(CountsFromRecords, PointsOutLabelsThatDifferOnlyInCapitals) {
+    const RecordCounts counts = counts_from_records(grid({{"Sales", "sales", "Legal"}}), grid({{1, 2, 1}}));
+    EXPECT_EQ(counts.feedback(), "Counted 3 records into 3 row levels and 2 column levels. The row labels \"Sales\" "
+                                 "and \"sales\" differ only in capitals and are counted apart.");
+}
+
+TEST(CountsFromRecords, PointsOutATextThatReadsLikeANumberLabel) {
+    const RecordCounts counts = counts_from_records(grid({{"a", "b", "c"}}), grid({{5, "5", 6}}));
+    ASSERT_EQ(counts.remarks.size(), 1u);
+    EXPECT_EQ(counts.remarks[0], "The column labels hold both the number 5 and the text \"5\"; they are counted apart.");
+}
+
+TEST(CountsFromRecords, GivesALabelledCountTableForTheTests) {
+    const RecordCounts counts = counts_from_records(grid({{"x", "y", "x", "y"}}), grid({{1, 2, 2, 2}}));
+    const CountTable table = counts.table();
+    EXPECT_EQ(table.row_labels(), (std::vector<std::string>{"x", "y"}));
+    EXPECT_EQ(table.column_labels(), (std::vector<std::string>{"1", "2"}));
+    EXPECT_EQ(table.count(1, 1), 2);
+}
+
+TEST(CountsFromRecords, RejectsLabelRangesOfDifferentLengths) {
+    expect_error([] { counts_from_records(grid({{"x"}, {"y"}, {"x"}}), grid({{"a"}, {"b"}})); },
+                 "the row labels (3 cells) and the column labels (2 cells) must be equally long: one pair of labels "
+                 "per record");
+}
+
+TEST(CountsFromRecords, RejectsWeightsOfAnotherLength) {
+    expect_error([] { counts_from_records(grid({{"x"}, {"y"}}), grid({{"a"}, {"b"}}), grid({{1}})); },
+                 "the weights (1 cell) must be as long as the labels (2 cells)");
+}
+
+TEST(CountsFromRecords, RejectsANegativeWeight) {
+    expect_error([] { counts_from_records(grid({{"x"}, {"y"}}), grid({{"a"}, {"b"}}), grid({{1}, {-2}})); },
+                 "weight 2 of 2 holds the number -2; weights must be numbers of 0 or more");
+}
+
+TEST(CountsFromRecords, RejectsATextWeight) {
+    expect_error([] { counts_from_records(grid({{"x"}, {"y"}}), grid({{"a"}, {"b"}}), grid({{"one"}, {1}})); },
+                 "weight 1 of 2 holds the text \"one\"; weights must be numbers of 0 or more");
+}
+
+TEST(CountsFromRecords, RejectsABlankWeightOfACountedRecord) {
+    expect_error([] { counts_from_records(grid({{"x"}, {"y"}}), grid({{"a"}, {"b"}}), grid({{1}, {nullptr}})); },
+                 "weight 2 of 2 is blank; give every record a weight (0 leaves it out)");
+}
+
+TEST(CountsFromRecords, RejectsATwoDimensionalRangeOfLabels) {
+    expect_error([] { counts_from_records(grid({{"x", "y"}, {"x", "y"}}), grid({{"a", "b", "c", "d"}})); },
+                 "the row labels must be a single row or a single column; the range has 2 rows and 2 columns");
+}
+
+TEST(CountsFromRecords, RejectsRecordsThatAreAllBlank) {
+    expect_error([] { counts_from_records(CellGrid(2, 1), grid({{"a"}, {"b"}})); },
+                 "every record has a blank label, so there is nothing to count");
+}
+
+TEST(CountsFromRecords, RejectsATableLargerThanTheCellLimit) {
+    expect_error([] { counts_from_records(grid({{"a", "b", "c"}}), grid({{1, 2, 3}}), CellGrid(), LevelOrder::sorted, 8); },
+                 "the labels give 3 row levels and 3 column levels, a table of 9 cells; Assoc builds tables of at "
+                 "most 8 cells");
+}
+
+TEST(CountsFromRecords, CountsFurtherLabelsThatDifferOnlyInCapitalsWithoutNamingThem) {
+    const RecordCounts counts = counts_from_records(grid({{"Sales", "sales", "SALES", "Legal", "legal"}}),
+                                                    grid({{1, 2, 1, 2, 1}}));
+    ASSERT_EQ(counts.remarks.size(), 1u);
+    EXPECT_EQ(counts.remarks[0], "The row labels \"Sales\" and \"sales\" differ only in capitals and are counted "
+                                 "apart; so are 2 other labels that differ from another only in capitals.");
+}

@@ -1,0 +1,91 @@
+// Selection rates and the four-fifths rule of the US Uniform Guidelines on Employee Selection
+// Procedures (1978), 29 CFR 1607.4(D) (rule text read; see /work/shared/references.md section 9,
+// whose worked example uses invented numbers). Rates and ratios are exact fractions.
+#include <gtest/gtest.h>
+
+#include "assoc/selection_impact.hpp"
+#include "test_support.hpp"
+
+using namespace assoc;
+using assoc::test::expect_error;
+using assoc::test::grid;
+
+namespace {
+// references.md section 9: G1 48/80, G2 12/30, G3 30/60.
+SelectionImpact worked_example() { return selection_impact(grid({{48}, {12}, {30}}), grid({{80}, {30}, {60}})); }
+}  // namespace
+
+TEST(SelectionImpact, GivesEachGroupsSelectionRate) {
+    const SelectionImpact impact = worked_example();
+    ASSERT_EQ(impact.groups.size(), 3u);
+    EXPECT_NEAR_REL(impact.groups[0].selection_rate, 0.6, 1e-15);
+    EXPECT_NEAR_REL(impact.groups[1].selection_rate, 0.4, 1e-15);
+    EXPECT_NEAR_REL(impact.groups[2].selection_rate, 0.5, 1e-15);
+}
+
+TEST(SelectionImpact, DividesEachRateByTheHighestRate) {
+    const SelectionImpact impact = worked_example();
+    EXPECT_EQ(impact.highest_group, 0u);
+    EXPECT_NEAR_REL(impact.groups[0].impact_ratio, 1.0, 1e-15);
+    EXPECT_NEAR_REL(impact.groups[1].impact_ratio, 2.0 / 3.0, 1e-15);
+    EXPECT_NEAR_REL(impact.groups[2].impact_ratio, 5.0 / 6.0, 1e-15);
+}
+
+TEST(SelectionImpact, FlagsOnlyTheGroupBelowFourFifths) {
+    const SelectionImpact impact = worked_example();
+    EXPECT_FALSE(impact.groups[0].below_threshold);
+    EXPECT_TRUE(impact.groups[1].below_threshold);
+    EXPECT_EQ(impact.groups[1].flag, "below four-fifths of the highest rate");
+    EXPECT_FALSE(impact.groups[2].below_threshold);
+    EXPECT_EQ(impact.groups[2].flag, "");
+}
+
+// The rule says "less than four-fifths": 40/100 against 50/100 is exactly 0.8 and is not flagged.
+TEST(SelectionImpact, DoesNotFlagARatioOfExactlyTheThreshold) {
+    const SelectionImpact impact = selection_impact(std::vector<double>{50, 40}, std::vector<double>{100, 100});
+    EXPECT_FALSE(impact.groups[1].below_threshold);
+    // (3/5) / (3/4) is exactly 0.8 too, but the rounded rates give 0.7999999999999999 in doubles.
+    const SelectionImpact rounded = selection_impact(std::vector<double>{3, 3}, std::vector<double>{4, 5});
+    EXPECT_LT(rounded.groups[1].impact_ratio, 0.8);
+    EXPECT_FALSE(rounded.groups[1].below_threshold);
+}
+
+TEST(SelectionImpact, UsesAnotherThresholdWithItsOwnWords) {
+    const SelectionImpact impact = selection_impact(grid({{48, 12, 30}}), grid({{80, 30, 60}}), 0.9);
+    EXPECT_TRUE(impact.groups[2].below_threshold);
+    EXPECT_EQ(impact.groups[2].flag, "below 90% of the highest rate");
+}
+
+TEST(SelectionImpact, ComesWithACaution) {
+    EXPECT_NE(selection_impact_caution().find("not proof of discrimination"), std::string::npos);
+}
+
+TEST(SelectionImpact, RejectsAGroupWithNobodyConsidered) {
+    expect_error([] { selection_impact(grid({{5}, {0}}), grid({{10}, {0}})); },
+                 "group 2 has 0 people considered, so it has no selection rate; leave it out");
+}
+
+TEST(SelectionImpact, RejectsAllRatesZero) {
+    expect_error([] { selection_impact(grid({{0}, {0}}), grid({{10}, {12}})); },
+                 "no one was selected in any group, so there is no highest rate to compare with");
+}
+
+TEST(SelectionImpact, RejectsMoreSelectedThanConsidered) {
+    expect_error([] { selection_impact(grid({{5}, {13}}), grid({{10}, {12}})); },
+                 "group 2 has more selected (13) than considered (12)");
+}
+
+TEST(SelectionImpact, RejectsRangesOfDifferentLengths) {
+    expect_error([] { selection_impact(grid({{5}, {3}, {2}}), grid({{10}, {12}})); },
+                 "there are 3 selected counts and 2 considered counts; give both for every group");
+}
+
+TEST(SelectionImpact, RejectsTextWhereACountIsNeeded) {
+    expect_error([] { selection_impact(grid({{5}, {"few"}}), grid({{10}, {12}})); },
+                 "the selected count of group 2 is the text \"few\"; give a number of 0 or more");
+}
+
+TEST(SelectionImpact, RejectsAThresholdAboveOne) {
+    expect_error([] { selection_impact(grid({{5}, {3}}), grid({{10}, {12}}), 80); },
+                 "the threshold must be above 0 and at most 1 (0.8 for four-fifths), not 80");
+}

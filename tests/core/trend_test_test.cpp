@@ -1,0 +1,99 @@
+// The Cochran–Armitage trend test. Agresti (2007), An Introduction to Categorical Data Analysis, 2nd ed.:
+// infant malformation by maternal alcohol consumption (table number and data from memory, see
+// /work/shared/references.md section 4). Expected values: R 4.2.2 prop.trend.test, and the same
+// formula in numpy 1.24.2 / scipy 1.10.1 (tests/reference/workflow_generate.*).
+#include <gtest/gtest.h>
+
+#include "assoc/trend_test.hpp"
+#include "test_support.hpp"
+#include "workflow_r_values.hpp"
+#include "workflow_statsmodels_values.hpp"
+
+using namespace assoc;
+using assoc::test::expect_error;
+using assoc::test::grid;
+namespace sm = assoc::reference::statsmodels_values;
+namespace r = assoc::reference::r_values;
+
+namespace {
+// Malformation present / absent (rows) by drinks per day (columns), scores 0, 0.5, 1.5, 4, 7.
+CellGrid alcohol() {
+    return grid({{"", "0", "<1", "1-2", "3-5", ">=6"},
+                 {"present", 48, 38, 5, 1, 1},
+                 {"absent", 17066, 14464, 788, 126, 37}});
+}
+CellGrid alcohol_scores() { return grid({{0, 0.5, 1.5, 4.0, 7.0}}); }
+// Invented: staff promoted / not promoted (columns) by training sessions attended (rows, 0–3).
+CellGrid training() { return grid({{4, 36}, {7, 33}, {11, 29}, {15, 25}}); }
+}  // namespace
+
+TEST(TrendTest, MatchesPropTrendTestOnTheAlcoholTable) {
+    const TrendResult result = trend_test(alcohol(), alcohol_scores());
+    EXPECT_NEAR_REL(result.z, r::alcohol_trend_z, 1e-10);
+    EXPECT_NEAR_REL(result.z, sm::alcohol_trend_z, 1e-10);
+    EXPECT_NEAR_REL(result.p_value, r::alcohol_trend_p, 1e-10);
+    // references.md section 4: R prop.trend.test's chi-squared 6.57013394470554.
+    EXPECT_NEAR_REL(result.statistic, 6.57013394470554, 1e-12);
+}
+
+// Exact identity: Mantel's M² = (N − 1) r² is the N-variance statistic times (N − 1)/N.
+TEST(TrendTest, UsesTheVarianceWithNRatherThanNMinusOne) {
+    const TrendResult result = trend_test(alcohol(), alcohol_scores());
+    const double n = 32574;
+    EXPECT_NEAR_REL(result.statistic * (n - 1) / n, 6.569932246, 1e-9);  // M², references.md section 4
+}
+
+TEST(TrendTest, UsesScoresOneToKByDefaultForCategoriesInRows) {
+    const TrendResult result = trend_test(training());
+    EXPECT_FALSE(result.categories_in_columns);
+    EXPECT_EQ(result.categories, 4u);
+    EXPECT_NEAR_REL(result.z, r::training_trend_z, 1e-10);
+    EXPECT_NEAR_REL(result.p_value, r::training_trend_p, 1e-10);
+    EXPECT_NEAR_REL(result.p_value, sm::training_trend_p, 1e-10);
+}
+
+TEST(TrendTest, GivesANegativeZWhenTheShareFalls) {
+    const TrendResult rising = trend_test(training());
+    const TrendResult falling = trend_test(training(), grid({{4, 3, 2, 1}}));
+    EXPECT_NEAR_REL(falling.z, -rising.z, 1e-12);
+    EXPECT_NEAR_REL(falling.p_value, rising.p_value, 1e-12);
+}
+
+// Exact identity: scores enter only through their spacing, so s and a + b·s (b > 0) give the same z.
+TEST(TrendTest, IsUnchangedByShiftingAndStretchingTheScores) {
+    const TrendResult plain = trend_test(alcohol(), alcohol_scores());
+    const TrendResult moved = trend_test(alcohol(), grid({{10, 11, 13, 18, 24}}));
+    EXPECT_NEAR_REL(moved.z, plain.z, 1e-12);
+}
+
+TEST(TrendTest, ReadsATwoByTwoTheSameWayRoundEitherWay) {
+    const TrendResult across = trend_test(grid({{12, 30}, {20, 18}}));
+    const TrendResult down = trend_test(grid({{12, 20}, {30, 18}}));
+    EXPECT_NEAR_REL(across.z, down.z, 1e-14);
+}
+
+TEST(TrendTest, RejectsATableWithoutTwoRowsOrTwoColumns) {
+    expect_error([] { trend_test(grid({{1, 2, 3}, {4, 5, 6}, {7, 8, 9}})); },
+                 "the trend test needs a table with 2 rows (outcomes) and a column per ordered category, or 2 columns "
+                 "and a row per category; this one has 3 rows and 3 columns of counts");
+}
+
+TEST(TrendTest, RejectsScoresOfTheWrongNumber) {
+    expect_error([] { trend_test(training(), grid({{1, 2, 3}})); },
+                 "there are 3 scores for 4 categories; give one score per category");
+}
+
+TEST(TrendTest, RejectsATextScore) {
+    expect_error([] { trend_test(training(), grid({{1, 2, "high", 4}})); },
+                 "score 3 holds the text \"high\"; scores must be numbers");
+}
+
+TEST(TrendTest, RejectsEqualScores) {
+    expect_error([] { trend_test(training(), grid({{2, 2, 2, 2}})); },
+                 "the categories that hold counts all have the same score, so there is no order to test");
+}
+
+TEST(TrendTest, RejectsATableWithOnlyOneOutcome) {
+    expect_error([] { trend_test(grid({{4, 0}, {7, 0}, {2, 0}})); },
+                 "every count is in the first outcome, so there is no share that could change");
+}
