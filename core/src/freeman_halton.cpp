@@ -69,6 +69,7 @@ struct Bounds {
 // the summed probability mass Σ mass·exp(value) of it and all smaller values.
 struct FutureList {
     std::vector<double> log_values;
+    std::vector<double> masses;
     std::vector<double> log_prefix_mass;
     // The same prefix masses divided by the total, for sums that need no exp per term.
     std::vector<double> prefix_share;
@@ -166,22 +167,31 @@ public:
         log_column_factorials_from_.assign(columns_.size() + 1, 0.0);
         for (std::size_t k = columns_.size(); k-- > 0;)
             log_column_factorials_from_[k] = log_column_factorials_from_[k + 1] + log_factorial_[columns_[k]];
-        bounds_.resize(columns_.size());
+        meeting_ = columns_.size() - std::min(backward_columns(), columns_.size() - 1);
+        futures_.resize(columns_.size() - meeting_);
         fill_.resize(row_count_);
         capacity_.resize(row_count_ + 1);
         child_.resize(row_count_);
     }
 
     double p_value() {
-        const std::size_t meeting = columns_.size() - 2;
-        using Stage = std::unordered_map<NodeKey, std::vector<Past>, NodeKeyHash>;
-        Stage stage{{root_, {Past{0.0, 1.0}}}};
+        const std::size_t meeting = meeting_;
+        // A node's pasts are merged whenever they have doubled since the last merge, so memory
+        // follows the number of distinct values rather than the number of paths.
+        struct NodePasts {
+            std::vector<Past> pasts;
+            std::size_t merge_at = 4096;
+        };
+        using Stage = std::unordered_map<NodeKey, NodePasts, NodeKeyHash>;
+        Stage stage;
+        stage[root_].pasts.push_back(Past{0.0, 1.0});
         count_stored(1);
         for (std::size_t k = 0; k < meeting; ++k) {
             const bool last = k + 1 == meeting;
             Stage next;
-            for (auto& [node, pasts] : stage) {
-                const std::size_t appended = pasts.size();
+            for (auto& [node, entry] : stage) {
+                std::vector<Past>& pasts = entry.pasts;
+                const std::size_t held = pasts.size();
                 merge_equal_values(pasts);
                 if (last) {
                     settle_before_meeting(k, node, pasts);
@@ -189,13 +199,20 @@ public:
                     const auto [first, end] = split_by_bounds(pasts, bounds_of(k, node), log_total_future(k, node));
                     if (first < end)
                         for_each_fill(node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
-                            std::vector<Past>& target = next[child];
+                            NodePasts& target = next[child];
                             for (std::size_t i = first; i < end; ++i)
-                                target.push_back(Past{pasts[i].log_value + fill_value, pasts[i].mass * arrangements});
-                            count_stored(end - first);
+                                target.pasts.push_back(Past{pasts[i].log_value + fill_value, pasts[i].mass * arrangements});
+                            stored_ += end - first;
+                            if (target.pasts.size() >= target.merge_at) {
+                                const std::size_t before = target.pasts.size();
+                                merge_equal_values(target.pasts);
+                                stored_ -= before - target.pasts.size();
+                                target.merge_at = std::max<std::size_t>(4096, 2 * target.pasts.size());
+                            }
+                            count_stored(0);
                         });
                 }
-                stored_ -= appended;
+                stored_ -= held;
                 std::vector<Past>().swap(pasts);
             }
             stage.swap(next);
@@ -205,6 +222,15 @@ public:
 
 private:
     using Clock = std::chrono::steady_clock;
+
+    // How many of the last columns keep complete future lists. The forward pass grows with the
+    // columns before the meeting stage, the lists with the columns after it; with few rows the
+    // lists stay short enough to take more columns. The rule was tuned on the bench suite.
+    std::size_t backward_columns() const {
+        if (row_count_ == 2) return std::max<std::size_t>(2, (columns_.size() + 1) / 3);
+        if (row_count_ <= 4 && columns_.size() >= 8) return 3;
+        return 2;
+    }
 
     // Pasts are sorted: a prefix qualifies with every completion (its total mass is added here),
     // a suffix with none; returns the range [first, end) in between, which needs a closer look.
@@ -240,7 +266,7 @@ private:
         });
         Bounds bounds{minus_infinity, std::numeric_limits<double>::infinity()};
         for (std::size_t c = 0; c < children.size(); ++c) {
-            children[c].futures = &futures_of(pending_[c]);
+            children[c].futures = &futures_of(k + 1, pending_[c]);
             bounds.largest = std::max(bounds.largest, children[c].fill_value + children[c].futures->log_values.back());
             bounds.smallest = std::min(bounds.smallest, children[c].fill_value + children[c].futures->log_values.front());
         }
@@ -369,8 +395,8 @@ private:
     // spread each row (or each column) evenly, and no less probable than the least probable
     // way, putting each row (or each column) into a single cell.
     Bounds bounds_of(std::size_t k, const NodeKey& node) {
-        if (k == columns_.size() - 2) {
-            const FutureList& futures = futures_of(node);
+        if (k >= meeting_) {
+            const FutureList& futures = futures_of(k, node);
             return {futures.log_values.back(), futures.log_values.front()};
         }
         std::vector<unsigned> rows(row_count_);
@@ -401,10 +427,52 @@ private:
         return static_cast<double>(parts - extra) * log_factorial_[base] + extra * log_factorial_[base + 1];
     }
 
+    // All futures of a node at stage k ≥ meeting_: sorted, equal values merged, with prefix sums.
+    const FutureList& futures_of(std::size_t k, const NodeKey& node) {
+        auto& memo = futures_[k - meeting_];
+        if (auto found = memo.find(node); found != memo.end()) return found->second;
+        std::vector<Past> values = k + 2 == columns_.size() ? last_two_columns(node) : combined_futures(k, node);
+        work_ += values.size();
+        merge_equal_values(values);
+        FutureList list;
+        list.log_values.reserve(values.size());
+        list.masses.reserve(values.size());
+        list.log_prefix_mass.reserve(values.size());
+        list.prefix_share.reserve(values.size());
+        const double largest = values.back().log_value;
+        double running = 0;  // Σ mass·exp(value − largest): every term is at most its mass, so no overflow
+        for (const Past& v : values) {
+            running += v.mass * std::exp(v.log_value - largest);
+            list.log_values.push_back(v.log_value);
+            list.masses.push_back(v.mass);
+            list.log_prefix_mass.push_back(largest + std::log(running));
+        }
+        for (double log_mass : list.log_prefix_mass) list.prefix_share.push_back(std::exp(log_mass - list.log_prefix_mass.back()));
+        count_stored(4 * values.size() + 3);
+        return memo.emplace(node, std::move(list)).first->second;
+    }
+
+    // Futures with more than two columns left: each fill of column k followed by every future of
+    // the node it leads to.
+    std::vector<Past> combined_futures(std::size_t k, const NodeKey& node) {
+        std::vector<std::pair<NodeKey, Past>> children;
+        for_each_fill(node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
+            children.push_back({child, Past{fill_value, arrangements}});
+        });
+        std::vector<Past> values;
+        for (const auto& [child, fill] : children) {
+            const FutureList& below = futures_of(k + 1, child);
+            for (std::size_t j = 0; j < below.log_values.size(); ++j)
+                values.push_back(Past{fill.log_value + below.log_values[j], fill.mass * below.masses[j]});
+            count_stored(below.log_values.size());
+        }
+        stored_ -= values.size();
+        return values;
+    }
+
     // The futures of a node with two columns left: each fill x of the first column leaves r − x
     // for the last, so a future's value is −Σ log x_i! + log (r_i − x_i)!.
-    const FutureList& futures_of(const NodeKey& node) {
-        if (auto found = futures_.find(node); found != futures_.end()) return found->second;
+    std::vector<Past> last_two_columns(const NodeKey& node) {
         std::vector<unsigned> rows(row_count_);
         unpack(node, rows.data());
         const std::size_t length = length_of(rows);
@@ -431,22 +499,7 @@ private:
             }
         };
         walk(walk, 0, columns_[columns_.size() - 2], 0.0, 1.0, 0, 0);
-        work_ += values.size();
-        merge_equal_values(values);
-        FutureList list;
-        list.log_values.reserve(values.size());
-        list.log_prefix_mass.reserve(values.size());
-        list.prefix_share.reserve(values.size());
-        const double largest = values.back().log_value;
-        double running = 0;  // Σ mass·exp(value − largest): the largest term is at least 1, so no overflow
-        for (const Past& v : values) {
-            running += v.mass * std::exp(v.log_value - largest);
-            list.log_values.push_back(v.log_value);
-            list.log_prefix_mass.push_back(largest + std::log(running));
-        }
-        for (double log_mass : list.log_prefix_mass) list.prefix_share.push_back(std::exp(log_mass - list.log_prefix_mass.back()));
-        count_stored(2 * values.size() + 3);
-        return futures_.emplace(node, std::move(list)).first->second;
+        return values;
     }
 
     void count_stored(std::size_t added) {
@@ -480,8 +533,8 @@ private:
     std::size_t row_count_ = 0, bits_ = 1, length_ = 0;
     NodeKey root_;
     double log_k_ = 0, threshold_ = 0;
-    std::vector<std::unordered_map<NodeKey, Bounds, NodeKeyHash>> bounds_;
-    std::unordered_map<NodeKey, FutureList, NodeKeyHash> futures_;
+    std::size_t meeting_ = 0;  // the first stage whose nodes keep all their futures
+    std::vector<std::unordered_map<NodeKey, FutureList, NodeKeyHash>> futures_;
     std::vector<unsigned> rows_, capacity_, fill_, child_;
     std::vector<NodeKey> pending_;
     std::size_t stored_ = 0;
