@@ -451,7 +451,7 @@ FUNCTIONS = [
         "Says in words whether the chi-squared test can be trusted for this table, or why the table "
         "cannot be used. With the name or an option word of another ASSOC function it also tries that "
         "function on the range and says why it fails.",
-        [TABLE, Argument("method", "word",
+        [TABLE, Argument("function_or_word", "word",
                          "Optional. The name of another ASSOC function (\"exact\" or \"ASSOC.EXACT\"), or one of "
                          "its option words; ASSOC.CHECK then tries it on the range and says whether it works, "
                          "and why not. Accepted words: {all_words}.")],

@@ -414,9 +414,14 @@ category of the other.
 - Text among the counts, negative counts, and a table with fewer than 2 rows or 2 columns holding
   counts are errors.
 
+Functions that take other ranges (records for `ASSOC.COUNTS` and `ASSOC.LEVELS`, strata, paired or
+ordered tables, a row of counts) say below what they expect; where they read counts, headers and
+blanks follow the same rules.
+
 ## Option words and errors
 
-Option words may be written in upper or lower case; an omitted option takes the first word listed.
+Option words may be written in upper or lower case; an omitted option takes the first word listed
+(where the choice depends on the table, the function says so).
 When a function cannot compute a result for its input it shows **Err:502**. `ASSOC.CHECK` with the
 same table (and the same option word) explains why in plain words. An unknown option word is such an
 error; its message lists the accepted words.
@@ -438,15 +443,20 @@ advice.
 """
 
 
+def cell(text):
+    """Text inside a Markdown table cell: a | would end the cell."""
+    return text.replace("|", "\\|")
+
+
 def docs():
     text = DOCS_INTRO.format(generated=GENERATED, count=len(spec.FUNCTIONS), category=spec.CATEGORY)
     for function in spec.FUNCTIONS:
-        text += f"| [`{syntax(function)}`](#{function.name.lower().replace('.', '')}) | {function.result} |\n"
+        text += f"| [`{syntax(function)}`](#{function.name.lower().replace('.', '')}) | {cell(function.result)} |\n"
     for function in spec.FUNCTIONS:
         text += f"\n### {function.name}\n\n`{syntax(function)}`\n\n{function.description}\n\n"
         text += "| argument | what it expects |\n|---|---|\n"
         for argument in function.arguments:
-            text += f"| `{argument.name}` | {argument_description(argument)} |\n"
+            text += f"| `{argument.name}` | {cell(argument_description(argument))} |\n"
         text += f"\n**Result:** {function.result}.\n"
         for note in function.notes:
             text += f"\n{note}\n"

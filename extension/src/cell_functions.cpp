@@ -203,7 +203,7 @@ CellGrid impact(const CellGrid& selected, const CellGrid& considered, double thr
     return rows;
 }
 
-std::string check(const CellGrid& range, const Cell& method) { return check_range(range, method); }
+std::string check(const CellGrid& range, const Cell& function_or_word) { return check_range(range, function_or_word); }
 
 CellGrid report(const CellGrid& range, double alpha) {
     const CountTable table = read_count_table(range);

@@ -1,6 +1,7 @@
 #pragma once
-// Option words ("pearson", "g", "yates"...): read case-insensitively, the first word is the
-// default, and an unknown word is an error that lists the accepted ones.
+// Option words ("pearson", "g", "yates"...): read case-insensitively; an omitted word gives the
+// omitted value (usually the first word's), a word of another function that the argument refuses
+// on purpose is an error with its reason, and an unknown word an error that lists the accepted ones.
 #include <com/sun/star/uno/Any.hxx>
 #include <initializer_list>
 #include <string>
