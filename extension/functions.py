@@ -3,30 +3,40 @@
 Everything about a function that a user or the UNO layer sees comes from here: its name, its
 arguments, the Function Wizard texts, the option words, and what it returns. extension/generate.py
 turns this table into the UNO interface (IDL), the C++ glue of the add-in (UNO methods, wizard
-texts, option-word parsing) and the reference docs/functions.md.
+texts, option-word parsing, the trials of ASSOC.CHECK) and the reference docs/functions.md.
 
-To add a function: add a Function below, then write its adapter (same name as `method`) in
-extension/src/cell_functions.cpp. The generator declares the adapter for you, with the C++ types
-that the argument and result kinds give:
+To add a function: add a Function below (and an Options for new option words), then write its
+adapter (same name as `method`) in extension/src/cell_functions.cpp. The generator declares the
+adapter for you, with the C++ types that the argument and result kinds give:
 
-  argument kind  UNO type                    adapter receives
-  table          sequence< sequence< any > >  const assoc::CellGrid&   (blank cells are blank Cells)
-  number         any                         double                   (omitted: `default`, or an error)
-  option         any                         the C++ type of its Options (omitted: the first word)
-  word           any                         const assoc::Cell&       (omitted: a blank Cell)
+  argument kind   UNO type                     adapter receives
+  table           sequence< sequence< any > >  const assoc::CellGrid&   a table of counts for the tests of
+                                                                        independence (ASSOC.CHECK gives its verdict)
+  range           sequence< sequence< any > >  const assoc::CellGrid&   any other required range (labels, strata…)
+  optional_range  any                          const assoc::CellGrid&   (omitted: an empty grid)
+  number          any                          double                   (omitted: `default`, or an error)
+  option          any                          the C++ type of its Options (omitted: `omitted`, else the first word)
+  word            any                          const assoc::Cell&       (omitted: a blank Cell)
 
-  result kind    adapter returns             the cell shows
-  number         double                      the number
-  row            std::vector<double>         one row; a plain entry shows the first (headline) part
-  array          assoc::Matrix               an array, e.g. the shape of the table body
-  text           std::string                 the text
-  cells          assoc::CellGrid             an array of numbers and texts
+  result kind     adapter returns              the cell shows
+  number          double                       the number
+  row             std::vector<double>          one row; a plain entry shows the first (headline) part
+  array           assoc::Matrix                an array, e.g. the shape of the table body
+  text            std::string                  the text
+  cells           assoc::CellGrid              an array of numbers and texts (a blank Cell shows empty)
 
 An assoc::Error thrown by the adapter shows as Err:502; non-finite numbers are turned into errors.
+An adapter that has more to say about its input than its result (a correction it applied, records it
+skipped) calls remark(sentence); ASSOC.CHECK shows those sentences when it tries the function.
+
+ASSOC.CHECK tries every function on a range without further code: with the function's name as its
+second argument it runs the function with its defaults, with an option word it runs each function
+that accepts the word. So a function's arguments other than its ranges need defaults, except for a
+function that takes no range at all (ASSOC.CHECK then reads its numbers from the cells of the range).
 """
 
 from dataclasses import dataclass, field
-from typing import List, Optional
+from typing import Dict, List, Optional
 
 # The wizard category; one of the names Calc honours.
 CATEGORY = "Statistical"
@@ -37,21 +47,33 @@ class Word:
     word: str     # what the user types, lower case; matched case-insensitively
     meaning: str  # a few words for the wizard and the docs
     cpp: str      # the C++ value the adapter receives
+    # The display name of a function whose run with its defaults gives the same result (ASSOC.PVALUE
+    # with "exact" is ASSOC.EXACT), so that ASSOC.CHECK runs a long calculation only once.
+    same_as: str = ""
 
 
 @dataclass
 class Options:
     """A set of option words that one or more arguments accept. The first word is the default."""
+    key: str               # a C++ identifier, unique among the Options (the generated variable's name)
     name: str              # what the words choose, for messages: "method", "kind"
     cpp_type: str          # the C++ type of the values
     words: List[Word]
     declare: bool = False  # True: the generator declares `enum class cpp_type` with the `cpp` values
+    include: str = ""      # the core header that declares cpp_type
+    # When omitting the argument means something no single word means (a choice that depends on the
+    # table), its C++ value and its meaning for the docs; otherwise omitted means the first word.
+    omitted: Optional[str] = None
+    omitted_meaning: str = ""
+    # Words of other functions that these arguments refuse with a specific message (not just
+    # "unknown"), so that a mix-up explains itself.
+    refused: Dict[str, str] = field(default_factory=dict)
 
 
 @dataclass
 class Argument:
     name: str
-    kind: str          # table | number | option | word (see the module docstring)
+    kind: str          # table | range | optional_range | number | option | word (see the module docstring)
     description: str   # for the wizard; option words are appended automatically
     default: Optional[float] = None  # for number arguments: the value when omitted
     options: Optional[Options] = None  # for option arguments
@@ -69,22 +91,36 @@ class Function:
     example: str = ""  # a formula for the docs
 
 
-METHODS = Options("method", "assoc::Method", [
+# ---------------------------------------------------------------------------------------------
+# Option words
+
+METHODS = Options("method", "method", "assoc::Method", [
     Word("pearson", "Pearson's X²", "assoc::Method::pearson"),
     Word("g", "the likelihood-ratio statistic G²", "assoc::Method::likelihood_ratio"),
     Word("yates", "Pearson's X² with Yates' continuity correction (2×2 tables only)", "assoc::Method::yates"),
-])
+], include="assoc/statistics.hpp", refused={
+    "exact": "the exact test has no chi-squared statistic; ASSOC.EXACT (or ASSOC.PVALUE with \"exact\") gives "
+             "its p-value",
+})
 
-RESIDUAL_KINDS = Options("kind", "assoc::ResidualKind", [
+PVALUE_METHODS = Options("pvalue_method", "method", "PValueMethod", [
+    Word("pearson", "Pearson's X²", "pearson"),
+    Word("g", "the likelihood-ratio statistic G²", "g"),
+    Word("yates", "Pearson's X² with Yates' continuity correction (2×2 tables only)", "yates"),
+    Word("exact", "the exact test, conditional on the row and column totals (as ASSOC.EXACT; whole counts only)",
+         "exact", same_as="ASSOC.EXACT"),
+], declare=True)
+
+RESIDUAL_KINDS = Options("residual_kind", "kind", "assoc::ResidualKind", [
     Word("pearson", "(O − E) / √E", "assoc::ResidualKind::pearson"),
     Word("adjusted", "the adjusted (standardized) residual, about standard normal under independence",
          "assoc::ResidualKind::adjusted"),
     Word("raw", "O − E", "assoc::ResidualKind::raw"),
     Word("contribution", "(O − E)² / E, the cell's part of X²", "assoc::ResidualKind::contribution"),
     Word("percent", "the cell's part of X² in percent", "assoc::ResidualKind::percent"),
-])
+], include="assoc/residuals.hpp")
 
-MEASURES = Options("measure", "Measure", [
+MEASURES = Options("measure", "measure", "Measure", [
     Word("cramer", "Cramér's V, from 0 to 1", "cramer"),
     Word("cramer-corrected", "Cramér's V with Bergsma's bias correction", "cramer_corrected"),
     Word("phi", "phi, signed (2×2 tables only)", "phi"),
@@ -92,11 +128,78 @@ MEASURES = Options("measure", "Measure", [
     Word("w", "Cohen's w, as power calculations use it", "w"),
 ], declare=True)
 
+SIDES = Options("side", "side", "assoc::Side", [
+    Word("two-sided", "every table with the same totals that is no more probable than this one",
+         "assoc::Side::two_sided"),
+    Word("lower", "2×2 only: a top-left count this small or smaller (evidence of an odds ratio below 1)",
+         "assoc::Side::lower"),
+    Word("upper", "2×2 only: a top-left count this large or larger (evidence of an odds ratio above 1)",
+         "assoc::Side::upper"),
+], include="assoc/exact_test.hpp")
+
+SIMULATION_METHODS = Options("simulation_method", "method", "assoc::Method", [
+    Word("pearson", "Pearson's X²", "assoc::Method::pearson"),
+    Word("g", "the likelihood-ratio statistic G²", "assoc::Method::likelihood_ratio"),
+], include="assoc/statistics.hpp", refused={
+    "yates": "Yates' correction adjusts the chi-squared approximation, and a simulated p-value needs no "
+             "approximation; use \"pearson\" or \"g\"",
+})
+
+ADJUSTMENTS = Options("adjustment", "adjustment", "assoc::PAdjustment", [
+    Word("holm", "Holm's step-down adjustment: the chance of any false finding among the cells stays at the "
+                 "level, with more power than Bonferroni", "assoc::PAdjustment::holm"),
+    Word("bonferroni", "each p-value times the number of cells tested, at most 1", "assoc::PAdjustment::bonferroni"),
+    Word("none", "no adjustment: each cell on its own", "assoc::PAdjustment::none"),
+], include="assoc/p_value_adjustment.hpp")
+
+LEVEL_ORDERS = Options("level_order", "order", "assoc::LevelOrder", [
+    Word("sorted", "numbers ascending, then texts alphabetically", "assoc::LevelOrder::sorted"),
+    Word("first", "in the order in which the labels first appear", "assoc::LevelOrder::first_seen"),
+], include="assoc/levels.hpp")
+
+CONTINUITY = Options("continuity", "correction", "assoc::Continuity", [
+    Word("corrected", "with the continuity correction of ½", "assoc::Continuity::corrected"),
+    Word("uncorrected", "without it", "assoc::Continuity::uncorrected"),
+], include="assoc/mantel_haenszel.hpp")
+
+PAIRED_METHODS = Options("paired_method", "method", "std::optional<assoc::PairedMethod>", [
+    Word("corrected", "McNemar's test with the continuity correction, (|b − c| − 1)² / (b + c) (2×2 tables)",
+         "assoc::PairedMethod::corrected"),
+    Word("uncorrected", "McNemar's test without the correction, (b − c)² / (b + c); for a larger square table "
+                        "Bowker's test of symmetry", "assoc::PairedMethod::uncorrected"),
+    Word("exact", "the exact binomial test of the changes b against c (2×2 tables, whole counts)",
+         "assoc::PairedMethod::exact"),
+], include="assoc/paired_tests.hpp", omitted="std::nullopt",
+    omitted_meaning="\"corrected\" for a 2×2 table, Bowker's test of symmetry for a larger one")
+
+
+# ---------------------------------------------------------------------------------------------
+# Arguments that several functions share
+
 TABLE = Argument(
     "table", "table",
     "The range of counts: one row per category of one variable, one column per category of the other. "
     "A first row and a first column of text labels are read as headers. Blank cells count as 0; "
     "rows and columns of zeros are set aside.")
+
+TWO_BY_TWO = Argument(
+    "table", "table",
+    "A 2×2 range of counts, headers allowed: rows are the two groups, column 1 the outcome of interest "
+    "(for example promoted), column 2 the other outcome.")
+
+CONFIDENCE = Argument("confidence", "number",
+                      "Optional. The confidence level of the interval, between 0 and 1; 0.95 when omitted.",
+                      default=0.95)
+
+ALPHA = Argument("alpha", "number", "Optional. The significance level, between 0 and 1; 0.05 when omitted.",
+                 default=0.05)
+
+STRATA_RANGE = Argument(
+    "strata", "range",
+    "The 2×2 tables of the strata (for example one per department): either one row per stratum with its "
+    "four counts a, b, c, d (row 1: a, b; row 2: c, d), or the 2×2 tables stacked in two columns. A first "
+    "row and a first column of text labels are read as headers.")
+
 
 FUNCTIONS = [
     Function(
@@ -112,16 +215,17 @@ FUNCTIONS = [
         "three cells in a row it also gives the degrees of freedom and the p-value.",
         [TABLE, Argument("method", "option", "Optional. The test statistic to compute.", options=METHODS)],
         "row", "one row: the statistic, the degrees of freedom, the p-value; a plain entry shows the statistic",
-        ["Yates' correction is never applied unless asked for, and only to 2×2 tables."],
+        ["Yates' correction is never applied unless asked for, and only to 2×2 tables. The exact test has no "
+         "statistic: use ASSOC.EXACT for it."],
         '=ASSOC.STATISTIC(A1:D3; "g")'),
     Function(
         "ASSOC.PVALUE", "pvalue",
-        "The p-value of the chi-squared test of independence: the chance of a statistic at least this "
-        "large if rows and columns were independent.",
-        [TABLE, Argument("method", "option", "Optional. The test statistic the p-value belongs to.",
-                         options=METHODS)],
-        "number", "the upper-tail p-value, between 0 and 1",
-        ["Computed from the upper tail directly, so very small p-values keep their digits."],
+        "The p-value of the test of independence: the chance of a result at least this far from "
+        "independence if rows and columns were independent.",
+        [TABLE, Argument("method", "option", "Optional. The test the p-value belongs to.", options=PVALUE_METHODS)],
+        "number", "the p-value, between 0 and 1",
+        ["Chi-squared p-values are computed from the upper tail directly, so very small p-values keep their "
+         "digits. \"exact\" gives the same value as ASSOC.EXACT with its default side."],
         "=ASSOC.PVALUE(A1:D3)"),
     Function(
         "ASSOC.DF", "df",
@@ -133,9 +237,7 @@ FUNCTIONS = [
         "ASSOC.CRITICAL", "critical",
         "The critical value of the chi-squared distribution: the statistic above which independence is "
         "rejected at significance level alpha.",
-        [Argument("df", "number", "The degrees of freedom, a number above 0 (see ASSOC.DF)."),
-         Argument("alpha", "number", "Optional. The significance level, between 0 and 1; 0.05 when omitted.",
-                  default=0.05)],
+        [Argument("df", "number", "The degrees of freedom, a number above 0 (see ASSOC.DF)."), ALPHA],
         "number", "the value c with P(X² ≥ c) = alpha",
         [], "=ASSOC.CRITICAL(2; 0.01)"),
     Function(
@@ -144,7 +246,8 @@ FUNCTIONS = [
         [TABLE, Argument("kind", "option", "Optional. Which residual to compute.", options=RESIDUAL_KINDS)],
         "array", "an array of the shape of the table body; set-aside rows and columns show 0",
         ["Adjusted residuals beyond about ±2 mark cells that differ from independence at about the 5% level "
-         "each (common practice); with many cells some will by chance."],
+         "each (common practice); with many cells some will by chance. ASSOC.CELLTEST turns them into "
+         "p-values adjusted for the number of cells."],
         '=ASSOC.RESIDUALS(A1:D3; "adjusted")'),
     Function(
         "ASSOC.STRENGTH", "strength",
@@ -153,26 +256,229 @@ FUNCTIONS = [
         "number", "the measure; all are computed from the uncorrected Pearson X²",
         [], '=ASSOC.STRENGTH(A1:D3; "cramer-corrected")'),
     Function(
+        "ASSOC.EXACT", "exact",
+        "The exact p-value of the test of independence, conditional on the row and column totals (Fisher's "
+        "test for 2×2 tables, its Freeman–Halton extension for larger ones). Needs whole counts.",
+        [TABLE, Argument("side", "option", "Optional. Which tables count as at least as extreme as this one.",
+                         options=SIDES)],
+        "number", "the p-value, between 0 and 1",
+        ["Trustworthy where the chi-squared approximation is doubtful (small expected counts). For larger "
+         "tables with many counts the number of possible tables grows quickly: the calculation stops with an "
+         "error after about 5 seconds, or when it would need more than about 350 MB of memory; ASSOC.SIMULATE "
+         "then gives a Monte Carlo p-value instead. ASSOC.CHECK with \"exact\" says why it fails."],
+        "=ASSOC.EXACT(A1:C3)"),
+    Function(
+        "ASSOC.SIMULATE", "simulate",
+        "A simulated (Monte Carlo) p-value of the test of independence: the share of random tables with the "
+        "same row and column totals whose statistic is at least this table's. Needs whole counts.",
+        [TABLE,
+         Argument("trials", "number", "Optional. The number of random tables, a whole number from 100 to "
+                                      "10,000,000; 100,000 when omitted.", default=100000),
+         Argument("seed", "number", "Optional. The start of the random sequence, a whole number from 0 to "
+                                    "4,294,967,295; 1 when omitted. The same seed gives the same p-value.",
+                  default=1),
+         Argument("method", "option", "Optional. The statistic compared.", options=SIMULATION_METHODS)],
+        "row", "one row: the p-value, its standard error (the Monte Carlo error), the number of trials; a plain "
+               "entry shows the p-value",
+        ["The p-value is (1 + k) / (trials + 1), k the number of random tables at least as extreme, so it is "
+         "never 0. The standard error √(p (1 − p) / trials) shrinks with more trials. Tables too large to "
+         "simulate within a few seconds are refused with an error that says how many trials would fit."],
+        "=ASSOC.SIMULATE(A1:D4; 100000; 7)"),
+    Function(
+        "ASSOC.ODDSRATIO", "oddsratio",
+        "The odds ratio of a 2×2 table: the odds of column 1 in row 1 over the odds of column 1 in row 2, "
+        "with a confidence interval (Woolf's method).",
+        [TWO_BY_TWO, CONFIDENCE],
+        "row", "one row: the odds ratio, the lower and the upper end of the interval; a plain entry shows the "
+               "odds ratio",
+        ["When a cell is 0, 0.5 is added to every cell first (the Haldane–Anscombe correction); ASSOC.CHECK "
+         "says so. This is the sample (cross-product) odds ratio, not the conditional estimate some exact "
+         "tests report."],
+        "=ASSOC.ODDSRATIO(A1:C3; 0.95)"),
+    Function(
+        "ASSOC.RISKRATIO", "riskratio",
+        "The risk ratio (relative risk) of a 2×2 table: the share of column 1 in row 1 over the share of "
+        "column 1 in row 2, with a confidence interval (log method).",
+        [TWO_BY_TWO, CONFIDENCE],
+        "row", "one row: the risk ratio, the lower and the upper end of the interval; a plain entry shows the "
+               "risk ratio",
+        ["When a cell is 0, 0.5 is added to every cell first, as for the odds ratio."],
+        "=ASSOC.RISKRATIO(A1:C3)"),
+    Function(
+        "ASSOC.CELLTEST", "celltest",
+        "Which cells depart from independence: for each cell, the two-sided p-value of its adjusted "
+        "residual, adjusted for the number of cells tested.",
+        [TABLE, Argument("adjust", "option", "Optional. How the p-values allow for testing many cells.",
+                         options=ADJUSTMENTS)],
+        "cells", "an array of the shape of the table body; cells of set-aside rows and columns are not tested and "
+                 "stay empty",
+        ["A small p-value marks a cell with more or fewer counts than independence explains; the sign of "
+         "ASSOC.RESIDUALS(…; \"adjusted\") says which."],
+        '=ASSOC.CELLTEST(A1:D4; "holm")'),
+    Function(
+        "ASSOC.FIT", "fit",
+        "Pearson's goodness-of-fit test: do the counts of one variable follow the expected shares?",
+        [Argument("observed", "range", "One row or one column of counts, one per category; a text label at "
+                                       "its start, or a row or column of labels beside it, is allowed."),
+         Argument("expected", "optional_range",
+                  "Optional. The expected counts or shares, one per category, in any unit (9, 3, 3, 1 or "
+                  "percentages); they are rescaled to the observed total. Equal shares when omitted."),
+         Argument("estimated", "number", "Optional. The number of parameters estimated from the same data, "
+                                         "which lowers the degrees of freedom; 0 when omitted.", default=0)],
+        "row", "one row: the p-value, the statistic X², the degrees of freedom; a plain entry shows the p-value",
+        ["The degrees of freedom are the categories − 1 − estimated. A category expected to have no counts "
+         "must have none, and is then left out."],
+        "=ASSOC.FIT(B2:B5; C2:C5)"),
+    Function(
+        "ASSOC.POWER", "power",
+        "The power of the chi-squared test: the chance that it finds an effect of size w with n counts in all.",
+        [Argument("w", "number", "The effect size w, 0 or more (Cohen: 0.1 small, 0.3 medium, 0.5 large)."),
+         Argument("n", "number", "The total count, above 0."),
+         Argument("df", "number", "The degrees of freedom of the test, a whole number of 1 or more."),
+         ALPHA],
+        "number", "the power, between alpha and 1",
+        ["Model: X² follows the noncentral chi-squared distribution with noncentrality n·w²."],
+        "=ASSOC.POWER(0.3; 88; 1)"),
+    Function(
+        "ASSOC.SAMPLESIZE", "samplesize",
+        "The smallest total count with which the chi-squared test reaches the given power for an effect of "
+        "size w.",
+        [Argument("w", "number", "The effect size w, above 0 (Cohen: 0.1 small, 0.3 medium, 0.5 large)."),
+         Argument("power", "number", "The power wanted, between alpha and 1, for example 0.8."),
+         Argument("df", "number", "The degrees of freedom of the test, a whole number of 1 or more."),
+         ALPHA],
+        "number", "a whole number of counts",
+        ["The same model as ASSOC.POWER; the answer is the smallest whole n whose power reaches the target."],
+        "=ASSOC.SAMPLESIZE(0.3; 0.8; 1)"),
+    Function(
+        "ASSOC.COUNTS", "counts",
+        "Counts records into a table: one record per position of the two label ranges (for example each "
+        "employee's department and outcome), optionally weighted.",
+        [Argument("row_labels", "range", "One row or column of labels, one per record: the rows of the table."),
+         Argument("column_labels", "range",
+                  "One row or column of labels, as long as row_labels: the columns of the table."),
+         Argument("weights", "optional_range",
+                  "Optional. One number of 0 or more per record, as long as the labels; each record counts once "
+                  "when omitted."),
+         Argument("order", "option", "Optional. The order of the rows and columns.", options=LEVEL_ORDERS)],
+        "array", "the counts only, one row per label of ASSOC.LEVELS(row_labels) and one column per label of "
+                 "ASSOC.LEVELS(column_labels), in the same order",
+        ["The result holds no labels, so it can go straight into the other ASSOC functions. For a table with "
+         "headers, put ASSOC.LEVELS(row_labels) in the column to its left and "
+         "TRANSPOSE(ASSOC.LEVELS(column_labels)) in the row above it (both with the same order), and give the "
+         "whole block to ASSOC.REPORT.",
+         "A record with a blank label is skipped. Labels are compared exactly: \"Sales\", \"sales\" and "
+         "\"Sales \" are three labels (ASSOC.CHECK with \"counts\" points out labels that differ only in "
+         "capitals), and the number 5 and the text \"5\" are two. A label whose records are all skipped gets a "
+         "row (or column) of zeros, which the other functions set aside."],
+        "=ASSOC.COUNTS(B2:B200; C2:C200)"),
+    Function(
+        "ASSOC.LEVELS", "levels",
+        "The distinct labels of a row or column of records, blanks left out: the row or column headers of "
+        "ASSOC.COUNTS.",
+        [Argument("labels", "range", "One row or column of labels, one per record."),
+         Argument("order", "option", "Optional. The order of the labels.", options=LEVEL_ORDERS)],
+        "cells", "a column of labels (numbers stay numbers)",
+        ["Use TRANSPOSE(ASSOC.LEVELS(…)) for a row."],
+        "=ASSOC.LEVELS(B2:B200)"),
+    Function(
+        "ASSOC.STRATA", "strata",
+        "The Mantel–Haenszel test of association across strata (for example promotion by sex within each "
+        "department), with the common odds ratio and its 95% confidence interval.",
+        [STRATA_RANGE,
+         Argument("correction", "option", "Optional. The continuity correction of the statistic.",
+                  options=CONTINUITY)],
+        "row", "one row: the p-value, the statistic (chi-squared, 1 degree of freedom), the common odds ratio, "
+               "the lower and the upper end of its interval; a plain entry shows the p-value",
+        ["The common odds ratio compares the odds of column 1 in row 1 with those in row 2, the same in every "
+         "stratum. Strata without counts in both rows and both columns add nothing and are left out "
+         "(ASSOC.CHECK with \"strata\" names them). ASSOC.HOMOGENEITY tests whether one common odds ratio fits "
+         "all strata."],
+        "=ASSOC.STRATA(A1:E7)"),
+    Function(
+        "ASSOC.HOMOGENEITY", "homogeneity",
+        "The Breslow–Day test, with Tarone's correction, that the odds ratio is the same in every stratum.",
+        [STRATA_RANGE],
+        "row", "one row: the p-value, the statistic, the degrees of freedom (strata used − 1); a plain entry "
+               "shows the p-value",
+        ["A small p-value says the strata differ, so the common odds ratio of ASSOC.STRATA hides real "
+         "differences between them."],
+        "=ASSOC.HOMOGENEITY(A1:E7)"),
+    Function(
+        "ASSOC.PAIRED", "paired",
+        "A test for paired answers (the same people classified twice, before and after): do changes in one "
+        "direction outnumber changes in the other? McNemar's test for 2×2 tables, Bowker's for larger ones.",
+        [Argument("table", "range", "A square range of counts, headers allowed: rows are the first "
+                                    "classification, columns the second, in the same order of categories."),
+         Argument("method", "option", "Optional. The test to apply.", options=PAIRED_METHODS)],
+        "row", "one row: the p-value, the statistic, the degrees of freedom; a plain entry shows the p-value",
+        ["With \"exact\" the statistic is the smaller of the two counts of changes and the degrees of freedom "
+         "are 0 (a binomial test has none). Rows and columns of zeros are kept, since row i and column i must "
+         "stay the same category."],
+        "=ASSOC.PAIRED(A1:C3)"),
+    Function(
+        "ASSOC.TREND", "trend",
+        "The Cochran–Armitage test for a trend in a share across ordered categories (for example the share "
+        "promoted by number of training courses taken).",
+        [Argument("table", "range", "A range of counts with two outcomes and the ordered categories: 2 rows "
+                                    "(outcomes) × k columns (categories), or k rows × 2 columns; headers allowed."),
+         Argument("scores", "optional_range",
+                  "Optional. One score per category, in the order of the table, for example the number of "
+                  "courses; 1, 2, 3, … when omitted.")],
+        "row", "one row: the two-sided p-value and z; a plain entry shows the p-value",
+        ["z is positive when the share of the first outcome (row 1 of a 2×k table, column 1 of a k×2 table) "
+         "rises with the score. z² is the statistic with the variance based on n; Mantel's version with n − 1 "
+         "is smaller by the factor (n − 1)/n."],
+        "=ASSOC.TREND(A1:F3; A5:E5)"),
+    Function(
+        "ASSOC.IMPACT", "impact",
+        "Selection rates by group and their ratio to the highest group's rate, flagging groups below a "
+        "threshold (four-fifths by default).",
+        [Argument("selected", "range", "One row or column: the number selected in each group."),
+         Argument("considered", "range", "One row or column as long as selected: the number considered "
+                                         "(applicants, candidates) in each group."),
+         Argument("threshold", "number", "Optional. The ratio below which a group is flagged, above 0 and at "
+                                         "most 1; 0.8 (four-fifths) when omitted.", default=0.8)],
+        "cells", "one row per group: the selection rate, the ratio to the highest rate, and a flag text when the "
+                 "ratio is below the threshold (empty otherwise); enter it over 3 columns and one row per group",
+        ["The four-fifths rule of thumb comes from the US Uniform Guidelines on Employee Selection Procedures, "
+         "29 CFR 1607.4(D). It is a screening rule, not a test: with few people a large difference can be "
+         "chance, and with many a small one can matter. Follow applicable law and policy and seek qualified "
+         "advice."],
+        "=ASSOC.IMPACT(B2:B4; C2:C4)"),
+    Function(
         "ASSOC.CHECK", "check",
         "Says in words whether the chi-squared test can be trusted for this table, or why the table "
-        "cannot be used. With an option word of another ASSOC function it also tries that choice.",
-        [TABLE, Argument("method", "word",
-                         "Optional. An option word of another ASSOC function; ASSOC.CHECK then also says "
-                         "whether that choice works on this table, and why not. Accepted words: {all_words}.")],
+        "cannot be used. With the name or an option word of another ASSOC function it also tries that "
+        "function on the range and says why it fails.",
+        [TABLE, Argument("function_or_word", "word",
+                         "Optional. The name of another ASSOC function (\"exact\" or \"ASSOC.EXACT\"), or one of "
+                         "its option words; ASSOC.CHECK then tries it on the range and says whether it works, "
+                         "and why not. Accepted words: {all_words}.")],
         "text", 'a verdict that starts with "Sound:" or "Doubtful:", or starts with "Cannot use this table:" '
-                "and gives the reason",
-        ["Where another ASSOC function shows an error (Err:502) for a table or an option word, ASSOC.CHECK "
-         "with the same table and word explains it."],
-        '=ASSOC.CHECK(A1:D3; "yates")'),
+                "and gives the reason; then what the function or word tried does on the range",
+        ["Where another ASSOC function shows an error (Err:502) for a range or an option word, ASSOC.CHECK "
+         "with the same range and the function's name or word explains it. A name runs the function with its "
+         "defaults; a word runs every function that accepts it (a function that cannot use the range even "
+         "with its defaults is left out when another one can). The verdict on the chi-squared test is given "
+         "for functions that take a table of counts for the test of independence.",
+         "For a function that takes two ranges (ASSOC.COUNTS, ASSOC.IMPACT), give ASSOC.CHECK one range with "
+         "the two side by side as columns, in the order of the arguments; for one that takes only numbers "
+         "(ASSOC.POWER), give its numbers in one row or column."],
+        '=ASSOC.CHECK(A1:D3; "exact")'),
     Function(
         "ASSOC.REPORT", "report",
         "A full account of the test of independence as a two-column block of labels and values: sizes, "
-        "statistics and p-values, decision, strength, validity, a conclusion in words and a caution.",
-        [TABLE, Argument("alpha", "number", "Optional. The significance level, between 0 and 1; 0.05 when omitted.",
-                         default=0.05)],
-        "cells", "a two-column array of labels and values, one row per line of the report (18 lines); enter it "
-                 "as an array formula over 2 columns and 18 rows",
+        "statistics and p-values (the exact one too), decision, strength with its interval, validity, the "
+        "cells that stand out, a conclusion in words and a caution.",
+        [TABLE, ALPHA],
+        "cells", "a two-column array of labels and values, one row per line of the report (22 lines); enter it "
+                 "as an array formula over 2 columns and 22 rows",
         ["When the corner cell of a table with both headers names the variables as \"rows / columns\" "
-         "(for example \"Department / Outcome\"), the conclusion uses those names."],
+         "(for example \"Department / Outcome\"), the conclusion uses those names.",
+         "The exact p-value is computed when the counts are whole and the test finishes within 2 seconds; "
+         "otherwise its line says why not (ASSOC.EXACT allows 5 seconds, ASSOC.SIMULATE estimates the p-value). The cells "
+         "that stand out are the (at most 3) cells with the largest adjusted residuals beyond ±2, named by "
+         "their labels."],
         "=ASSOC.REPORT(A1:D3; 0.05)"),
 ]

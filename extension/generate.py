@@ -4,6 +4,7 @@
   XAssocFunctions.idl   the UNO interface of the add-in
   assoc_functions.hpp   the add-in's UNO methods, the adapter declarations, option-word enums
   assoc_functions.cpp   the UNO method bodies, the wizard texts, the option words, ASSOC.CHECK's trials
+                        (every function run on one range, with its defaults or with one of its words)
   functions.md          the function reference
 
 Usage:
@@ -31,13 +32,16 @@ REFRESH_HINT = ("Refresh them with:  python3 extension/generate.py --refresh   "
 
 UNO_TABLE = "const css::uno::Sequence<css::uno::Sequence<css::uno::Any>>&"
 UNO_ANY = "const css::uno::Any&"
-# kind: (IDL type, UNO C++ parameter type)
+# kind: (IDL type, UNO C++ parameter type). Calc makes only `any` arguments optional.
 ARGUMENT_KINDS = {
     "table": ("sequence< sequence< any > >", UNO_TABLE),
+    "range": ("sequence< sequence< any > >", UNO_TABLE),
+    "optional_range": ("any", UNO_ANY),
     "number": ("any", UNO_ANY),
     "option": ("any", UNO_ANY),
     "word": ("any", UNO_ANY),
 }
+REQUIRED_RANGE_KINDS = ("table", "range")
 RESULT_TYPES = {"number": "double", "row": "std::vector<double>", "array": "assoc::Matrix",
                 "text": "std::string", "cells": "assoc::CellGrid"}
 
@@ -72,23 +76,45 @@ def validate():
             if (argument.kind == "option") != (argument.options is not None):
                 problems.append(f"{function.name}: argument {argument.name}: option arguments and only they "
                                 "name their Options")
-        if any(a.kind == "option" for a in function.arguments) and not trial_ready(function):
-            problems.append(f"{function.name}: a function with option words needs a table argument and "
-                            "defaults for its other arguments, so that ASSOC.CHECK can try its words")
-    option_names = [o.name for o in option_sets()]
-    if len(set(option_names)) != len(option_names):
-        problems.append("two different Options share a name: " + ", ".join(option_names))
+        if tried_by_check(function) and ranges_of(function) and any(
+                a.kind == "number" and a.default is None for a in function.arguments):
+            problems.append(f"{function.name}: a function that takes a range needs defaults for its numbers, so "
+                            "that ASSOC.CHECK can try it on a range")
+        if tried_by_check(function) and not ranges_of(function) and any(
+                a.kind != "number" for a in function.arguments):
+            problems.append(f"{function.name}: a function without a range may take numbers only (ASSOC.CHECK "
+                            "reads them from the cells of its range)")
+    keys = [o.key for o in option_sets()]
+    if len(set(keys)) != len(keys) or not all(k.isidentifier() for k in keys):
+        problems.append("the keys of the Options must be distinct identifiers: " + ", ".join(keys))
+    display_names = {f.name for f in spec.FUNCTIONS}
     for options in option_sets():
+        if any(w.same_as and w.same_as not in display_names for w in options.words):
+            problems.append(f"Options {options.key}: same_as names a function that does not exist")
         words = [w.word for w in options.words]
         if len(set(words)) != len(words) or any(w != w.lower() or not w for w in words):
-            problems.append(f"Options {options.name}: words must be distinct, non-empty and lower case")
+            problems.append(f"Options {options.key}: words must be distinct, non-empty and lower case")
+        if any(w in words or w != w.lower() for w in options.refused):
+            problems.append(f"Options {options.key}: refused words must be lower case and not among its words")
+        if (options.omitted is None) != (not options.omitted_meaning):
+            problems.append(f"Options {options.key}: `omitted` and `omitted_meaning` go together")
     if problems:
         sys.exit("extension/functions.py has problems:\n  " + "\n  ".join(problems))
 
 
-def trial_ready(function):
-    return (any(a.kind == "table" for a in function.arguments) and
-            all(a.kind in ("table", "option", "word") or a.default is not None for a in function.arguments))
+def ranges_of(function):
+    """The required range arguments (kinds table and range), in order."""
+    return [a for a in function.arguments if a.kind in REQUIRED_RANGE_KINDS]
+
+
+def tried_by_check(function):
+    """ASSOC.CHECK tries every function except those with a free word argument (ASSOC.CHECK itself)."""
+    return not any(a.kind == "word" for a in function.arguments)
+
+
+def tests_independence(function):
+    """Whether the function's first argument is a table of counts for the tests of independence."""
+    return bool(function.arguments) and function.arguments[0].kind == "table"
 
 
 # ---------------------------------------------------------------------------------------------
@@ -110,15 +136,21 @@ def quoted_list(words, last="or"):
 
 def argument_description(argument):
     text = argument.description.replace("{all_words}", quoted_list(all_words()))
-    if argument.options is not None:
-        choices = "; ".join(f'"{w.word}"{" (default)" if i == 0 else ""}: {w.meaning}'
-                            for i, w in enumerate(argument.options.words))
-        text += f" {choices}. Upper or lower case."
+    options = argument.options
+    if options is not None:
+        marked_default = options.omitted is None
+        choices = "; ".join(f'"{w.word}"{" (default)" if i == 0 and marked_default else ""}: {w.meaning}'
+                            for i, w in enumerate(options.words))
+        text += f" {choices}."
+        if not marked_default:
+            text += f" Omitted: {options.omitted_meaning}."
+        text += " Upper or lower case."
     return text
 
 
 def syntax(function):
-    required = [a.kind == "table" or (a.kind == "number" and a.default is None) for a in function.arguments]
+    required = [a.kind in REQUIRED_RANGE_KINDS or (a.kind == "number" and a.default is None)
+                for a in function.arguments]
     parts = [a.name if needed else f"[{a.name}]" for a, needed in zip(function.arguments, required)]
     return f"{function.name}({'; '.join(parts)})"
 
@@ -134,6 +166,12 @@ def cpp_string(text):
     return f'"{escaped}"'
 
 
+def idl_identifier(name):
+    """unoidl-write refuses underscores in identifiers: row_labels becomes rowLabels (the wizard keeps row_labels)."""
+    head, *rest = name.split("_")
+    return head + "".join(part[:1].upper() + part[1:] for part in rest)
+
+
 def idl():
     lines = [f"// {GENERATED}",
              "#include <com/sun/star/uno/XInterface.idl>",
@@ -146,7 +184,7 @@ def idl():
              f"interface {INTERFACE} : com::sun::star::uno::XInterface",
              "{"]
     for function in spec.FUNCTIONS:
-        parameters = ", ".join(f"[in] {ARGUMENT_KINDS[a.kind][0]} {a.name}" for a in function.arguments)
+        parameters = ", ".join(f"[in] {ARGUMENT_KINDS[a.kind][0]} {idl_identifier(a.name)}" for a in function.arguments)
         lines += [f"    /** {function.name}: {function.description} */",
                   f"    any {function.method}({parameters})",
                   "        raises(com::sun::star::lang::IllegalArgumentException);",
@@ -157,7 +195,7 @@ def idl():
 
 
 def adapter_parameter(argument):
-    if argument.kind == "table":
+    if argument.kind in ("table", "range", "optional_range"):
         return f"const assoc::CellGrid& {argument.name}"
     if argument.kind == "number":
         return f"double {argument.name}"
@@ -176,6 +214,7 @@ def header():
     uno_interface = "::".join(MODULE) + "::" + INTERFACE
     lines = [f"// {GENERATED}",
              "#pragma once",
+             "#include <optional>",
              "#include <string>",
              "#include <vector>",
              "",
@@ -185,10 +224,7 @@ def header():
              "#include <cppuhelper/implbase4.hxx>",
              f"#include <{'/'.join(MODULE)}/{INTERFACE}.hpp>",
              "",
-             '#include "assoc/cell.hpp"',
-             '#include "assoc/matrix.hpp"',
-             '#include "assoc/residuals.hpp"',
-             '#include "assoc/statistics.hpp"',
+             *[f'#include "{header}"' for header in core_headers()],
              '#include "function_catalog.hpp"',
              "",
              "namespace assoc::calc {",
@@ -218,13 +254,30 @@ def header():
     return "\n".join(lines)
 
 
+def core_headers():
+    """The core headers the generated header needs: cells and matrices, and the option types."""
+    headers = {"assoc/cell.hpp", "assoc/matrix.hpp"}
+    headers.update(o.include for o in option_sets() if o.include)
+    return sorted(headers)
+
+
 def words_variable(options):
-    return f"{options.name}_words"
+    return f"{options.key}_words"
+
+
+def word_value(options, word):
+    return word.cpp if not options.declare else f"{options.cpp_type}::{word.cpp}"
+
+
+def omitted_value(options):
+    return options.omitted if options.omitted is not None else word_value(options, options.words[0])
 
 
 def read_argument(argument):
-    if argument.kind == "table":
+    if argument.kind in REQUIRED_RANGE_KINDS:
         return f"to_cell_grid({argument.name})"
+    if argument.kind == "optional_range":
+        return f"to_optional_cell_grid({argument.name})"
     if argument.kind == "number":
         fallback = "std::nullopt" if argument.default is None else repr(float(argument.default))
         return f'read_number({argument.name}, "{argument.name}", {fallback})'
@@ -233,22 +286,64 @@ def read_argument(argument):
     return f"to_cell({argument.name})"
 
 
-def trial_arguments(function, option_argument, word):
+def trial_body(function, option_argument=None, word=None):
+    """C++ statements that run the adapter on ASSOC.CHECK's one range: a function with one range gets the
+    whole range, one with several gets a column each, one without ranges reads its numbers from the
+    cells; everything else takes its default (or `word` for `option_argument`)."""
+    ranges = ranges_of(function)
+    numbers = [a for a in function.arguments if a.kind == "number"]
+    name = cpp_string(function.name)
+    statements = []
+    if len(ranges) > 1:
+        statements.append(f"const auto parts = split_columns(range, {len(ranges)}, {name});")
+    if not ranges:
+        required = sum(1 for a in numbers if a.default is None)
+        names = ", ".join(cpp_string(a.name) for a in numbers)
+        statements.append(f"const auto numbers = numbers_in_range(range, {required}, {{{names}}}, {name});")
     values = []
     for argument in function.arguments:
-        if argument is option_argument:
-            values.append(word.cpp if not option_argument.options.declare
-                          else f"{option_argument.options.cpp_type}::{word.cpp}")
-        elif argument.kind == "table":
-            values.append("table")
-        elif argument.kind == "option":
-            first = argument.options.words[0]
-            values.append(first.cpp if not argument.options.declare else f"{argument.options.cpp_type}::{first.cpp}")
-        elif argument.kind == "word":
-            values.append("assoc::Cell::blank()")
-        else:
+        if argument.kind in REQUIRED_RANGE_KINDS:
+            values.append("range" if len(ranges) == 1 else f"parts[{ranges.index(argument)}]")
+        elif argument.kind == "optional_range":
+            values.append("assoc::CellGrid()")
+        elif argument.kind == "number" and ranges:
             values.append(repr(float(argument.default)))
-    return ", ".join(values)
+        elif argument.kind == "number":
+            i = numbers.index(argument)
+            values.append(f"numbers[{i}]" if argument.default is None
+                          else f"(numbers.size() > {i} ? numbers[{i}] : {float(argument.default)!r})")
+        elif argument.kind == "option":
+            values.append(word_value(argument.options, word) if argument is option_argument
+                          else omitted_value(argument.options))
+        else:
+            values.append("assoc::Cell::blank()")
+    statements.append(f"(void)cell_functions::{function.method}({', '.join(values)});")
+    return " ".join(statements)
+
+
+def trials():
+    """One entry per function with its defaults, one per option word it accepts, one per word it refuses."""
+    entries = []
+    for function in spec.FUNCTIONS:
+        if not tried_by_check(function):
+            continue
+        independence = "true" if tests_independence(function) else "false"
+        name = cpp_string(function.name)
+        lambda_of = lambda body: f"[](const assoc::CellGrid& range) {{ {body} }}"  # noqa: E731
+        entries.append(f"{{{name}, nullptr, {independence}, {name}, nullptr,\n"
+                       f"         {lambda_of(trial_body(function))}}}")
+        for argument in function.arguments:
+            if argument.kind != "option":
+                continue
+            options = argument.options
+            for i, word in enumerate(options.words):
+                same = (name if i == 0 and options.omitted is None
+                        else cpp_string(word.same_as) if word.same_as else "nullptr")
+                entries.append(f"{{{name}, {cpp_string(word.word)}, {independence}, {same}, nullptr,\n"
+                               f"         {lambda_of(trial_body(function, argument, word))}}}")
+            for word, reason in options.refused.items():
+                entries.append(f"{{{name}, {cpp_string(word)}, {independence}, nullptr, {cpp_string(reason)}, nullptr}}")
+    return entries
 
 
 def source():
@@ -264,10 +359,11 @@ def source():
              "namespace {",
              ""]
     for options in option_sets():
-        prefix = f"{options.cpp_type}::" if options.declare else ""
-        entries = ", ".join(f"{{{cpp_string(w.word)}, {prefix}{w.cpp}}}" for w in options.words)
-        lines.append(f"const OptionWords<{options.cpp_type}> {words_variable(options)}({cpp_string(options.name)}, "
-                     f"{{{entries}}});")
+        entries = ", ".join(f"{{{cpp_string(w.word)}, {word_value(options, w)}}}" for w in options.words)
+        refused = ", ".join(f"{{{cpp_string(w)}, {cpp_string(r)}}}" for w, r in options.refused.items())
+        lines.append(f"const OptionWords<{options.cpp_type}> {words_variable(options)}(")
+        lines.append(f"    {cpp_string(options.name)}, {{{entries}}},")
+        lines.append(f"    {omitted_value(options)}, {{{refused}}});")
     lines += ["", "}  // namespace", "",
               "const std::vector<FunctionInfo>& function_catalog() {",
               "    static const std::vector<FunctionInfo> catalog = {"]
@@ -278,16 +374,10 @@ def source():
         lines.append(f"         {cpp_string(function.description)},")
         lines.append(f"         {{{arguments}}}}},")
     lines += ["    };", "    return catalog;", "}", "",
-              "const std::vector<OptionTrial>& option_trials() {",
-              "    static const std::vector<OptionTrial> trials = {"]
-    for function in spec.FUNCTIONS:
-        for argument in function.arguments:
-            if argument.kind != "option":
-                continue
-            for word in argument.options.words:
-                call = f"cell_functions::{function.method}({trial_arguments(function, argument, word)})"
-                lines.append(f"        {{{cpp_string(word.word)}, {cpp_string(function.name)},")
-                lines.append(f"         [](const assoc::CellGrid& table) {{ (void){call}; }}}},")
+              "const std::vector<FunctionTrial>& function_trials() {",
+              "    static const std::vector<FunctionTrial> trials = {"]
+    for entry in trials():
+        lines.append(f"        {entry},")
     lines += ["    };", "    return trials;", "}", ""]
     for function in spec.FUNCTIONS:
         lines.append(uno_signature(function, qualified=True) + " {")
@@ -324,9 +414,14 @@ category of the other.
 - Text among the counts, negative counts, and a table with fewer than 2 rows or 2 columns holding
   counts are errors.
 
+Functions that take other ranges (records for `ASSOC.COUNTS` and `ASSOC.LEVELS`, strata, paired or
+ordered tables, a row of counts) say below what they expect; where they read counts, headers and
+blanks follow the same rules.
+
 ## Option words and errors
 
-Option words may be written in upper or lower case; an omitted option takes the first word listed.
+Option words may be written in upper or lower case; an omitted option takes the first word listed
+(where the choice depends on the table, the function says so).
 When a function cannot compute a result for its input it shows **Err:502**. `ASSOC.CHECK` with the
 same table (and the same option word) explains why in plain words. An unknown option word is such an
 error; its message lists the accepted words.
@@ -348,15 +443,20 @@ advice.
 """
 
 
+def cell(text):
+    """Text inside a Markdown table cell: a | would end the cell."""
+    return text.replace("|", "\\|")
+
+
 def docs():
     text = DOCS_INTRO.format(generated=GENERATED, count=len(spec.FUNCTIONS), category=spec.CATEGORY)
     for function in spec.FUNCTIONS:
-        text += f"| [`{syntax(function)}`](#{function.name.lower().replace('.', '')}) | {function.result} |\n"
+        text += f"| [`{syntax(function)}`](#{function.name.lower().replace('.', '')}) | {cell(function.result)} |\n"
     for function in spec.FUNCTIONS:
         text += f"\n### {function.name}\n\n`{syntax(function)}`\n\n{function.description}\n\n"
         text += "| argument | what it expects |\n|---|---|\n"
         for argument in function.arguments:
-            text += f"| `{argument.name}` | {argument_description(argument)} |\n"
+            text += f"| `{argument.name}` | {cell(argument_description(argument))} |\n"
         text += f"\n**Result:** {function.result}.\n"
         for note in function.notes:
             text += f"\n{note}\n"

@@ -1,16 +1,39 @@
 #include "assoc/report.hpp"
 
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
 #include <optional>
 #include <utility>
 
 #include "assoc/chi_squared_distribution.hpp"
+#include "assoc/cramers_v_interval.hpp"
 #include "assoc/effect_size.hpp"
+#include "assoc/error.hpp"
+#include "assoc/exact_test.hpp"
 #include "assoc/format.hpp"
+#include "assoc/residuals.hpp"
 #include "assoc/statistics.hpp"
 #include "assoc/validity.hpp"
 
 namespace assoc {
 namespace {
+
+// A figure of the report, or the reason it could not be computed (an Error's message).
+template <class Value>
+struct Attempt {
+    std::optional<Value> value;
+    std::string reason;
+};
+
+template <class Compute>
+auto attempt(Compute compute) -> Attempt<decltype(compute())> {
+    try {
+        return {compute(), {}};
+    } catch (const Error& error) {
+        return {std::nullopt, error.what()};
+    }
+}
 
 // Everything the lines are made of, computed once. A new line that needs a new figure adds
 // it here and adds itself to one of the sections below.
@@ -20,8 +43,11 @@ struct Findings {
     TestResult pearson;
     TestResult likelihood_ratio;
     std::optional<TestResult> yates;  // 2×2 tables only
+    Attempt<double> exact;            // the exact p-value, within options.exact_limits
     double critical_value;
     bool independence_rejected;
+    Attempt<CramersVInterval> v_interval;
+    Matrix adjusted_residuals;
     ValidityCheck validity;
 };
 
@@ -36,6 +62,8 @@ private:
 };
 
 std::string level(double alpha) { return format_number(100.0 * alpha, 3) + "%"; }
+
+std::string sentence(const std::string& text) { return !text.empty() && text.back() == '.' ? text : text + "."; }
 
 void add_size(const Findings& f, Lines& lines) {
     lines.number("Total count (n)", f.table.total());
@@ -57,6 +85,8 @@ void add_tests(const Findings& f, Lines& lines) {
         lines.text("Yates-corrected X²", only);
         lines.text("p-value, Yates-corrected X²", only);
     }
+    if (f.exact.value) lines.number("p-value, exact test", *f.exact.value);
+    else lines.text("p-value, exact test", "Not computed: " + sentence(f.exact.reason));
 }
 
 void add_decision(const Findings& f, Lines& lines) {
@@ -68,12 +98,63 @@ void add_decision(const Findings& f, Lines& lines) {
                                               at + " or more)");
 }
 
-void add_strength(const Findings& f, Lines& lines) { lines.number("Cramér's V", cramers_v(f.table)); }
+void add_strength(const Findings& f, Lines& lines) {
+    lines.number("Cramér's V", cramers_v(f.table));
+    const std::string lower = "Cramér's V, lower 95% limit", upper = "Cramér's V, upper 95% limit";
+    if (f.v_interval.value) {
+        lines.number(lower, f.v_interval.value->lower);
+        lines.number(upper, f.v_interval.value->upper);
+    } else {
+        lines.text(lower, "Not computed: " + sentence(f.v_interval.reason));
+        lines.text(upper, "Not computed: " + sentence(f.v_interval.reason));
+    }
+}
 
 void add_validity(const Findings& f, Lines& lines) {
     lines.number("Smallest expected count", f.validity.smallest_expected);
     lines.number("Share of cells expecting fewer than 5", f.validity.share_below_five);
     lines.text("Validity", f.validity.summary());
+}
+
+// "Sales", or "row 2" (its place in the range's body) when the table has no labels there.
+std::string side_name(const char* side, const std::vector<std::string>& labels, const std::vector<std::size_t>& kept,
+                      std::size_t index) {
+    if (index < labels.size() && !labels[index].empty()) return labels[index];
+    return std::string(side) + " " + std::to_string(kept[index] + 1);
+}
+
+std::string one_decimal(double value) {
+    char buffer[32];
+    std::snprintf(buffer, sizeof buffer, "%.1f", value);
+    return buffer;
+}
+
+// The cells furthest from independence: adjusted residuals beyond ±2 (about the 5% level each,
+// common practice), largest first, at most three named.
+void add_standouts(const Findings& f, Lines& lines) {
+    const Matrix& z = f.adjusted_residuals;
+    std::vector<std::size_t> beyond;
+    for (std::size_t i = 0; i < z.size(); ++i)
+        if (std::fabs(z.values()[i]) > 2) beyond.push_back(i);
+    std::stable_sort(beyond.begin(), beyond.end(),
+                     [&](std::size_t a, std::size_t b) { return std::fabs(z.values()[a]) > std::fabs(z.values()[b]); });
+    const std::string label = "Cells that stand out";
+    if (beyond.empty()) {
+        lines.text(label, "None: no cell's adjusted residual is beyond ±2");
+        return;
+    }
+    const std::size_t named = std::min<std::size_t>(beyond.size(), 3);
+    std::string text;
+    for (std::size_t k = 0; k < named; ++k) {
+        const std::size_t r = beyond[k] / z.columns(), c = beyond[k] % z.columns();
+        const double residual = z(r, c);
+        text += (k == 0 ? "" : "; ") + side_name("row", f.table.row_labels(), f.table.kept_rows(), r) + " × " +
+                side_name("column", f.table.column_labels(), f.table.kept_columns(), c) + ": " +
+                (residual > 0 ? "more" : "fewer") + " than expected (adjusted residual " + one_decimal(residual) + ")";
+    }
+    if (beyond.size() > named)
+        text += "; and " + format_count(static_cast<double>(beyond.size() - named)) + " more beyond ±2 (see ASSOC.RESIDUALS)";
+    lines.text(label, text);
 }
 
 // "the rows (Sales, Legal, Support)": how the conclusion names a side that has no variable name.
@@ -103,9 +184,11 @@ void add_conclusion(const Findings& f, Lines& lines) {
     text += f.independence_rejected ? rows + " and " + columns + " appear associated " + p + "."
                                     : "the data do not show an association between " + rows + " and " + columns +
                                           " " + p + ".";
-    if (f.validity.exact_test_recommended)
+    if (f.validity.exact_test_recommended) {
         text += " The chi-squared approximation is doubtful for this table (see the validity line), so this "
-                "p-value may be unreliable.";
+                "p-value may be unreliable";
+        text += f.exact.value ? "; the exact test gives p = " + format_p_value(*f.exact.value) + "." : ".";
+    }
     lines.text("Conclusion", text);
 }
 
@@ -140,11 +223,15 @@ std::vector<ReportLine> association_report(const CountTable& table, const Report
                             independence_test(table, Method::likelihood_ratio),
                             table.is_two_by_two() ? std::optional<TestResult>(independence_test(table, Method::yates))
                                                   : std::nullopt,
+                            attempt([&] { return exact_p_value(table, Side::two_sided, options.exact_limits); }),
                             critical,
                             pearson.p_value < options.alpha,
+                            attempt([&] { return cramers_v_interval(table, 0.95); }),
+                            residuals(table, ResidualKind::adjusted),
                             check_validity(table)};
     Lines lines;
-    for (auto section : {add_size, add_tests, add_decision, add_strength, add_validity, add_conclusion, add_caution})
+    for (auto section : {add_size, add_tests, add_decision, add_strength, add_validity, add_standouts, add_conclusion,
+                         add_caution})
         section(findings, lines);
     return lines.take();
 }

@@ -1,63 +1,62 @@
 // The adapters: one small function per worksheet function. Each takes the converted arguments,
 // calls the core and returns the result; the generated UNO methods (assoc_functions.cpp) do
 // the conversions and the error mapping around them. Declared in the generated header.
-#include <algorithm>
+#include <cstring>
+#include <string>
+#include <unordered_map>
 
+#include "assoc/breslow_day.hpp"
+#include "assoc/cell_p_values.hpp"
 #include "assoc/chi_squared_distribution.hpp"
 #include "assoc/count_table.hpp"
+#include "assoc/counts_from_records.hpp"
 #include "assoc/effect_size.hpp"
 #include "assoc/error.hpp"
+#include "assoc/exact_test.hpp"
 #include "assoc/expected_counts.hpp"
+#include "assoc/goodness_of_fit.hpp"
+#include "assoc/levels.hpp"
+#include "assoc/mantel_haenszel.hpp"
+#include "assoc/monte_carlo.hpp"
+#include "assoc/odds_ratio.hpp"
+#include "assoc/paired_tests.hpp"
+#include "assoc/power.hpp"
 #include "assoc/report.hpp"
-#include "assoc/validity.hpp"
+#include "assoc/risk_ratio.hpp"
+#include "assoc/selection_impact.hpp"
+#include "assoc/trend_test.hpp"
 #include "assoc_functions.hpp"
-#include "option_words.hpp"
+#include "check.hpp"
 
 namespace assoc::calc {
 namespace {
 
-std::string as_sentence(const std::string& text) {
-    return !text.empty() && text.back() == '.' ? text : text + ".";
+// A cell must not freeze the office for long, and Calc recalculates add-in cells whenever a document
+// loads: the exact test stops after a few seconds or about 350 MB of working memory (the core's own
+// defaults are 20 seconds and 1 GB), with an error that points to ASSOC.SIMULATE.
+const ExactLimits worksheet_exact_limits{5.0, 20'000'000};
+
+std::vector<double> ratio_row(const RatioEstimate& ratio) {
+    remark(ratio.remark);
+    return {ratio.estimate, ratio.lower, ratio.upper};
 }
 
-// ASSOC.CHECK's second argument: run every function that accepts the word on the table, and
-// say in words which of them fail and why. Any function's option words take part, through the
-// generated option_trials(), so a new word or function needs nothing here.
-std::string try_option_word(const CellGrid& range, const Cell& argument) {
-    std::vector<std::string> all_words;
-    for (const OptionTrial& trial : option_trials())
-        if (std::find(all_words.begin(), all_words.end(), trial.word) == all_words.end()) all_words.push_back(trial.word);
-    if (!argument.is_text())
-        return "The second argument must be an option word (" + quoted_list(all_words, "or") + "), not " +
-               argument.describe() + ".";
+// A level as a key that tells the number 5 from the text "5" and 0.1 + 0.2 from 0.3, as levels do.
+std::string level_key(const Cell& level) {
+    if (level.is_text()) return "t" + level.as_text();
+    const double number = level.as_number() + 0.0;  // -0 and 0 are one level
+    std::string key(1 + sizeof number, 'n');
+    std::memcpy(&key[1], &number, sizeof number);
+    return key;
+}
 
-    const std::string word = normalized_word(argument.as_text());
-    bool known = false;
-    std::vector<std::pair<std::string, std::vector<std::string>>> failures;  // reason → functions
-    for (const OptionTrial& trial : option_trials()) {
-        if (word != trial.word) continue;
-        known = true;
-        try {
-            trial.run(range);
-        } catch (const Error& error) {
-            const std::string reason = error.what();
-            auto same = std::find_if(failures.begin(), failures.end(), [&](const auto& f) { return f.first == reason; });
-            if (same == failures.end()) failures.push_back({reason, {trial.function}});
-            else same->second.push_back(trial.function);
-        }
-    }
-    if (!known)
-        return "\"" + argument.as_text() + "\" is not an option word of any ASSOC function; the words are " +
-               quoted_list(all_words) + ".";
-    if (failures.empty()) return "\"" + word + "\" can be used on this table.";
-    std::string text;
-    for (const auto& [reason, functions] : failures) {
-        std::string names;
-        for (std::size_t i = 0; i < functions.size(); ++i)
-            names += (i == 0 ? "" : i + 1 == functions.size() ? " and " : ", ") + functions[i];
-        text += (text.empty() ? "" : " ") + names + " with \"" + word + "\" cannot be used here: " + as_sentence(reason);
-    }
-    return text;
+// Where each level of `counted` sits among `all` (a superset in its own order).
+std::vector<std::size_t> positions(const std::vector<Cell>& counted, const std::vector<Cell>& all) {
+    std::unordered_map<std::string, std::size_t> index;
+    for (std::size_t i = 0; i < all.size(); ++i) index.emplace(level_key(all[i]), i);
+    std::vector<std::size_t> result;
+    for (const Cell& level : counted) result.push_back(index.at(level_key(level)));
+    return result;
 }
 
 }  // namespace
@@ -74,7 +73,16 @@ std::vector<double> statistic(const CellGrid& range, Method method) {
     return {result.statistic, result.df, result.p_value};
 }
 
-double pvalue(const CellGrid& range, Method method) { return independence_test(read_count_table(range), method).p_value; }
+double pvalue(const CellGrid& range, PValueMethod method) {
+    const CountTable table = read_count_table(range);
+    switch (method) {
+    case PValueMethod::pearson: return independence_test(table, Method::pearson).p_value;
+    case PValueMethod::g: return independence_test(table, Method::likelihood_ratio).p_value;
+    case PValueMethod::yates: return independence_test(table, Method::yates).p_value;
+    case PValueMethod::exact: return exact_p_value(table, Side::two_sided, worksheet_exact_limits);
+    }
+    throw Error("unknown method");
+}
 
 double df(const CellGrid& range) { return degrees_of_freedom(read_count_table(range)); }
 
@@ -97,15 +105,105 @@ double strength(const CellGrid& range, Measure measure) {
     throw Error("unknown measure");
 }
 
-std::string check(const CellGrid& range, const Cell& method) {
-    std::string verdict;
-    try {
-        verdict = check_validity(read_count_table(range)).summary();
-    } catch (const Error& error) {
-        return "Cannot use this table: " + as_sentence(error.what());
-    }
-    return method.is_blank() ? verdict : verdict + " " + try_option_word(range, method);
+double exact(const CellGrid& range, Side side) {
+    return exact_p_value(read_count_table(range), side, worksheet_exact_limits);
 }
+
+std::vector<double> simulate(const CellGrid& range, double trials, double seed, Method method) {
+    SimulationOptions options = simulation_options(trials, seed);
+    options.statistic = method;
+    const SimulationResult result = monte_carlo_test(read_count_table(range), options);
+    return {result.p_value, result.standard_error, static_cast<double>(result.trials)};
+}
+
+std::vector<double> oddsratio(const CellGrid& range, double confidence) {
+    return ratio_row(odds_ratio(read_count_table(range), confidence));
+}
+
+std::vector<double> riskratio(const CellGrid& range, double confidence) {
+    return ratio_row(risk_ratio(read_count_table(range), confidence));
+}
+
+CellGrid celltest(const CellGrid& range, PAdjustment adjust) {
+    const CountTable table = read_count_table(range);
+    const Matrix p_values = cell_p_values(table, adjust);
+    // Untested cells (set-aside rows and columns) stay blank: a 0 would read as a strong finding.
+    CellGrid cells(table.body_rows(), table.body_columns());
+    for (std::size_t r = 0; r < table.rows(); ++r)
+        for (std::size_t c = 0; c < table.columns(); ++c)
+            cells.at(table.kept_rows()[r], table.kept_columns()[c]) = Cell::number(p_values(r, c));
+    return cells;
+}
+
+std::vector<double> fit(const CellGrid& observed, const CellGrid& expected, double estimated) {
+    const GoodnessOfFit result = goodness_of_fit(observed, expected, estimated);
+    return {result.p_value, result.statistic, result.df};
+}
+
+double power(double w, double n, double df, double alpha) { return chi_squared_power(w, n, df, alpha); }
+
+double samplesize(double w, double power, double df, double alpha) {
+    return chi_squared_sample_size(w, power, df, alpha);
+}
+
+Matrix counts(const CellGrid& row_labels, const CellGrid& column_labels, const CellGrid& weights, LevelOrder order) {
+    const RecordCounts counted = counts_from_records(row_labels, column_labels, weights, order);
+    remark(counted.feedback());
+    // One row and column per label that ASSOC.LEVELS lists, also for a label whose records were all
+    // skipped (the other label blank): then the two line up and such a row is all zeros.
+    const std::vector<Cell> all_rows = distinct_levels(row_labels, order);
+    const std::vector<Cell> all_columns = distinct_levels(column_labels, order);
+    const std::vector<std::size_t> rows = positions(counted.row_levels, all_rows);
+    const std::vector<std::size_t> columns = positions(counted.column_levels, all_columns);
+    Matrix table(all_rows.size(), all_columns.size());
+    for (std::size_t r = 0; r < rows.size(); ++r)
+        for (std::size_t c = 0; c < columns.size(); ++c) table(rows[r], columns[c]) = counted.counts(r, c);
+    return table;
+}
+
+CellGrid levels(const CellGrid& labels, LevelOrder order) {
+    const std::vector<Cell> distinct = distinct_levels(labels, order);
+    CellGrid column(distinct.size(), 1);
+    for (std::size_t i = 0; i < distinct.size(); ++i) column.at(i, 0) = distinct[i];
+    return column;
+}
+
+std::vector<double> strata(const CellGrid& range, Continuity correction) {
+    const MantelHaenszelResult result = mantel_haenszel_test(range, correction);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    return {result.p_value, result.statistic, result.common_odds_ratio, result.lower, result.upper};
+}
+
+std::vector<double> homogeneity(const CellGrid& range) {
+    const HomogeneityResult result = breslow_day_test(range);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    return {result.p_value, result.statistic, result.df};
+}
+
+std::vector<double> paired(const CellGrid& range, std::optional<PairedMethod> method) {
+    const PairedResult result = paired_test(range, method);
+    return {result.p_value, result.statistic, result.df};
+}
+
+std::vector<double> trend(const CellGrid& range, const CellGrid& scores) {
+    const TrendResult result = trend_test(range, scores);
+    return {result.p_value, result.z};
+}
+
+CellGrid impact(const CellGrid& selected, const CellGrid& considered, double threshold) {
+    const SelectionImpact result = selection_impact(selected, considered, threshold);
+    remark(selection_impact_caution());
+    CellGrid rows(result.groups.size(), 3);
+    for (std::size_t i = 0; i < result.groups.size(); ++i) {
+        const GroupImpact& group = result.groups[i];
+        rows.at(i, 0) = Cell::number(group.selection_rate);
+        rows.at(i, 1) = Cell::number(group.impact_ratio);
+        if (group.below_threshold) rows.at(i, 2) = Cell::text(group.flag);
+    }
+    return rows;
+}
+
+std::string check(const CellGrid& range, const Cell& function_or_word) { return check_range(range, function_or_word); }
 
 CellGrid report(const CellGrid& range, double alpha) {
     const CountTable table = read_count_table(range);

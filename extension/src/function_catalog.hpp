@@ -1,7 +1,10 @@
 #pragma once
 // What the generated part of the add-in (assoc_functions.cpp, from extension/functions.py) tells the
-// hand-written part: the names and wizard texts of every function, and the option words that
-// ASSOC.CHECK can try on a table.
+// hand-written part: the names and wizard texts of every function, and the trials with which
+// ASSOC.CHECK runs any function on a range; and what the trials need from the hand-written part.
+#include <cstddef>
+#include <initializer_list>
+#include <string>
 #include <vector>
 
 #include "assoc/cell.hpp"
@@ -20,15 +23,48 @@ struct FunctionInfo {
     std::vector<ArgumentInfo> arguments;
 };
 
-// One option word of one function, with a way to run that function on a table with that word
-// (its other arguments at their defaults). ASSOC.CHECK uses it to say why a choice fails.
-struct OptionTrial {
-    const char* word;
-    const char* function;  // display name
-    void (*run)(const CellGrid& table);
+// One way to run one function on ASSOC.CHECK's range: with all its defaults (word is nullptr), or
+// with one of its option words (its other arguments at their defaults). ASSOC.CHECK uses them to
+// say why a function or a choice fails on a range.
+struct FunctionTrial {
+    const char* function;     // display name
+    const char* word;         // the option word tried; nullptr: the function with its defaults
+    bool tests_independence;  // its first argument is a table of counts for the tests of independence
+    // The display name of the function whose run with all its defaults this run is (the function
+    // itself for no word or the word that omitting gives; ASSOC.EXACT for ASSOC.PVALUE with "exact"),
+    // so that ASSOC.CHECK runs it once; nullptr: a run of its own.
+    const char* same_run_as;
+    const char* refusal;      // a word the function refuses on purpose: why (and run is nullptr)
+    void (*run)(const CellGrid& range);
 };
 
 const std::vector<FunctionInfo>& function_catalog();
-const std::vector<OptionTrial>& option_trials();
+const std::vector<FunctionTrial>& function_trials();
+
+// For the trials of functions that take several ranges: the range's columns, one per range
+// argument (an error unless it has exactly `count` columns).
+std::vector<CellGrid> split_columns(const CellGrid& range, std::size_t count, const char* function);
+// For the trials of functions that take only numbers: the numbers of a single row or column,
+// at least `required` of them and at most one per name.
+std::vector<double> numbers_in_range(const CellGrid& range, std::size_t required,
+                                     std::initializer_list<const char*> names, const char* function);
+
+// Sentences an adapter has to say about its input besides its result (a correction it applied,
+// records it skipped). While a RemarkCollector exists on the thread (ASSOC.CHECK trying a
+// function), remark() keeps them; otherwise they are dropped.
+void remark(const std::string& sentence);
+
+class RemarkCollector {
+public:
+    RemarkCollector();
+    ~RemarkCollector();
+    RemarkCollector(const RemarkCollector&) = delete;
+    RemarkCollector& operator=(const RemarkCollector&) = delete;
+    const std::vector<std::string>& remarks() const { return remarks_; }
+
+private:
+    std::vector<std::string> remarks_;
+    std::vector<std::string>* outer_;
+};
 
 }  // namespace assoc::calc

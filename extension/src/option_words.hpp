@@ -1,6 +1,7 @@
 #pragma once
-// Option words ("pearson", "g", "yates"...): read case-insensitively, the first word is the
-// default, and an unknown word is an error that lists the accepted ones.
+// Option words ("pearson", "g", "yates"...): read case-insensitively; an omitted word gives the
+// omitted value (usually the first word's), a word of another function that the argument refuses
+// on purpose is an error with its reason, and an unknown word an error that lists the accepted ones.
 #include <com/sun/star/uno/Any.hxx>
 #include <initializer_list>
 #include <string>
@@ -20,22 +21,28 @@ std::string normalized_word(const std::string& text);
 template <class Value>
 class OptionWords {
 public:
-    OptionWords(std::string what, std::initializer_list<std::pair<const char*, Value>> words)
-        : what_(std::move(what)), words_(words.begin(), words.end()) {}
+    // `omitted`: the value of an omitted argument (usually the first word's). `refused`: words of
+    // other functions that this argument turns down with a reason rather than as unknown.
+    OptionWords(std::string what, std::initializer_list<std::pair<const char*, Value>> words, Value omitted,
+                std::initializer_list<std::pair<const char*, const char*>> refused = {})
+        : what_(std::move(what)), words_(words.begin(), words.end()), omitted_(std::move(omitted)),
+          refused_(refused.begin(), refused.end()) {}
 
-    // The value of an optional option argument: omitted or empty text gives the first word's value.
+    // The value of an optional option argument: omitted or empty text gives the omitted value.
     Value read(const css::uno::Any& argument) const {
         const Cell cell = to_cell(argument);
-        if (cell.is_blank()) return words_.front().second;
+        if (cell.is_blank()) return omitted_;
         require(cell.is_text(), "the " + what_ + " must be one of the words " + accepted() + ", not " + cell.describe());
         return parse(cell.as_text());
     }
 
     Value parse(const std::string& text) const {
         const std::string word = normalized_word(text);
-        if (word.empty()) return words_.front().second;
+        if (word.empty()) return omitted_;
         for (const auto& [known, value] : words_)
             if (word == known) return value;
+        for (const auto& [turned_down, reason] : refused_)
+            if (word == turned_down) throw Error("the " + what_ + " \"" + text + "\" cannot be used here: " + reason);
         throw Error("the " + what_ + " \"" + text + "\" is unknown; the accepted words are " + accepted());
     }
 
@@ -48,6 +55,8 @@ private:
 
     std::string what_;
     std::vector<std::pair<const char*, Value>> words_;
+    Value omitted_;
+    std::vector<std::pair<const char*, const char*>> refused_;
 };
 
 }  // namespace assoc::calc

@@ -65,6 +65,15 @@ CellGrid to_cell_grid(const AnyTable& range) {
     return grid;
 }
 
+CellGrid to_optional_cell_grid(const Any& argument) {
+    if (!argument.hasValue()) return CellGrid();
+    AnyTable range;
+    if (argument >>= range) return to_cell_grid(range);
+    CellGrid single(1, 1);
+    single.at(0, 0) = to_cell(argument);
+    return single;
+}
+
 double read_number(const Any& argument, const char* name, std::optional<double> fallback) {
     const Cell cell = to_cell(argument);
     if (cell.is_blank() && fallback) return *fallback;

@@ -25,6 +25,9 @@ std::string to_utf8(const OUString& text);
 
 // A range as Calc passes it to an any[][] argument: numbers, texts, and blanks as empty texts.
 CellGrid to_cell_grid(const AnyTable& range);
+// An optional range (an `any` argument): omitted gives an empty grid, a range arrives as an
+// any[][] array, and a single cell or value as itself (a 1×1 grid).
+CellGrid to_optional_cell_grid(const css::uno::Any& argument);
 // One value from Calc (a scalar argument or a cell of a range): omitted (void) and empty text
 // are blank, booleans are 1 or 0.
 Cell to_cell(const css::uno::Any& value);

@@ -64,9 +64,11 @@ TEST(AssociationReport, ListsItsLinesInAFixedOrder) {
     EXPECT_EQ(labels, (std::vector<std::string>{
                           "Total count (n)", "Rows with counts", "Columns with counts", "Degrees of freedom",
                           "Pearson X²", "p-value, Pearson X²", "Likelihood-ratio G²", "p-value, G²",
-                          "Yates-corrected X²", "p-value, Yates-corrected X²", "Critical X² at 5%", "Decision at 5%",
-                          "Cramér's V", "Smallest expected count", "Share of cells expecting fewer than 5",
-                          "Validity", "Conclusion", "Caution"}));
+                          "Yates-corrected X²", "p-value, Yates-corrected X²", "p-value, exact test",
+                          "Critical X² at 5%", "Decision at 5%", "Cramér's V", "Cramér's V, lower 95% limit",
+                          "Cramér's V, upper 95% limit", "Smallest expected count",
+                          "Share of cells expecting fewer than 5", "Validity", "Cells that stand out", "Conclusion",
+                          "Caution"}));
 }
 
 TEST(AssociationReport, GivesTheSizesOfTheAgrestiPartyTable) {
@@ -105,7 +107,7 @@ TEST(AssociationReport, TakesTheCriticalValueAtTheGivenAlpha) {
     // NIST/SEMATECH e-Handbook 1.3.6.7.4: df 2, upper tail 0.01 → 9.210; scipy 1.10.1 chi2.isf.
     const auto lines = report_of(party_range(""), 0.01);
     EXPECT_NEAR_REL(number(lines, "Critical X² at 1%"), 9.210340371976182, 1e-12);
-    EXPECT_EQ(lines[11].label, "Decision at 1%");
+    EXPECT_EQ(lines[12].label, "Decision at 1%");
 }
 
 TEST(AssociationReport, RejectsIndependenceWhenThePValueIsBelowAlpha) {
@@ -159,7 +161,67 @@ TEST(AssociationReport, SaysWhenNoAssociationIsShownAndWarnsWhenTheApproximation
     EXPECT_EQ(text(association_report(tea_table()), "Conclusion"),
               "At the 5% level, the data do not show an association between the rows and the columns (p = 0.157). "
               "The chi-squared approximation is doubtful for this table (see the validity line), so this p-value "
-              "may be unreliable.");
+              "may be unreliable; the exact test gives p = 0.486.");
+}
+
+TEST(AssociationReport, GivesTheExactPValueOfTheTeaTable) {
+    // Fisher (1935) via R's ?fisher.test (references.md section 2): two-sided p = 34/70.
+    EXPECT_NEAR_REL(number(association_report(tea_table()), "p-value, exact test"), 34.0 / 70.0, 1e-12);
+}
+
+TEST(AssociationReport, GivesTheExactPValueOfTheAgrestiPartyTable) {
+    // R 4.2.2 fisher.test(workspace = 2e8): 3.0274798063936933e-07 (tests/calc/make_reference_values.py).
+    EXPECT_NEAR_REL(number(report_of(party_range("")), "p-value, exact test"), 3.0274798063936933e-07, 1e-8);
+}
+
+TEST(AssociationReport, SaysWhyTheExactTestStoppedAtItsLimitsAndPointsToTheSimulation) {
+    ReportOptions options;
+    options.exact_limits = ExactLimits{2.0, 10};  // far too little for any 3×3 table
+    const auto lines = association_report(read_count_table(grid({{5, 3, 2}, {4, 6, 1}, {2, 2, 7}})), options);
+    EXPECT_EQ(text(lines, "p-value, exact test"),
+              "Not computed: the exact test for this table needs more memory than allowed (the limit is 2 seconds "
+              "and 10 stored values); use ASSOC.SIMULATE for a Monte Carlo p-value instead.");
+}
+
+TEST(AssociationReport, SaysWeightedCountsHaveNoExactPValue) {
+    const auto lines = association_report(read_count_table(grid({{3.5, 1}, {1, 3}})));
+    EXPECT_EQ(text(lines, "p-value, exact test"),
+              "Not computed: the exact test needs whole counts; this table holds counts that are not whole numbers.");
+    EXPECT_EQ(text(lines, "Conclusion").find("the exact test gives"), std::string::npos);
+}
+
+TEST(AssociationReport, GivesTheNinetyFivePercentLimitsOfCramersV) {
+    // scipy 1.10.1: λ with ncx2.sf(X², 2, λ) = 0.025 and 0.975 (brentq), V = √(λ / 2757)
+    // (tests/calc/make_reference_values.py, "party_v_interval").
+    const auto lines = report_of(party_range(""));
+    EXPECT_NEAR_REL(number(lines, "Cramér's V, lower 95% limit"), 0.06490741810255518, 1e-9);
+    EXPECT_NEAR_REL(number(lines, "Cramér's V, upper 95% limit"), 0.14026390466568625, 1e-9);
+}
+
+TEST(AssociationReport, NamesTheCellsThatStandOutByTheirLabels) {
+    // Agresti (2007) section 2.4.5 (R's ?chisq.test): adjusted residuals 4.50, 0.70, −5.32 for
+    // females and the opposite for males; ties keep the order of the table.
+    EXPECT_EQ(text(report_of(party_range("")), "Cells that stand out"),
+              "Females × Republican: fewer than expected (adjusted residual -5.3); "
+              "Males × Republican: more than expected (adjusted residual 5.3); "
+              "Females × Democrat: more than expected (adjusted residual 4.5); "
+              "and 1 more beyond ±2 (see ASSOC.RESIDUALS)");
+}
+
+TEST(AssociationReport, NamesCellsByPositionWithoutLabelsAndCountsTheRest) {
+    // Invented; statsmodels 0.13.5 Table.standardized_resids: 6.8465 on the diagonal, −3.4233 elsewhere.
+    const auto lines = association_report(read_count_table(grid({{30, 5, 5}, {5, 30, 5}, {5, 5, 30}})));
+    EXPECT_EQ(text(lines, "Cells that stand out"),
+              "row 1 × column 1: more than expected (adjusted residual 6.8); "
+              "row 2 × column 2: more than expected (adjusted residual 6.8); "
+              "row 3 × column 3: more than expected (adjusted residual 6.8); "
+              "and 6 more beyond ±2 (see ASSOC.RESIDUALS)");
+}
+
+TEST(AssociationReport, SaysWhenNoCellStandsOut) {
+    // Tea table: every adjusted residual is ±√2 (exact identity: (O − E)/√(E·½·½) with O − E = ±1, E = 2).
+    EXPECT_EQ(text(association_report(tea_table()), "Cells that stand out"),
+              "None: no cell's adjusted residual is beyond ±2");
 }
 
 TEST(AssociationReport, EndsWithACautionAboutCauseDiscriminationAndAdvice) {

@@ -7,6 +7,7 @@
 
 #include "assoc/cell.hpp"
 #include "assoc/count_table.hpp"
+#include "assoc/exact_test.hpp"
 
 namespace assoc {
 
@@ -25,13 +26,17 @@ struct VariableNames {
 struct ReportOptions {
     double alpha = 0.05;  // significance level of the decision and the critical value
     VariableNames variables;
+    // The exact test runs on every recalculation of the report, so it gets a short leash; past it
+    // the line says why it was not computed (ASSOC.EXACT allows the full limits).
+    ExactLimits exact_limits{2.0, 5'000'000};
 };
 
 // The lines, always the same ones in the same order so that a sheet can refer to them by
 // position: total, rows, columns, df; Pearson X², G² and Yates X² each with its p-value (the
-// Yates lines say so when the table is not 2×2); critical value and decision at alpha;
-// Cramér's V; smallest expected count and share of cells below 5; validity verdict;
-// conclusion in words; caution.
+// Yates lines say so when the table is not 2×2); the exact p-value (or why it was not computed);
+// critical value and decision at alpha; Cramér's V with its 95% confidence limits; smallest
+// expected count and share of cells below 5; validity verdict; the cells that stand out (at most
+// 3 with adjusted residuals beyond ±2, named by their labels); conclusion in words; caution.
 std::vector<ReportLine> association_report(const CountTable& table, const ReportOptions& options = {});
 
 // The variable names in the corner cell of a range that has a header row and a header column:
