@@ -210,6 +210,7 @@ public:
                                 target.merge_at = std::max<std::size_t>(4096, 2 * target.pasts.size());
                             }
                             count_stored(0);
+                            if ((work_ += end - first) > next_time_check_) check_time();
                         });
                 }
                 stored_ -= held;
@@ -227,7 +228,7 @@ private:
     // columns before the meeting stage, the lists with the columns after it; with few rows the
     // lists stay short enough to take more columns. The rule was tuned on the bench suite.
     std::size_t backward_columns() const {
-        if (row_count_ == 2) return std::max<std::size_t>(2, (columns_.size() + 1) / 3);
+        if (row_count_ == 2) return std::clamp<std::size_t>((columns_.size() + 1) / 3, 2, 5);
         if (row_count_ <= 4 && columns_.size() >= 8) return 3;
         return 2;
     }
@@ -432,7 +433,7 @@ private:
         auto& memo = futures_[k - meeting_];
         if (auto found = memo.find(node); found != memo.end()) return found->second;
         std::vector<Past> values = k + 2 == columns_.size() ? last_two_columns(node) : combined_futures(k, node);
-        work_ += values.size();
+        if ((work_ += values.size()) > next_time_check_) check_time();
         merge_equal_values(values);
         FutureList list;
         list.log_values.reserve(values.size());
@@ -508,7 +509,7 @@ private:
     }
 
     void check_time() {
-        next_time_check_ = work_ + (1u << 16);
+        next_time_check_ = work_ + (1u << 12);  // the clock is cheap; check often so limits hold closely
         const double seconds = std::chrono::duration<double>(Clock::now() - start_).count();
         if (seconds > limits_.max_seconds) fail("time");
     }
@@ -538,7 +539,7 @@ private:
     std::vector<unsigned> rows_, capacity_, fill_, child_;
     std::vector<NodeKey> pending_;
     std::size_t stored_ = 0;
-    unsigned long long work_ = 0, next_time_check_ = 1u << 16;
+    unsigned long long work_ = 0, next_time_check_ = 1u << 12;
     LogSum result_;
 };
 

@@ -70,11 +70,14 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
                 ++table.blank_cells_;
                 continue;
             }
-            const std::string where = cell_name(range_row, range_column) + " holds " + cell.describe();
-            require(cell.is_number(), where + "; counts must be numbers");
+            // The message is built only on failure: tables can have a million cells.
+            auto fail = [&](const char* reason) {
+                throw Error(cell_name(range_row, range_column) + " holds " + cell.describe() + reason);
+            };
+            if (!cell.is_number()) fail("; counts must be numbers");
             const double value = cell.as_number();
-            require(std::isfinite(value), where + "; counts must be ordinary numbers");
-            require(value >= 0, where + "; counts cannot be negative");
+            if (!std::isfinite(value)) fail("; counts must be ordinary numbers");
+            if (value < 0) fail("; counts cannot be negative");
             body(r, c) = value;
         }
     }

@@ -1,0 +1,27 @@
+#!/usr/bin/env bash
+# The bench command: speed figures and ratios (never part of the tests).
+#   1. the exact test against R's fisher.test on bench/exact_suite.txt (R is only a yardstick);
+#   2. counting raw records in the core (ns per record, growth with the number of levels);
+#   3. ASSOC.COUNTS in real Calc against the cost of handing the ranges to any add-in, and
+#      against a COUNTIFS grid.
+# Installs what it needs (R for step 1), builds in build/, prints everything to the terminal.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+scripts/install-deps.sh --bench
+cmake -S . -B build -DCMAKE_BUILD_TYPE=RelWithDebInfo
+cmake --build build -j2 --target exact_bench counts_bench
+mkdir -p build/bench
+
+echo "== 1. Exact test: Assoc vs R fisher.test (R timings first, about 6 minutes)"
+Rscript bench/exact_reference.R bench/exact_suite.txt > build/bench/exact_r.csv
+build/bench/exact_bench bench/exact_suite.txt build/bench/exact_r.csv
+
+echo
+echo "== 2. Counting 1,000,000 raw records in the core"
+build/bench/counts_bench
+
+if [ -x bench/calc/run.sh ]; then
+  echo
+  echo "== 3. ASSOC.COUNTS in headless Calc"
+  bench/calc/run.sh build
+fi
