@@ -5,6 +5,7 @@
 #include <gtest/gtest.h>
 
 #include "assoc/breslow_day.hpp"
+#include "published_tables.hpp"
 #include "test_support.hpp"
 #include "workflow_r_values.hpp"
 #include "workflow_statsmodels_values.hpp"
@@ -15,12 +16,7 @@ using assoc::test::grid;
 namespace sm = assoc::reference::statsmodels_values;
 namespace r = assoc::reference::r_values;
 
-namespace {
-CellGrid admissions() {
-    return grid({{512, 313, 89, 19}, {353, 207, 17, 8}, {120, 205, 202, 391},
-                 {138, 279, 131, 244}, {53, 138, 94, 299}, {22, 351, 24, 317}});
-}
-}  // namespace
+using assoc::test::published::admissions;
 
 TEST(BreslowDay, MatchesTheTaroneCorrectedStatistic) {
     const HomogeneityResult result = breslow_day_test(admissions());

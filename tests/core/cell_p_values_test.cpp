@@ -3,6 +3,7 @@
 
 #include "assoc/cell_p_values.hpp"
 #include "small_sample_values.hpp"
+#include "published_tables.hpp"
 #include "test_support.hpp"
 
 using namespace assoc;
@@ -10,9 +11,9 @@ using assoc::test::expect_error;
 using assoc::test::table;
 namespace ref = assoc::reference;
 
+using assoc::test::published::party;
+
 namespace {
-// Agresti (2007) gender × party identification (references.md section 3; counts read in R's ?chisq.test).
-CountTable party() { return table({{762, 327, 468}, {484, 239, 477}}); }
 
 void expect_cells(const Matrix& p, const double (&expected)[6], double tolerance) {
     ASSERT_EQ(p.rows(), 2u);

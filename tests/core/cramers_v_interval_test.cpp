@@ -4,6 +4,7 @@
 #include "assoc/cramers_v_interval.hpp"
 #include "assoc/effect_size.hpp"
 #include "small_sample_values.hpp"
+#include "published_tables.hpp"
 #include "test_support.hpp"
 
 using namespace assoc;
@@ -14,9 +15,9 @@ namespace ref = assoc::reference;
 // Reference values: mpmath 1.2.1 at 50 digits (Poisson mixture + findroot), with scipy 1.10.1
 // ncx2.sf + brentq agreeing to about 1e-15 (small_sample_generate.py).
 
+using assoc::test::published::party;
+
 namespace {
-// Agresti (2007) gender × party identification (references.md section 3).
-CountTable party() { return table({{762, 327, 468}, {484, 239, 477}}); }
 // Invented: training course taken by job level at a fictional firm.
 CountTable training() { return table({{25, 12, 8}, {10, 20, 9}, {6, 11, 24}}); }
 }  // namespace

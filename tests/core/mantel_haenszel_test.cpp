@@ -5,6 +5,7 @@
 #include <gtest/gtest.h>
 
 #include "assoc/mantel_haenszel.hpp"
+#include "published_tables.hpp"
 #include "test_support.hpp"
 #include "workflow_r_values.hpp"
 #include "workflow_statsmodels_values.hpp"
@@ -15,26 +16,8 @@ using assoc::test::grid;
 namespace sm = assoc::reference::statsmodels_values;
 namespace r = assoc::reference::r_values;
 
-namespace {
-
-// Departments A–F; per stratum men admitted, men rejected, women admitted, women rejected.
-CellGrid admissions() {
-    return grid({{"", "men admitted", "men rejected", "women admitted", "women rejected"},
-                 {"A", 512, 313, 89, 19},
-                 {"B", 353, 207, 17, 8},
-                 {"C", 120, 205, 202, 391},
-                 {"D", 138, 279, 131, 244},
-                 {"E", 53, 138, 94, 299},
-                 {"F", 22, 351, 24, 317}});
-}
-
-// The same departments as 2×2 tables stacked one below the other.
-CellGrid admissions_stacked() {
-    return grid({{512, 313}, {89, 19}, {353, 207}, {17, 8}, {120, 205}, {202, 391},
-                 {138, 279}, {131, 244}, {53, 138}, {94, 299}, {22, 351}, {24, 317}});
-}
-
-}  // namespace
+using assoc::test::published::admissions;
+using assoc::test::published::admissions_stacked;
 
 TEST(MantelHaenszel, MatchesTheCorrectedStatisticOfStatsmodelsAndR) {
     const MantelHaenszelResult result = mantel_haenszel_test(admissions());

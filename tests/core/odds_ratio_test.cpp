@@ -4,6 +4,7 @@
 #include "assoc/odds_ratio.hpp"
 #include "assoc/validity.hpp"
 #include "small_sample_values.hpp"
+#include "published_tables.hpp"
 #include "test_support.hpp"
 
 using namespace assoc;
@@ -11,11 +12,7 @@ using assoc::test::expect_error;
 using assoc::test::table;
 namespace ref = assoc::reference;
 
-namespace {
-// Physicians' Health Study, Agresti (2007) Table 2.3 (from memory; references.md section 10):
-// rows placebo, aspirin; columns myocardial infarction yes, no.
-CountTable aspirin() { return table({{189, 10845}, {104, 10933}}); }
-}  // namespace
+using assoc::test::published::aspirin;
 
 TEST(OddsRatio, MatchesTheAspirinTableEstimateAndWoolfInterval) {
     // statsmodels 0.13.5 Table2x2 (small_sample_values.hpp); Agresti prints 1.83 (1.44, 2.33).

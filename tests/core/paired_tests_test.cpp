@@ -6,6 +6,7 @@
 #include <gtest/gtest.h>
 
 #include "assoc/paired_tests.hpp"
+#include "published_tables.hpp"
 #include "test_support.hpp"
 #include "workflow_r_values.hpp"
 #include "workflow_statsmodels_values.hpp"
@@ -16,8 +17,9 @@ using assoc::test::grid;
 namespace sm = assoc::reference::statsmodels_values;
 namespace r = assoc::reference::r_values;
 
+using assoc::test::published::approval;
+
 namespace {
-CellGrid approval() { return grid({{"", "approve", "disapprove"}, {"approve", 794, 150}, {"disapprove", 86, 570}}); }
 // Invented: the same staff's appraisal (below / meets / exceeds) in two consecutive years.
 CellGrid ratings() { return grid({{24, 14, 6}, {4, 41, 15}, {1, 5, 19}}); }
 }  // namespace

@@ -3,6 +3,7 @@
 
 #include "assoc/risk_ratio.hpp"
 #include "small_sample_values.hpp"
+#include "published_tables.hpp"
 #include "test_support.hpp"
 
 using namespace assoc;
@@ -10,10 +11,7 @@ using assoc::test::expect_error;
 using assoc::test::table;
 namespace ref = assoc::reference;
 
-namespace {
-// Physicians' Health Study, Agresti (2007) Table 2.3 (from memory; references.md section 10).
-CountTable aspirin() { return table({{189, 10845}, {104, 10933}}); }
-}  // namespace
+using assoc::test::published::aspirin;
 
 TEST(RiskRatio, MatchesTheAspirinTableEstimateAndLogInterval) {
     // statsmodels 0.13.5 Table2x2.riskratio / riskratio_confint; Agresti prints RR 1.82.

@@ -5,6 +5,7 @@
 #include <gtest/gtest.h>
 
 #include "assoc/trend_test.hpp"
+#include "published_tables.hpp"
 #include "test_support.hpp"
 #include "workflow_r_values.hpp"
 #include "workflow_statsmodels_values.hpp"
@@ -15,14 +16,10 @@ using assoc::test::grid;
 namespace sm = assoc::reference::statsmodels_values;
 namespace r = assoc::reference::r_values;
 
+using assoc::test::published::alcohol;
+using assoc::test::published::alcohol_scores;
+
 namespace {
-// Malformation present / absent (rows) by drinks per day (columns), scores 0, 0.5, 1.5, 4, 7.
-CellGrid alcohol() {
-    return grid({{"", "0", "<1", "1-2", "3-5", ">=6"},
-                 {"present", 48, 38, 5, 1, 1},
-                 {"absent", 17066, 14464, 788, 126, 37}});
-}
-CellGrid alcohol_scores() { return grid({{0, 0.5, 1.5, 4.0, 7.0}}); }
 // Invented: staff promoted / not promoted (columns) by training sessions attended (rows, 0–3).
 CellGrid training() { return grid({{4, 36}, {7, 33}, {11, 29}, {15, 25}}); }
 }  // namespace
