@@ -42,7 +42,9 @@ ValidityCheck check_validity(const CountTable& table) {
     }
     check.share_below_five = static_cast<double>(check.cells_below_five) / static_cast<double>(check.cells);
     check.cochran_rule_met = !check.any_below_one && check.share_below_five <= 0.2;
-    check.exact_test_recommended = !check.cochran_rule_met || (table.is_two_by_two() && check.cells_below_five > 0);
+    // In a 2×2 table one cell below 5 is already 25% of the cells, so Cochran's rule also gives the
+    // usual advice for 2×2 tables: any expected count below 5 calls for the exact test.
+    check.exact_test_recommended = !check.cochran_rule_met;
     check.blank_cells = table.blank_cells();
     check.whole_counts = table.whole_counts();
     check.set_aside_rows = table.set_aside_rows();
@@ -64,11 +66,8 @@ std::string ValidityCheck::summary() const {
         text = "Doubtful: " + smallest + ", and " + format_count(static_cast<double>(cells_below_five)) + " of " +
                format_count(static_cast<double>(cells)) + " cells (" +
                format_number(100.0 * share_below_five, 3) + "%) expect fewer than 5";
-        if (cochran_rule_met)
-            text += "; in a 2×2 table any expected count below 5 makes the chi-squared p-value unreliable.";
-        else
-            text += std::string("; Cochran's rule asks for none below 1 and at most 20% below 5") +
-                    (any_below_one ? " (some cells expect fewer than 1)." : ".");
+        text += std::string("; Cochran's rule asks for none below 1 and at most 20% below 5") +
+                (any_below_one ? " (some cells expect fewer than 1)." : ".");
         text += whole_counts ? " Use the exact test (ASSOC.EXACT) or a simulated p-value (ASSOC.SIMULATE) instead."
                              : " Combine sparse categories or collect more data.";
     }
