@@ -25,8 +25,9 @@ result; then the formulas are removed again. Each kind is measured once per roun
 take turns within a round, so that load from other work on the machine spreads over all of them;
 after one untimed warm-up of each kind, --rounds rounds are timed (the COUNTIFS grid, seconds a
 time, only in the first --countifs-rounds) and the median is reported. The
-office's CPU time over the same calls (all its threads, from /proc) is reported beside the wall
-time: it is less disturbed by other processes, and shows whether Calc used more than one thread.
+office's CPU time over the same calls (utime + stime of its processes, all threads, from /proc; in
+clock ticks of 10 ms) is reported beside the wall time: it is less disturbed by other processes on
+a shared machine, and shows whether Calc used more than one thread.
 calculateAll of the document with no formulas is timed too (the overhead in every figure).
 
 Checks: the floor returns 2 × records; the ASSOC.COUNTS table equals the COUNTIFS table, and adds
@@ -52,6 +53,7 @@ GOAL = 1.2  # COUNTS / floor
 SHAPES = [(5, 4), (10, 10), (100, 50)]
 COUNTIFS_MAX_CELLS = 100  # larger COUNTIFS grids are estimated, not run
 FILL_CHUNK = 100_000
+CLOCK_TICKS = os.sysconf("SC_CLK_TCK")  # units of utime and stime in /proc/PID/stat
 
 
 class BenchOffice(assoc_office.ThrowawayOffice):
@@ -70,20 +72,19 @@ class BenchOffice(assoc_office.ThrowawayOffice):
             super()._install_extension()
 
     def cpu_seconds(self):
-        """CPU time of the office (soffice.bin and any other process of its group, all threads)."""
+        """CPU time of the office's processes (utime + stime, which include threads that have ended)."""
         total = 0
         for entry in os.listdir("/proc"):
             if not entry.isdigit():
                 continue
             try:
-                if os.getpgid(int(entry)) != self.process.pid:
-                    continue
-                for task in os.listdir(f"/proc/{entry}/task"):
-                    with open(f"/proc/{entry}/task/{task}/schedstat") as stat:
-                        total += int(stat.read().split()[0])
-            except (OSError, ValueError):
-                continue  # a process or thread that ended meanwhile
-        return total / 1e9
+                with open(f"/proc/{entry}/stat") as stat:
+                    fields = stat.read().rsplit(")", 1)[1].split()
+            except OSError:
+                continue  # a process that ended meanwhile
+            if int(fields[2]) == self.process.pid:  # its process group
+                total += int(fields[11]) + int(fields[12])
+        return total / CLOCK_TICKS
 
 
 def column_name(index):
@@ -201,8 +202,8 @@ def main():
     parser = argparse.ArgumentParser(description=__doc__.split("\n", 1)[0])
     parser.add_argument("--build", default=str(ROOT / "build"), help="the CMake build folder")
     parser.add_argument("--records", type=int, default=1_000_000)
-    parser.add_argument("--rounds", type=int, default=5, help="timed rounds (median reported)")
-    parser.add_argument("--countifs-rounds", type=int, default=3,
+    parser.add_argument("--rounds", type=int, default=7, help="timed rounds (median reported)")
+    parser.add_argument("--countifs-rounds", type=int, default=2,
                         help="timed rounds of the COUNTIFS grid (seconds each; its ratio needs no more)")
     arguments = parser.parse_args()
     build = pathlib.Path(arguments.build).resolve()
@@ -312,11 +313,15 @@ def report(results, records, rounds, countifs_rounds, failures, seconds):
         print("CHECKS FAILED:")
         for failure in failures:
             print(f"  {failure}")
+    cpu_ratios = {label: result["cpu"]["counts"] / result["cpu"]["floor"] for label, result in results.items()}
+    cpu_worst = max(cpu_ratios, key=cpu_ratios.get)
     verdict = "PASS" if ratios[worst] <= GOAL else "MISS"
     detail = (f"worst {ratios[worst]:.2f}× at {worst}" if verdict == "PASS" else
               f"worst {ratios[worst]:.2f}× at {worst}, {(ratios[worst] / GOAL - 1) * 100:.0f}% over the goal "
               f"({results[worst]['wall']['counts'] - GOAL * results[worst]['wall']['floor']:.3f} s too slow)")
     print(f"{verdict}: ASSOC.COUNTS ≤ {GOAL}× the transfer floor at every level count ({detail})")
+    print(f"      (by office CPU time instead of wall time: worst {cpu_ratios[cpu_worst]:.2f}× at {cpu_worst}, "
+          f"{'within' if cpu_ratios[cpu_worst] <= GOAL else 'over'} the goal)")
     print(f"(bench took {seconds:.0f} s)")
 
 
