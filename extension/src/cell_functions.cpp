@@ -149,6 +149,9 @@ double samplesize(double w, double power, double df, double alpha) {
 Matrix counts(const CellGrid& row_labels, const CellGrid& column_labels, const CellGrid& weights, LevelOrder order) {
     const RecordCounts counted = counts_from_records(row_labels, column_labels, weights, order);
     remark(counted.feedback());
+    // When no record was skipped, the counted levels are all the labels there are, in the same order:
+    // the table is complete, and the two passes over the labels below are not needed.
+    if (counted.skipped_blank == 0) return counted.counts;
     // One row and column per label that ASSOC.LEVELS lists, also for a label whose records were all
     // skipped (the other label blank): then the two line up and such a row is all zeros.
     const std::vector<Cell> all_rows = distinct_levels(row_labels, order);

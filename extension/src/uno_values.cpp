@@ -1,6 +1,8 @@
 #include "uno_values.hpp"
 
+#include <array>
 #include <cmath>
+#include <cstdint>
 #include <rtl/string.hxx>
 #include <rtl/ustring.hxx>
 
@@ -17,8 +19,10 @@ Cell to_cell(const Any& value) {
     switch (value.getValueTypeClass()) {
     case TypeClass::TypeClass_VOID: return Cell::blank();
     case TypeClass::TypeClass_STRING: {
-        const std::string text = to_utf8(value.get<OUString>());
-        return text.empty() ? Cell::blank() : Cell::text(text);
+        // Read in place (an Any of type string holds exactly an OUString): this runs once per cell
+        // of every range, a million times for ASSOC.COUNTS on a million records.
+        const OUString& text = *static_cast<const OUString*>(value.getValue());
+        return text.isEmpty() ? Cell::blank() : Cell::text(to_utf8(text));
     }
     case TypeClass::TypeClass_BOOLEAN: return Cell::number(value.get<bool>() ? 1.0 : 0.0);
     default: {
@@ -43,9 +47,44 @@ OUString to_ou_string(const std::string& utf8) {
 }
 
 std::string to_utf8(const OUString& text) {
+    // Most labels are ASCII: those are copied unit by unit, without the detour through an rtl::OString
+    // (an allocation per cell); anything else goes through the office's converter.
+    const std::size_t length = static_cast<std::size_t>(text.getLength());
+    const sal_Unicode* units = text.getStr();
+    std::string ascii(length, '\0');
+    std::size_t i = 0;
+    for (; i < length && units[i] < 0x80; ++i) ascii[i] = static_cast<char>(units[i]);
+    if (i == length) return ascii;
     const rtl::OString bytes = rtl::OUStringToOString(text, RTL_TEXTENCODING_UTF8);
     return std::string(bytes.getStr(), static_cast<std::size_t>(bytes.getLength()));
 }
+
+namespace {
+
+// Ranges of records repeat a few labels many times, and Calc hands equal texts over as one shared
+// rtl_uString. So each string is converted once and later copies of it are copied as cells: a small
+// direct-mapped cache keyed by the string's address (valid while the range, which holds the
+// strings, is alive). A miss costs one conversion, as without the cache.
+class TextCells {
+public:
+    const Cell& cell(const OUString& text) {
+        Slot& slot = slots_[(reinterpret_cast<std::uintptr_t>(text.pData) >> 4) % slots_.size()];
+        if (slot.text != text.pData) {
+            slot.cell = text.isEmpty() ? Cell::blank() : Cell::text(to_utf8(text));
+            slot.text = text.pData;
+        }
+        return slot.cell;
+    }
+
+private:
+    struct Slot {
+        const rtl_uString* text = nullptr;
+        Cell cell;
+    };
+    std::array<Slot, 251> slots_;
+};
+
+}  // namespace
 
 CellGrid to_cell_grid(const AnyTable& range) {
     const std::size_t rows = static_cast<std::size_t>(range.getLength());
@@ -57,10 +96,17 @@ CellGrid to_cell_grid(const AnyTable& range) {
             "the range has " + format_count(static_cast<double>(rows) * static_cast<double>(columns)) +
                 " cells; Assoc reads tables of at most " + format_count(static_cast<double>(cap)) + " counts");
     CellGrid grid(rows, columns);
+    TextCells texts;
     for (std::size_t r = 0; r < rows; ++r) {
         const Sequence<Any>& row = range[static_cast<sal_Int32>(r)];
         require(static_cast<std::size_t>(row.getLength()) == columns, "the rows of the range have different lengths");
-        for (std::size_t c = 0; c < columns; ++c) grid.at(r, c) = to_cell(row[static_cast<sal_Int32>(c)]);
+        for (std::size_t c = 0; c < columns; ++c) {
+            const Any& value = row[static_cast<sal_Int32>(c)];
+            if (value.getValueTypeClass() == TypeClass::TypeClass_STRING)
+                grid.at(r, c) = texts.cell(*static_cast<const OUString*>(value.getValue()));
+            else
+                grid.at(r, c) = to_cell(value);
+        }
     }
     return grid;
 }
