@@ -236,8 +236,13 @@ class Workbook:
     def name_range(self, name, sheet, cells):
         from com.sun.star.table import CellAddress
         first, _, last = cells.partition(":")
-        reference = f"${sheet.name}.{absolute(first)}" + (f":{absolute(last)}" if last else "")
+        reference = f"${quoted(sheet.name)}.{absolute(first)}" + (f":{absolute(last)}" if last else "")
         self.doc.NamedRanges.addNewByName(name, reference, CellAddress(0, 0, 0), 0)
+
+
+def quoted(sheet_name):
+    """A sheet name as references write it: in single quotes when it holds more than letters and digits."""
+    return sheet_name if re.fullmatch(r"\w+", sheet_name) else "'" + sheet_name.replace("'", "''") + "'"
 
 
 def absolute(cell):
@@ -741,6 +746,7 @@ def build_region_sheet(book):
     heading(s, f"A{total + 2}", "2. Is the exception rate related to region?")
     r, placed = finance_tests(s, table, total + 3)
     book.name_range("RegionStatistic", s, placed["Pearson X², degrees of freedom, p-value"])
+    book.name_range("RegionExact", s, placed["p-value, exact test"])
     heading(s, f"A{r}", "3. Which regions stand out?")
     r, residuals, celltest = standouts(s, table, r + 1, 6, 4)
     book.name_range("RegionCellTest", s, celltest)
@@ -959,8 +965,8 @@ def colour_scale_xml(sheet_name, cells):
     first, last = cells.split(":")
     entries = "".join(f'<calcext:color-scale-entry calcext:value="{value}" calcext:type="number" '
                       f'calcext:color="#{colour:06x}"/>' for value, colour, _ in HEAT_MAP)
-    quoted = f"'{sheet_name}'" if " " in sheet_name or "-" in sheet_name else sheet_name
-    return (f'<calcext:conditional-format calcext:target-range-address="{quoted}.{first}:{quoted}.{last}">'
+    name = quoted(sheet_name).replace("&", "&amp;").replace("'", "&apos;")
+    return (f'<calcext:conditional-format calcext:target-range-address="{name}.{first}:{name}.{last}">'
             f"<calcext:color-scale>{entries}</calcext:color-scale></calcext:conditional-format>")
 
 
