@@ -1,6 +1,8 @@
 #!/usr/bin/python3
-"""Builds the sample workbooks samples/hr_review.fods and samples/invoice_exceptions.fods through
-the UNO API, in a throwaway headless office with the built extension installed.
+"""Builds the sample workbooks samples/quick_start.fods (the user guide's first example),
+samples/hr_review.fods and samples/invoice_exceptions.fods through the UNO API, in a throwaway
+headless office with the built extension installed. (samples/promotions.fods, the demo's workbook,
+is written by hand.)
 
     /usr/bin/python3 scripts/build_samples.py --oxt build/extension/assoc.oxt [--out samples]
 
@@ -309,7 +311,7 @@ class Sheet:
     def heat_map_key(self, cell):
         """A row of three cells in the heat map's colours, with what they mean."""
         column, row = split_address(cell)
-        self.text(cell, "Heat-map colours (adjusted residuals):", "Assoc label")
+        self.text(cell, "Heat map (adjusted residuals):", "Assoc label")
         for offset, (low, _, meaning) in enumerate(HEAT_MAP):
             target = self.raw.getCellByPosition(column + 1 + offset, row)
             target.setString(meaning.split(":")[0])
@@ -959,6 +961,63 @@ def reaudit_notes(s):
 
 
 # ---------------------------------------------------------------------------------------------
+# The quick-start workbook of the user guide
+
+# Outcome of the invoice check by branch (invented): cleared, queried, returned.
+BRANCH_CHECKS = [("Northgate", 84, 15, 6), ("Riverside", 61, 22, 12), ("Hillcrest", 90, 11, 5)]
+
+
+def build_quick_start(office, out):
+    book = Workbook(office, "Assoc quick start: invoice checks by branch (invented)")
+    s = book.sheet("Quick start", [0.5, 5.4, 2.2, 2.2, 2.2, 0.6, 8.2, 2.2, 1.6, 2.2, 5.6])
+    s.text("B1", "Larkspur Components Ltd: outcome of the invoice check by branch (invented)", "Assoc title")
+    s.put("B2", [["Branch / Check outcome", "Cleared", "Queried", "Returned"]], "Assoc header")
+    s.put("B3", [[name] for name, *_ in BRANCH_CHECKS])
+    s.put("C3", [counts for _, *counts in BRANCH_CHECKS], "Assoc count")
+    book.name_range("QuickTable", s, "B2:E5")
+    s.put("G2", [["Result", "", "", "", "Formula"]], "Assoc header")
+    s.text("G3", "p-value of the test of independence", "Assoc label")
+    s.formula("H3", "=ASSOC.PVALUE(B2:E5)", "Assoc p-value", show="K3")
+    s.text("G4", "ASSOC.STATISTIC in one cell: X² only", "Assoc label")
+    s.formula("H4", "=ASSOC.STATISTIC(B2:E5)", "Assoc ratio", show="K4")
+    s.text("G5", "ASSOC.STATISTIC as an array: X², df, p-value", "Assoc label")
+    s.array("H5:J5", "=ASSOC.STATISTIC(B2:E5)", "Assoc ratio", show="K5")
+    s.cells("I5").CellStyle = "Assoc whole"
+    s.cells("J5").CellStyle = "Assoc p-value"
+    s.text("G6", "Can the test be trusted?", "Assoc label")
+    s.formula("H6", "=ASSOC.CHECK(B2:E5)", "Assoc text")
+    s.cells("H6:J6").merge(True)
+    s.show_formula("K6", "H6")
+    book.name_range("QuickPValue", s, "H3")
+    book.name_range("QuickStatistic", s, "H5:J5")
+
+    for title, top, formula in (("Expected counts: one array formula over C10:E12", 8, "=ASSOC.EXPECTED(B2:E5)"),
+                                ("Adjusted residuals: one array formula over C16:E18, with the heat map", 14,
+                                 '=ASSOC.RESIDUALS(B2:E5; "adjusted")')):
+        heading(s, f"B{top}", title)
+        s.text(f"B{top + 1}", "Branch", "Assoc header")
+        for column in "CDE":
+            s.formula(f"{column}{top + 1}", f"={column}2", "Assoc header")
+        for i in range(3):
+            s.formula(f"B{top + 2 + i}", f"=B{3 + i}")
+        s.array(f"C{top + 2}:E{top + 4}", formula, "Assoc ratio" if top == 8 else "Assoc residual",
+                show=f"G{top + 2}")
+    s.heat_map("C16:E18")
+    s.heat_map_key("B20")
+    s.notes("B23", [
+        "Type the table with its labels (B2:E5), then =ASSOC.PVALUE(B2:E5) in an empty cell. For a result that "
+        "is an array, select the whole output range first (C10:E12 for the expected counts), type the formula and "
+        "press Ctrl+Shift+Enter. Entered in one cell, such a function shows only its first (headline) value.",
+        "Riverside returns more invoices than independence predicts (orange) and Hillcrest fewer (blue). An "
+        "association is not proof of cause: the branches may receive different kinds of invoices.",
+    ], width=120)
+
+    def tidy():
+        s.fit_text_height("H6", 40, label_chars=60)
+    store(office, book, out / "quick_start.fods", [tidy])
+
+
+# ---------------------------------------------------------------------------------------------
 # Colour scales, storing and checking
 
 def colour_scale_xml(sheet_name, cells):
@@ -1094,6 +1153,8 @@ def main():
     out = pathlib.Path(options.out).resolve()
     out.mkdir(parents=True, exist_ok=True)
     with ThrowawayOffice(options.oxt, log=lambda message: print(f"[office] {message}", flush=True)) as office:
+        build_quick_start(office, out)
+        print(f"wrote {out / 'quick_start.fods'}")
         build_hr(office, out)
         print(f"wrote {out / 'hr_review.fods'}")
         build_finance(office, out)

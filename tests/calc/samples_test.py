@@ -74,6 +74,20 @@ class SampleCase:
         self.assertGreater(formulas, 0)
 
 
+class QuickStart(SampleCase, unittest.TestCase):
+    workbook = "quick_start.fods"
+    reference = REFERENCE["quick_start"]
+
+    def test_first_formula_and_its_array_form_match_scipy(self):
+        self.assertEqual([row[1:] for row in self.values("QuickTable")[1:]], self.reference["counts"])
+        self.assertClose([self.row("QuickPValue")[0]], [self.reference["pearson"][2]], "ASSOC.PVALUE")
+        self.assertClose(self.row("QuickStatistic"), self.reference["pearson"], "ASSOC.STATISTIC")
+        sheet = self.doc.Sheets.getByName("Quick start")
+        expected = [list(row) for row in sheet.getCellRangeByName("C10:E12").getDataArray()]
+        for got, want in zip(expected, self.reference["expected"]):
+            self.assertClose(got, want, "ASSOC.EXPECTED")
+
+
 class Promotions(SampleCase, unittest.TestCase):
     workbook = "promotions.fods"
     reference = REFERENCE["promotions"]

@@ -148,6 +148,13 @@ def size_band(amount):
 
 # --- the workbooks -----------------------------------------------------------------------------
 
+def quick_start():
+    body = block(sheet_cells(SAMPLES / "quick_start.fods", "Quick start"), "B3", 4, 3)
+    counts = [[int(v) for v in row[1:]] for row in body]
+    return {"branches": [row[0] for row in body], "counts": counts, "pearson": pearson(counts),
+            "expected": [[float(v) for v in row] for row in st.contingency.expected_freq(np.array(counts))]}
+
+
 def promotions():
     rows = sheet_cells(SAMPLES / "promotions.fods", "Promotions")
     body = block(rows, "A5", 3, 5)
@@ -234,7 +241,7 @@ def main():
         "generated_by": "tests/reference/samples_generate.py",
         "tools": {"scipy": scipy.__version__, "numpy": np.__version__, "statsmodels": statsmodels.__version__,
                   "R": r_version},
-        "promotions": promotions(), "hr": hr(), "finance": finance(),
+        "quick_start": quick_start(), "promotions": promotions(), "hr": hr(), "finance": finance(),
     }
     OUT.write_text(json.dumps(data, indent=1, ensure_ascii=False) + "\n")
     print(f"wrote {OUT}")
