@@ -393,7 +393,7 @@ def header_row(sheet, cell, labels):
 # The HR workbook
 
 def build_offices_sheet(book):
-    s = book.sheet("Offices", [6.6, 2.4, 2.4, 2.4, 2.4, 2.4, 5.8, 0.5, 3.4, 2.2, 2.2])
+    s = book.sheet("Offices", [6.6, 2.6, 2.6, 2.6, 2.6, 2.6, 5.8, 0.5, 3.4, 2.2, 2.2])
     s.text("A1", "Larkspur Components Ltd: promotions in 2025 by department, office by office", "Assoc title")
     s.text("A2", "Invented data of a fictional company. Every result is a live ASSOC.* formula; the grey text "
                  "beside it is the formula.", "Assoc note")
@@ -506,7 +506,7 @@ def offices_notes(s):
 
 
 def build_selection_sheet(book):
-    s = book.sheet("Selection", [6.6, 2.4, 2.4, 2.4, 2.4, 2.4, 5.8, 0.5, 3.4, 2.2, 2.2])
+    s = book.sheet("Selection", [6.6, 2.6, 2.6, 2.6, 2.6, 2.6, 5.8, 0.5, 3.4, 2.2, 2.2])
     s.text("A1", "Larkspur Components Ltd: selection for the 2025 team-leader programme by age band",
            "Assoc title")
     s.text("A2", "Invented data of a fictional company. Every result is a live ASSOC.* formula; the grey text "
