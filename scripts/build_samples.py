@@ -138,7 +138,6 @@ class Workbook:
     """A new spreadsheet document with our styles, and helpers that write to it."""
 
     def __init__(self, office, title):
-        import uno  # noqa: F401  (the office is running, so uno is importable)
         self.office = office
         self.doc = office.new_spreadsheet()
         self.doc.DocumentProperties.Title = title
@@ -353,7 +352,7 @@ class Sheet:
         chart.Title.CharHeight = 11.0
         chart.HasLegend = legend
         if legend:
-            chart.Legend.Alignment = __import__("uno").Enum("com.sun.star.chart.ChartLegendPosition", "BOTTOM")
+            chart.Legend.Alignment = uno_enum("com.sun.star.chart.ChartLegendPosition", "BOTTOM")
         diagram = chart.Diagram
         diagram.Wall.FillColor = 0xFFFFFF
         diagram.XAxis.TextBreak = True  # long category names wrap instead of turning

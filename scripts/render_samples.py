@@ -20,6 +20,7 @@ import tempfile
 HERE = pathlib.Path(__file__).resolve().parent
 sys.path.insert(0, str(HERE))
 from assoc_office import ThrowawayOffice, file_url, properties  # noqa: E402
+import uno  # noqa: E402  (importable once assoc_office has checked for it)
 
 try:
     from PIL import Image, ImageChops
@@ -58,7 +59,6 @@ def render(office, workbook, shots, folder, out):
         for image, _, sheet, cells in shots:
             pdf = folder / (image + ".pdf")
             selection = doc.Sheets.getByName(sheet).getCellRangeByName(cells)
-            import uno
             filter_data = uno.Any("[]com.sun.star.beans.PropertyValue", properties(Selection=selection))
             doc.storeToURL(file_url(pdf), properties(FilterName="calc_pdf_Export", FilterData=filter_data))
             stem = folder / image.removesuffix(".png")
