@@ -399,8 +399,9 @@ DOCS_INTRO = """\
 Assoc adds {count} worksheet functions to LibreOffice Calc, all in the Function Wizard's
 **{category}** category. They test whether two classifications of the same people or items (for
 example department and promotion outcome) are associated, with Pearson's chi-squared test of
-independence and its family. The sample workbook `samples/promotions.fods` (invented data of a
-fictional company) uses each of them; `scripts/demo.sh` recalculates it and prints the results.
+independence and its family. The workbooks in `samples/` (invented data of a fictional company)
+show them at work; `scripts/demo.sh` recalculates `samples/promotions.fods` and prints the results.
+The [user guide](guide.md) has a worked example of each.
 
 ## Tables
 

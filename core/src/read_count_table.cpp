@@ -27,6 +27,22 @@ bool is_header_line(std::size_t length, CellAt cell_at) {
     return any_text;
 }
 
+// Whole numbers from 1900 to 2100 rising along a first row or column are most likely years
+// meant as labels; read as counts they would silently change the test.
+template <class CellAt>
+bool looks_like_years(std::size_t length, CellAt cell_at) {
+    if (length < 2) return false;
+    double previous = 0;
+    for (std::size_t i = 0; i < length; ++i) {
+        const Cell& cell = cell_at(i);
+        if (!cell.is_number()) return false;
+        const double v = cell.as_number();
+        if (v != std::floor(v) || v < 1900 || v > 2100 || (i > 0 && v <= previous)) return false;
+        previous = v;
+    }
+    return true;
+}
+
 std::string plural(std::size_t n, const char* word) {
     return std::to_string(n) + " " + word + (n == 1 ? "" : "s");
 }
@@ -81,6 +97,17 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
             body(r, c) = value;
         }
     }
+
+    const std::string years_hint = " holds whole numbers that look like years, and they were read as counts; if they "
+                                   "are labels, enter them as text (type an apostrophe first: '2024) or add a text header";
+    if (!header_row && looks_like_years(body_columns, [&](std::size_t c) -> const Cell& {
+            return range.at(0, first_body_column + c);
+        }))
+        table.reading_remarks_.push_back("Row 1" + years_hint + ".");
+    if (!header_column && looks_like_years(body_rows, [&](std::size_t r) -> const Cell& {
+            return range.at(first_body_row + r, 0);
+        }))
+        table.reading_remarks_.push_back("Column 1" + years_hint + ".");
 
     table.has_column_labels_ = header_row;
     table.has_row_labels_ = header_column;

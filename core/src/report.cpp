@@ -133,9 +133,14 @@ std::string one_decimal(double value) {
 // common practice), largest first, at most three named.
 void add_standouts(const Findings& f, Lines& lines) {
     const Matrix& z = f.adjusted_residuals;
+    // With two columns (or two rows) the two cells of a row (or column) have adjusted residuals of
+    // equal size and opposite sign, so only the first column (row) is named: it says it all.
+    const bool two_columns = z.columns() == 2, two_rows = z.rows() == 2;
     std::vector<std::size_t> beyond;
-    for (std::size_t i = 0; i < z.size(); ++i)
+    for (std::size_t i = 0; i < z.size(); ++i) {
+        if ((two_columns && i % z.columns() != 0) || (two_rows && i >= z.columns())) continue;
         if (std::fabs(z.values()[i]) > 2) beyond.push_back(i);
+    }
     std::stable_sort(beyond.begin(), beyond.end(),
                      [&](std::size_t a, std::size_t b) { return std::fabs(z.values()[a]) > std::fabs(z.values()[b]); });
     const std::string label = "Cells that stand out";

@@ -49,6 +49,7 @@ ValidityCheck check_validity(const CountTable& table) {
     check.whole_counts = table.whole_counts();
     check.set_aside_rows = table.set_aside_rows();
     check.set_aside_columns = table.set_aside_columns();
+    check.remarks = table.reading_remarks();
     if (needs_zero_cell_correction(table)) check.remarks.push_back(zero_cell_correction_remark());
     return check;
 }

@@ -109,3 +109,18 @@ TEST(ValidityCheck, AppendsRemarksFromOtherRoutines) {
               "Sound: the smallest expected count is 20.5 and no cell expects fewer than 5, so the chi-squared "
               "approximation can be trusted. Yates' correction was applied.");
 }
+
+// Common practice: years typed as numbers above a table are labels, not counts. Reading them as
+// counts changes the result without an error, so the check says so.
+TEST(ValidityCheck, WarnsWhenTheFirstRowLooksLikeYearsReadAsCounts) {
+    const CountTable table = assoc::test::table({{2023, 2024, 2025}, {12, 15, 9}, {30, 28, 33}});
+    const std::string summary = check_validity(table).summary();
+    EXPECT_NE(summary.find("Row 1 holds whole numbers that look like years, and they were read as counts"),
+              std::string::npos)
+        << summary;
+}
+
+TEST(ValidityCheck, SaysNothingAboutYearsWhenTheyAreTextLabels) {
+    const CountTable table = assoc::test::table({{"2023", "2024", "2025"}, {12, 15, 9}, {30, 28, 33}});
+    EXPECT_EQ(check_validity(table).summary().find("look like years"), std::string::npos);
+}

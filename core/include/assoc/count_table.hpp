@@ -55,6 +55,8 @@ public:
     const std::vector<SetAside>& set_aside_columns() const { return set_aside_columns_; }
 
     std::size_t blank_cells() const { return blank_cells_; }
+    // Warnings about how the range was read that ASSOC.CHECK passes on (e.g. years read as counts).
+    const std::vector<std::string>& reading_remarks() const { return reading_remarks_; }
     bool whole_counts() const { return whole_counts_; }
     bool is_two_by_two() const { return rows() == 2 && columns() == 2; }
 
@@ -78,6 +80,7 @@ private:
     std::vector<std::size_t> kept_rows_, kept_columns_;
     std::vector<SetAside> set_aside_rows_, set_aside_columns_;
     std::size_t blank_cells_ = 0;
+    std::vector<std::string> reading_remarks_;
     bool whole_counts_ = true;
 };
 
