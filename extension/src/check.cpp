@@ -139,6 +139,12 @@ std::string check_range(const CellGrid& range, const Cell& function_or_word) {
         }
     }
     if (candidates.empty() && refusals.empty()) return unknown_word(function_or_word.as_text());
+    // A function's name ("exact" for ASSOC.EXACT) says what the user means: the option words that
+    // other functions spell the same way are then beside the point (refusals still say why a
+    // function does not take the word).
+    if (std::any_of(candidates.begin(), candidates.end(), [](const Candidate& c) { return c.named; }))
+        candidates.erase(std::remove_if(candidates.begin(), candidates.end(), [](const Candidate& c) { return !c.named; }),
+                         candidates.end());
 
     // Each function's run with its defaults, done at most once: it tells whether the range suits it.
     std::vector<std::pair<std::string, Outcome>> defaults;
