@@ -12,7 +12,9 @@ adapter for you, with the C++ types that the argument and result kinds give:
   argument kind   UNO type                     adapter receives
   table           sequence< sequence< any > >  const assoc::CellGrid&   a table of counts for the tests of
                                                                         independence (ASSOC.CHECK gives its verdict)
-  range           sequence< sequence< any > >  const assoc::CellGrid&   any other required range (labels, strata…)
+  range           sequence< sequence< any > >  const assoc::CellGrid&   any other required range (strata, scores…)
+  labels          sequence< sequence< any > >  const assoc::CodedLabels&  a row or column of records' labels, read
+                                                                        without a Cell per record (fast on 1M records)
   optional_range  any                          const assoc::CellGrid&   (omitted: an empty grid)
   number          any                          double                   (omitted: `default`, or an error)
   option          any                          the C++ type of its Options (omitted: `omitted`, else the first word)
@@ -73,7 +75,7 @@ class Options:
 @dataclass
 class Argument:
     name: str
-    kind: str          # table | range | optional_range | number | option | word (see the module docstring)
+    kind: str          # table | range | labels | optional_range | number | option | word (see the module docstring)
     description: str   # for the wizard; option words are appended automatically
     default: Optional[float] = None  # for number arguments: the value when omitted
     options: Optional[Options] = None  # for option arguments
@@ -354,8 +356,8 @@ FUNCTIONS = [
         "ASSOC.COUNTS", "counts",
         "Counts records into a table: one record per position of the two label ranges (for example each "
         "employee's department and outcome), optionally weighted.",
-        [Argument("row_labels", "range", "One row or column of labels, one per record: the rows of the table."),
-         Argument("column_labels", "range",
+        [Argument("row_labels", "labels", "One row or column of labels, one per record: the rows of the table."),
+         Argument("column_labels", "labels",
                   "One row or column of labels, as long as row_labels: the columns of the table."),
          Argument("weights", "optional_range",
                   "Optional. One number of 0 or more per record, as long as the labels; each record counts once "
@@ -376,7 +378,7 @@ FUNCTIONS = [
         "ASSOC.LEVELS", "levels",
         "The distinct labels of a row or column of records, blanks left out: the row or column headers of "
         "ASSOC.COUNTS.",
-        [Argument("labels", "range", "One row or column of labels, one per record."),
+        [Argument("labels", "labels", "One row or column of labels, one per record."),
          Argument("order", "option", "Optional. The order of the labels.", options=LEVEL_ORDERS)],
         "cells", "a column of labels (numbers stay numbers)",
         ["Use TRANSPOSE(ASSOC.LEVELS(…)) for a row."],

@@ -36,12 +36,13 @@ UNO_ANY = "const css::uno::Any&"
 ARGUMENT_KINDS = {
     "table": ("sequence< sequence< any > >", UNO_TABLE),
     "range": ("sequence< sequence< any > >", UNO_TABLE),
+    "labels": ("sequence< sequence< any > >", UNO_TABLE),  # records: read in dictionary form (coded_labels.hpp)
     "optional_range": ("any", UNO_ANY),
     "number": ("any", UNO_ANY),
     "option": ("any", UNO_ANY),
     "word": ("any", UNO_ANY),
 }
-REQUIRED_RANGE_KINDS = ("table", "range")
+REQUIRED_RANGE_KINDS = ("table", "range", "labels")
 RESULT_TYPES = {"number": "double", "row": "std::vector<double>", "array": "assoc::Matrix",
                 "text": "std::string", "cells": "assoc::CellGrid"}
 
@@ -195,6 +196,8 @@ def idl():
 
 
 def adapter_parameter(argument):
+    if argument.kind == "labels":
+        return f"const assoc::CodedLabels& {argument.name}"
     if argument.kind in ("table", "range", "optional_range"):
         return f"const assoc::CellGrid& {argument.name}"
     if argument.kind == "number":
@@ -256,7 +259,7 @@ def header():
 
 def core_headers():
     """The core headers the generated header needs: cells and matrices, and the option types."""
-    headers = {"assoc/cell.hpp", "assoc/matrix.hpp"}
+    headers = {"assoc/cell.hpp", "assoc/coded_labels.hpp", "assoc/matrix.hpp"}
     headers.update(o.include for o in option_sets() if o.include)
     return sorted(headers)
 
@@ -274,6 +277,8 @@ def omitted_value(options):
 
 
 def read_argument(argument):
+    if argument.kind == "labels":
+        return f"to_coded_labels({argument.name})"
     if argument.kind in REQUIRED_RANGE_KINDS:
         return f"to_cell_grid({argument.name})"
     if argument.kind == "optional_range":
@@ -303,7 +308,8 @@ def trial_body(function, option_argument=None, word=None):
     values = []
     for argument in function.arguments:
         if argument.kind in REQUIRED_RANGE_KINDS:
-            values.append("range" if len(ranges) == 1 else f"parts[{ranges.index(argument)}]")
+            part = "range" if len(ranges) == 1 else f"parts[{ranges.index(argument)}]"
+            values.append(f"assoc::code_labels({part})" if argument.kind == "labels" else part)
         elif argument.kind == "optional_range":
             values.append("assoc::CellGrid()")
         elif argument.kind == "number" and ranges:

@@ -28,14 +28,14 @@ double checked_weight(const Cell& cell, std::size_t i, std::size_t length) {
 
 }  // namespace
 
-RecordCounts counts_from_records(const CellGrid& row_labels, const CellGrid& column_labels, const CellGrid& weights,
-                                 LevelOrder order, std::size_t max_cells) {
-    const detail::CellLine rows(row_labels, "row labels");
-    const detail::CellLine columns(column_labels, "column labels");
-    require(rows.size() == columns.size(),
-            "the row labels (" + plural(rows.size(), "cell") + ") and the column labels (" +
-                plural(columns.size(), "cell") + ") must be equally long: one pair of labels per record");
-    const std::size_t n = rows.size();
+RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabels& column_labels,
+                                 const CellGrid& weights, LevelOrder order, std::size_t max_cells) {
+    detail::CodedLevels rows(row_labels, "row labels");
+    detail::CodedLevels columns(column_labels, "column labels");
+    require(rows.records() == columns.records(),
+            "the row labels (" + plural(rows.records(), "cell") + ") and the column labels (" +
+                plural(columns.records(), "cell") + ") must be equally long: one pair of labels per record");
+    const std::size_t n = rows.records();
     require(n < std::numeric_limits<std::uint32_t>::max(), "there are too many records to count");
     const bool weighted = !weights.empty();
     std::optional<detail::CellLine> weight_line;
@@ -49,24 +49,22 @@ RecordCounts counts_from_records(const CellGrid& row_labels, const CellGrid& col
     result.records = n;
     result.weighted = weighted;
 
-    // One pass: each record's labels become level indices (one hash lookup each).
-    constexpr std::uint32_t skipped = std::numeric_limits<std::uint32_t>::max();
-    detail::LevelIndex row_index, column_index;
+    // First pass: each record's labels become levels. A label is a level even when the other label
+    // of its record is blank, so that the table has a row (or column) for every label of the range,
+    // as distinct_levels lists them; such a row holds zeros when all its records were skipped.
+    constexpr std::uint32_t skipped = detail::CodedLevels::skipped;
     std::vector<std::uint32_t> row_of(n), column_of(n);
     for (std::size_t i = 0; i < n; ++i) {
-        const Cell& row_label = rows[i];
-        const Cell& column_label = columns[i];
-        if (detail::is_blank_label(row_label) || detail::is_blank_label(column_label)) {
+        row_of[i] = rows.level(i);
+        column_of[i] = columns.level(i);
+        if (row_of[i] == skipped || column_of[i] == skipped) {
             row_of[i] = skipped;
             ++result.skipped_blank;
-            continue;
         }
-        detail::require_usable_label(row_label, i + 1, n, "row labels");
-        detail::require_usable_label(column_label, i + 1, n, "column labels");
-        row_of[i] = row_index.intern(row_label);
-        column_of[i] = column_index.intern(column_label);
     }
-    require(row_index.size() > 0, "every record has a blank label, so there is nothing to count");
+    require(result.skipped_blank < n, "every record has a blank label, so there is nothing to count");
+    const detail::LevelIndex& row_index = rows.index();
+    const detail::LevelIndex& column_index = columns.index();
 
     const double cells = static_cast<double>(row_index.size()) * static_cast<double>(column_index.size());
     require(cells <= static_cast<double>(max_cells),
@@ -98,6 +96,11 @@ RecordCounts counts_from_records(const CellGrid& row_labels, const CellGrid& col
     result.remarks = row_index.lookalike_remarks("row labels");
     for (std::string& remark : column_index.lookalike_remarks("column labels")) result.remarks.push_back(std::move(remark));
     return result;
+}
+
+RecordCounts counts_from_records(const CellGrid& row_labels, const CellGrid& column_labels, const CellGrid& weights,
+                                 LevelOrder order, std::size_t max_cells) {
+    return counts_from_records(code_labels(row_labels), code_labels(column_labels), weights, order, max_cells);
 }
 
 std::string RecordCounts::feedback() const {

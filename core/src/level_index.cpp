@@ -4,6 +4,7 @@
 #include <numeric>
 
 #include "ascii_case.hpp"
+#include "cell_line.hpp"
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
 
@@ -70,6 +71,19 @@ std::vector<std::string> LevelIndex::lookalike_remarks(const std::string& what) 
 void throw_unusable_label(const Cell& cell, std::size_t position, std::size_t length, const std::string& what) {
     throw Error("label " + format_count(static_cast<double>(position)) + " of " + format_count(static_cast<double>(length)) +
                 " in the " + what + " holds " + cell.describe() + "; labels must be texts or ordinary numbers");
+}
+
+CodedLevels::CodedLevels(const CodedLabels& labels, const char* what)
+    : labels_(labels), what_(what), level_of_(labels.spellings.size(), unassigned) {
+    require_single_line(labels.rows, labels.columns, what);
+    require(labels.codes.size() == labels.rows * labels.columns, "the labels are not coded consistently");
+}
+
+std::uint32_t CodedLevels::first_use(std::uint32_t code, std::size_t record) {
+    const Cell& spelling = labels_.spellings[code];
+    if (is_blank_label(spelling)) return skipped;
+    require_usable_label(spelling, record + 1, records(), what_);
+    return index_.intern(spelling);
 }
 
 }  // namespace assoc::detail

@@ -11,6 +11,8 @@
 #include <vector>
 
 #include "assoc/cell.hpp"
+#include "assoc/coded_labels.hpp"
+#include "assoc/error.hpp"
 #include "assoc/levels.hpp"
 
 namespace assoc::detail {
@@ -62,5 +64,38 @@ private:
 inline void require_usable_label(const Cell& cell, std::size_t position, std::size_t length, const char* what) {
     if (cell.is_number() && !std::isfinite(cell.as_number())) throw_unusable_label(cell, position, length, what);
 }
+
+// The levels of a single row or column of coded labels, record by record. A spelling becomes a
+// level the first time a record uses it (one hash lookup per spelling, an array lookup per record),
+// so levels are numbered in order of first appearance, and two spellings of one level merge.
+class CodedLevels {
+public:
+    static constexpr std::uint32_t skipped = CodedLabels::blank;
+
+    // `what` names the range in messages, e.g. "row labels". Checks the shape of the range.
+    CodedLevels(const CodedLabels& labels, const char* what);
+
+    std::size_t records() const { return labels_.codes.size(); }
+    // The level of record `i` (0-based), or `skipped` when its label is blank. Throws Error for a
+    // label that cannot be one (an infinite number). Inline: it runs once per record.
+    std::uint32_t level(std::size_t i) {
+        const std::uint32_t code = labels_.codes[i];
+        if (code == CodedLabels::blank) return skipped;
+        require(code < level_of_.size(), "the labels are not coded consistently");
+        std::uint32_t& level = level_of_[code];
+        if (level == unassigned) level = first_use(code, i);
+        return level;
+    }
+    const LevelIndex& index() const { return index_; }
+
+private:
+    static constexpr std::uint32_t unassigned = CodedLabels::blank - 1;
+    std::uint32_t first_use(std::uint32_t code, std::size_t record);
+
+    const CodedLabels& labels_;
+    const char* what_;
+    std::vector<std::uint32_t> level_of_;  // per spelling: its level, skipped, or unassigned
+    LevelIndex index_;
+};
 
 }  // namespace assoc::detail

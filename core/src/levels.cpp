@@ -4,7 +4,6 @@
 
 #include "ascii_case.hpp"
 #include "assoc/error.hpp"
-#include "cell_line.hpp"
 #include "level_index.hpp"
 
 namespace assoc {
@@ -31,17 +30,15 @@ std::string level_text(const Cell& level) {
     return buffer;
 }
 
+std::vector<Cell> distinct_levels(const CodedLabels& labels, LevelOrder order) {
+    detail::CodedLevels levels(labels, "labels");
+    for (std::size_t i = 0; i < levels.records(); ++i) levels.level(i);
+    require(levels.index().size() > 0, "the labels are all blank");
+    return levels.index().listed(order);
+}
+
 std::vector<Cell> distinct_levels(const CellGrid& labels, LevelOrder order) {
-    const detail::CellLine line(labels, "labels");
-    detail::LevelIndex index;
-    for (std::size_t i = 0; i < line.size(); ++i) {
-        const Cell& label = line[i];
-        if (detail::is_blank_label(label)) continue;
-        detail::require_usable_label(label, i + 1, line.size(), "labels");
-        index.intern(label);
-    }
-    require(index.size() > 0, "the labels are all blank");
-    return index.listed(order);
+    return distinct_levels(code_labels(labels), order);
 }
 
 }  // namespace assoc

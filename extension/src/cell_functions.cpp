@@ -1,9 +1,7 @@
 // The adapters: one small function per worksheet function. Each takes the converted arguments,
 // calls the core and returns the result; the generated UNO methods (assoc_functions.cpp) do
 // the conversions and the error mapping around them. Declared in the generated header.
-#include <cstring>
 #include <string>
-#include <unordered_map>
 
 #include "assoc/breslow_day.hpp"
 #include "assoc/cell_p_values.hpp"
@@ -39,24 +37,6 @@ const ExactLimits worksheet_exact_limits{5.0, 20'000'000};
 std::vector<double> ratio_row(const RatioEstimate& ratio) {
     remark(ratio.remark);
     return {ratio.estimate, ratio.lower, ratio.upper};
-}
-
-// A level as a key that tells the number 5 from the text "5" and 0.1 + 0.2 from 0.3, as levels do.
-std::string level_key(const Cell& level) {
-    if (level.is_text()) return "t" + level.as_text();
-    const double number = level.as_number() + 0.0;  // -0 and 0 are one level
-    std::string key(1 + sizeof number, 'n');
-    std::memcpy(&key[1], &number, sizeof number);
-    return key;
-}
-
-// Where each level of `counted` sits among `all` (a superset in its own order).
-std::vector<std::size_t> positions(const std::vector<Cell>& counted, const std::vector<Cell>& all) {
-    std::unordered_map<std::string, std::size_t> index;
-    for (std::size_t i = 0; i < all.size(); ++i) index.emplace(level_key(all[i]), i);
-    std::vector<std::size_t> result;
-    for (const Cell& level : counted) result.push_back(index.at(level_key(level)));
-    return result;
 }
 
 }  // namespace
@@ -146,25 +126,16 @@ double samplesize(double w, double power, double df, double alpha) {
     return chi_squared_sample_size(w, power, df, alpha);
 }
 
-Matrix counts(const CellGrid& row_labels, const CellGrid& column_labels, const CellGrid& weights, LevelOrder order) {
+Matrix counts(const CodedLabels& row_labels, const CodedLabels& column_labels, const CellGrid& weights,
+              LevelOrder order) {
+    // The core gives a row and a column to every label of the ranges, also to one whose records were
+    // all skipped (the other label blank), so the table lines up with ASSOC.LEVELS.
     const RecordCounts counted = counts_from_records(row_labels, column_labels, weights, order);
     remark(counted.feedback());
-    // When no record was skipped, the counted levels are all the labels there are, in the same order:
-    // the table is complete, and the two passes over the labels below are not needed.
-    if (counted.skipped_blank == 0) return counted.counts;
-    // One row and column per label that ASSOC.LEVELS lists, also for a label whose records were all
-    // skipped (the other label blank): then the two line up and such a row is all zeros.
-    const std::vector<Cell> all_rows = distinct_levels(row_labels, order);
-    const std::vector<Cell> all_columns = distinct_levels(column_labels, order);
-    const std::vector<std::size_t> rows = positions(counted.row_levels, all_rows);
-    const std::vector<std::size_t> columns = positions(counted.column_levels, all_columns);
-    Matrix table(all_rows.size(), all_columns.size());
-    for (std::size_t r = 0; r < rows.size(); ++r)
-        for (std::size_t c = 0; c < columns.size(); ++c) table(rows[r], columns[c]) = counted.counts(r, c);
-    return table;
+    return counted.counts;
 }
 
-CellGrid levels(const CellGrid& labels, LevelOrder order) {
+CellGrid levels(const CodedLabels& labels, LevelOrder order) {
     const std::vector<Cell> distinct = distinct_levels(labels, order);
     CellGrid column(distinct.size(), 1);
     for (std::size_t i = 0; i < distinct.size(); ++i) column.at(i, 0) = distinct[i];

@@ -5,6 +5,8 @@
 #include <cstdint>
 #include <rtl/string.hxx>
 #include <rtl/ustring.hxx>
+#include <unordered_map>
+#include <utility>
 
 #include "assoc/count_table.hpp"
 #include "assoc/format.hpp"
@@ -109,6 +111,71 @@ CellGrid to_cell_grid(const AnyTable& range) {
         }
     }
     return grid;
+}
+
+namespace {
+
+// Gives each distinct label of a range its code. Calc hands equal texts over as one shared
+// rtl_uString, so nearly every text is settled by its address: first in a small direct-mapped
+// cache, then in a map of addresses (valid while the range, which holds the strings, is alive).
+// A second rtl_uString with the same characters only adds a second spelling of the same level,
+// which the core merges. Numbers are keyed by value.
+class LabelCoder {
+public:
+    std::uint32_t code(const Any& value) {
+        switch (value.getValueTypeClass()) {
+        case TypeClass::TypeClass_VOID: return CodedLabels::blank;
+        case TypeClass::TypeClass_STRING: return text_code(static_cast<const OUString*>(value.getValue())->pData);
+        case TypeClass::TypeClass_BOOLEAN: return number_code(value.get<bool>() ? 1.0 : 0.0);
+        default: return number_code(to_cell(value).as_number());  // to_cell refuses anything but numbers
+        }
+    }
+    std::vector<Cell> take_spellings() { return std::move(spellings_); }
+
+private:
+    std::uint32_t text_code(rtl_uString* text) {
+        if (text->length == 0) return CodedLabels::blank;
+        Slot& slot = cache_[(reinterpret_cast<std::uintptr_t>(text) >> 4) % cache_.size()];
+        if (slot.text == text) return slot.code;
+        const auto [where, added] = by_text_.try_emplace(text, next_code());
+        if (added) spellings_.push_back(Cell::text(to_utf8(OUString(text))));
+        slot = {text, where->second};
+        return where->second;
+    }
+    std::uint32_t number_code(double number) {
+        const auto [where, added] = by_number_.try_emplace(number + 0.0, next_code());  // -0 and 0 alike
+        if (added) spellings_.push_back(Cell::number(number + 0.0));
+        return where->second;
+    }
+    std::uint32_t next_code() const {
+        require(spellings_.size() < CodedLabels::blank - 1, "the range holds too many different labels");
+        return static_cast<std::uint32_t>(spellings_.size());
+    }
+
+    struct Slot {
+        const rtl_uString* text = nullptr;
+        std::uint32_t code = 0;
+    };
+    std::array<Slot, 1021> cache_{};
+    std::unordered_map<const rtl_uString*, std::uint32_t> by_text_;
+    std::unordered_map<double, std::uint32_t> by_number_;
+    std::vector<Cell> spellings_;
+};
+
+}  // namespace
+
+CodedLabels to_coded_labels(const AnyTable& range) {
+    CodedLabels coded;
+    coded.rows = static_cast<std::size_t>(range.getLength());
+    coded.columns = coded.rows == 0 ? 0 : static_cast<std::size_t>(range[0].getLength());
+    coded.codes.reserve(coded.rows * coded.columns);
+    LabelCoder coder;
+    for (const Sequence<Any>& row : range) {
+        require(static_cast<std::size_t>(row.getLength()) == coded.columns, "the rows of the range have different lengths");
+        for (const Any& value : row) coded.codes.push_back(coder.code(value));
+    }
+    coded.spellings = coder.take_spellings();
+    return coded;
 }
 
 CellGrid to_optional_cell_grid(const Any& argument) {

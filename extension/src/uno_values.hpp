@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "assoc/cell.hpp"
+#include "assoc/coded_labels.hpp"
 #include "assoc/error.hpp"
 #include "assoc/matrix.hpp"
 
@@ -25,6 +26,10 @@ std::string to_utf8(const OUString& text);
 
 // A range as Calc passes it to an any[][] argument: numbers, texts, and blanks as empty texts.
 CellGrid to_cell_grid(const AnyTable& range);
+// A range of labels (raw records: one label per record) in dictionary form, read without a Cell per
+// record: each distinct text is converted once, so a million records cost little more than Calc's
+// hand-over. Blanks and empty texts get CodedLabels::blank; booleans are 1 or 0.
+CodedLabels to_coded_labels(const AnyTable& range);
 // An optional range (an `any` argument): omitted gives an empty grid, a range arrives as an
 // any[][] array, and a single cell or value as itself (a 1×1 grid).
 CellGrid to_optional_cell_grid(const css::uno::Any& argument);

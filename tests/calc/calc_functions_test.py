@@ -41,7 +41,7 @@ class TheFunctionWizard(CalcTestCase):
                                  [generate.argument_description(a) for a in function.arguments])
                 # Calc makes any-typed arguments optional; the ranges (tables and others) are required.
                 self.assertEqual([a.IsOptional for a in arguments],
-                                 [a.kind not in ("table", "range") for a in function.arguments])
+                                 [a.kind not in generate.REQUIRED_RANGE_KINDS for a in function.arguments])
 
 
 class ExpectedCounts(CalcTestCase):

@@ -106,8 +106,61 @@ TEST(CountsFromRecords, SaysInItsFeedbackWhatWasCountedAndSkipped) {
     const RecordCounts counts =
         counts_from_records(grid({{"x"}, {nullptr}, {"y"}, {"x"}}), grid({{"a"}, {"b"}, {nullptr}, {"b"}}));
     EXPECT_EQ(counts.feedback(),
-              "Counted 2 of 4 records into 1 row level and 2 column levels. 2 records have a blank label and were "
+              "Counted 2 of 4 records into 2 row levels and 2 column levels. 2 records have a blank label and were "
               "skipped.");
+}
+
+// The table lines up with distinct_levels of each range: "y" is a level although its only record
+// was skipped, and its row holds zeros.
+TEST(CountsFromRecords, KeepsALabelWhoseRecordsWereAllSkippedAsARowOfZeros) {
+    const RecordCounts counts =
+        counts_from_records(grid({{"x"}, {nullptr}, {"y"}, {"x"}}), grid({{"a"}, {"b"}, {nullptr}, {"b"}}));
+    EXPECT_EQ(counts.row_levels, (std::vector<Cell>{Cell::text("x"), Cell::text("y")}));
+    EXPECT_EQ(counts.row_levels, distinct_levels(grid({{"x"}, {nullptr}, {"y"}, {"x"}})));
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{1, 1, 0, 0}));
+}
+
+// The add-in hands over coded labels in which one text may have two spellings (two copies of the
+// same string); they are one level.
+TEST(CountsFromRecords, MergesTwoSpellingsOfOneLabelInCodedLabels) {
+    CodedLabels rows;
+    rows.rows = 4;
+    rows.columns = 1;
+    rows.spellings = {Cell::text("Sales"), Cell::text("Legal"), Cell::text("Sales")};
+    rows.codes = {0, 1, 2, CodedLabels::blank};
+    const RecordCounts counts = counts_from_records(rows, code_labels(grid({{"yes", "no", "yes", "no"}})));
+    EXPECT_EQ(counts.row_levels, (std::vector<Cell>{Cell::text("Legal"), Cell::text("Sales")}));
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{1, 0, 0, 2}));
+    EXPECT_EQ(counts.skipped_blank, 1u);
+}
+
+TEST(CountsFromRecords, GivesTheSameTableFromCodedLabelsAsFromCells) {
+    std::mt19937 generator(20261202);
+    std::uniform_int_distribution<int> pick(0, 9);
+    CellGrid rows(500, 1), columns(1, 500);
+    for (std::size_t i = 0; i < 500; ++i) {
+        const int r = pick(generator), c = pick(generator);
+        rows.at(i, 0) = r == 0 ? Cell::blank() : r < 5 ? Cell::number(r) : Cell::text("R" + std::to_string(r));
+        columns.at(0, i) = c == 0 ? Cell::text("") : Cell::text("C" + std::to_string(c % 4));
+    }
+    for (LevelOrder order : {LevelOrder::sorted, LevelOrder::first_seen}) {
+        const RecordCounts from_cells = counts_from_records(rows, columns, CellGrid(), order);
+        const RecordCounts from_codes = counts_from_records(code_labels(rows), code_labels(columns), CellGrid(), order);
+        EXPECT_EQ(from_codes.row_levels, from_cells.row_levels);
+        EXPECT_EQ(from_codes.column_levels, from_cells.column_levels);
+        EXPECT_EQ(from_codes.counts.values(), from_cells.counts.values());
+        EXPECT_EQ(from_codes.feedback(), from_cells.feedback());
+    }
+}
+
+TEST(CountsFromRecords, RejectsCodedLabelsWhoseCodesDoNotFitTheirSpellings) {
+    CodedLabels rows;
+    rows.rows = 2;
+    rows.columns = 1;
+    rows.spellings = {Cell::text("Sales")};
+    rows.codes = {0, 7};
+    expect_error([&] { counts_from_records(rows, code_labels(grid({{"a", "b"}}))); },
+                 "the labels are not coded consistently");
 }
 
 TEST(CountsFromRecords, PointsOutLabelsThatDifferOnlyInCapitals) {

@@ -85,3 +85,12 @@ TEST(Levels, RejectsANonFiniteNumberAsALabel) {
     expect_error([] { distinct_levels(grid({{"a"}, {std::numeric_limits<double>::infinity()}})); },
                  "label 2 of 2 in the labels holds an infinite value; labels must be texts or ordinary numbers");
 }
+
+TEST(Levels, MergesTwoSpellingsOfOneLabelInCodedLabels) {
+    CodedLabels coded;
+    coded.rows = 1;
+    coded.columns = 3;
+    coded.spellings = {Cell::text("east"), Cell::text("east"), Cell::number(2)};
+    coded.codes = {1, 2, 0};
+    EXPECT_EQ(distinct_levels(coded, LevelOrder::first_seen), (std::vector<Cell>{Cell::text("east"), Cell::number(2)}));
+}

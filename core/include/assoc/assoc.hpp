@@ -4,6 +4,7 @@
 #include "assoc/cell.hpp"
 #include "assoc/cell_p_values.hpp"
 #include "assoc/chi_squared_distribution.hpp"
+#include "assoc/coded_labels.hpp"
 #include "assoc/count_table.hpp"
 #include "assoc/counts_from_records.hpp"
 #include "assoc/cramers_v_interval.hpp"

@@ -6,6 +6,7 @@
 #include <vector>
 
 #include "assoc/cell.hpp"
+#include "assoc/coded_labels.hpp"
 #include "assoc/count_table.hpp"
 #include "assoc/levels.hpp"
 #include "assoc/matrix.hpp"
@@ -37,11 +38,19 @@ struct RecordCounts {
 // Counts records into a table. `row_labels` and `column_labels` are equally long single rows or
 // columns (they need not have the same orientation); `weights`, when not empty, is a single row
 // or column of the same length with numbers of 0 or more. A record whose row or column label is
-// blank is skipped (and counted in skipped_blank); its weight is not read. Levels are identified
-// as described in levels.hpp and listed in `order`. Throws Error when the table would have more
-// than `max_cells` cells.
+// blank is skipped (and counted in skipped_blank); its weight is not read, but its other label is
+// still a level, so the table has a row and a column for every label of the two ranges, as
+// distinct_levels lists them (a label whose records were all skipped gets zeros). Levels are
+// identified as described in levels.hpp and listed in `order`. Throws Error when the table would
+// have more than `max_cells` cells.
 //
-// Cost: one hash lookup per label and record, independent of the number of levels.
+// Cost: one array lookup per label and record, plus one hash lookup per distinct spelling:
+// independent of the number of levels.
+RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabels& column_labels,
+                                 const CellGrid& weights = CellGrid(), LevelOrder order = LevelOrder::sorted,
+                                 std::size_t max_cells = 1'000'000);
+
+// The same, from ranges of cells (coded first with code_labels: one hash lookup per label).
 RecordCounts counts_from_records(const CellGrid& row_labels, const CellGrid& column_labels,
                                  const CellGrid& weights = CellGrid(), LevelOrder order = LevelOrder::sorted,
                                  std::size_t max_cells = 1'000'000);

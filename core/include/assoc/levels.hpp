@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "assoc/cell.hpp"
+#include "assoc/coded_labels.hpp"
 
 namespace assoc {
 
@@ -31,5 +32,6 @@ std::string level_text(const Cell& level);
 
 // The distinct labels of a single row or column, blanks skipped, listed in `order`.
 std::vector<Cell> distinct_levels(const CellGrid& labels, LevelOrder order = LevelOrder::sorted);
+std::vector<Cell> distinct_levels(const CodedLabels& labels, LevelOrder order = LevelOrder::sorted);
 
 }  // namespace assoc
