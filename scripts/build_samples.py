@@ -1,16 +1,24 @@
 #!/usr/bin/python3
 """Builds the sample workbooks samples/quick_start.fods (the user guide's first example),
-samples/hr_review.fods and samples/invoice_exceptions.fods through the UNO API, in a throwaway
-headless office with the built extension installed. (samples/promotions.fods, the demo's workbook,
-is written by hand.)
+samples/promotions.fods (the workbook scripts/demo.sh recalculates and prints), samples/hr_review.fods
+and samples/invoice_exceptions.fods through the UNO API, in a throwaway headless office with the built
+extension installed.
 
     /usr/bin/python3 scripts/build_samples.py --oxt build/extension/assoc.oxt [--out samples]
+        [--only quick_start promotions hr_review invoice_exceptions]
+
+scripts/demo.py reads the promotions sheet through its named ranges CountTable (A4:C9) and
+AssocReport (F5:G26), and the guide and its screenshots (scripts/render_samples.py) refer to cells
+of the samples by address: keep those in place, or update them together. Optimal row heights depend
+on the fonts: build with the Liberation fonts installed (Debian: fonts-liberation2).
 
 Larkspur Components Ltd is a fictional company and every figure is invented: the HR tables are
 typed in below, and the invoice records come from a seeded generator (INVOICE_SEED), so a rebuild
 gives the same workbooks. Each analysis sheet gets live ASSOC.* formulas (array formulas where the
-result is an array) with their formula text beside them, a heat map of adjusted residuals, a chart
-and notes on reading the results, with the cautions.
+result is an array) with their formula text beside them, a heat map of adjusted residuals with its
+key (except the Re-audit sheet, whose paired answers ask about the changes, not independence), a
+chart, and notes on reading the results, with the cautions. The numbers the notes quote are rounded
+as the cells display them (fixed() and percent()).
 
 The heat map is a three-colour scale of our own (HEAT_MAP below). The office's API cannot yet fill
 in the points of a colour scale (setting them crashes LibreOffice 7.4), so the builder writes the
@@ -19,6 +27,7 @@ an error, and stores it once more so that the committed file is the office's own
 """
 
 import argparse
+import decimal
 import math
 import pathlib
 import random
@@ -340,7 +349,9 @@ class Sheet:
                              lines(self.cells(f"A{row}").getString(), label_chars)))
 
     def chart(self, name, anchor, size_cm, ranges, title, y_title, percent=False, line_series=None,
-              legend=True):
+              legend=True, stacked_shares=False):
+        """Columns (one series per column of the ranges), optionally with one series drawn as a line
+        (`line_series`), or columns stacked to 100% (`stacked_shares`)."""
         from com.sun.star.awt import Rectangle
         position = self.cells(anchor).Position
         addresses = tuple(self.cells(r).RangeAddress for r in ranges)
@@ -361,13 +372,16 @@ class Sheet:
         diagram.YAxisTitle.String = y_title
         diagram.YAxis.AutoMin = False
         diagram.YAxis.Min = 0.0
+        if stacked_shares:
+            diagram.Stacked = True
+            diagram.Percent = True
         if percent:
             diagram.YAxis.LinkNumberFormatToSource = False
             diagram.YAxis.NumberFormat = self.book.number_format("0%")
         coordinates = chart.getFirstDiagram().getCoordinateSystems()[0]
         bars = coordinates.getChartTypes()[0]
         series = list(bars.getDataSeries())
-        for one, colour in zip(series, (CHART_FIRST, CHART_SECOND)):
+        for one, colour in zip(series, (CHART_FIRST, CHART_SECOND, CHART_LINE)):
             one.Color = colour
         if line_series is not None:
             line = self.book.office.service("com.sun.star.chart2.LineChartType")
@@ -487,11 +501,12 @@ def offices_notes(s):
     expect(value("E27") > 2 and value("E35") > 2, "Design staff and promotions both concentrate in Northgate")
     s.text("A45", "Reading the results", "Assoc section")
     s.notes("A46", [
-        f"Pooled over the four offices, Design staff were promoted more often than Assembly staff ({design:.1%} "
-        f"against {assembly:.1%}; odds ratio {value('B19'):.2f}, {p_text(value('B18'))}). Office by office the "
-        f"difference vanishes and even turns slightly the other way: the Mantel–Haenszel common odds ratio is "
-        f"{value('D21'):.2f} (95% limits {value('E21'):.2f} to {value('F21'):.2f}, {p_text(value('B21'))}), and one "
-        f"common odds ratio fits every office (Breslow–Day {p_text(value('B22'))}).",
+        "Pooled over the four offices, Design staff were promoted more often than Assembly staff "
+        f"({percent(design, 1)} against {percent(assembly, 1)}; odds ratio {fixed(value('B19'), 2)}, "
+        f"{p_text(value('B18'))}). Office by office the difference vanishes and even turns slightly the other way: "
+        f"the Mantel–Haenszel common odds ratio is {fixed(value('D21'), 2)} (95% limits {fixed(value('E21'), 2)} to "
+        f"{fixed(value('F21'), 2)}, {p_text(value('B21'))}), and one common odds ratio fits every office "
+        f"(Breslow–Day {p_text(value('B22'))}).",
         "Why: Design staff work mostly in Northgate, where promotion rates are high for everyone (sections 4 and 5: "
         "orange cells have more people than independence predicts, blue cells fewer). Pooling mixes the office "
         "effect into the comparison of departments. This reversal is known as Simpson's paradox.",
@@ -590,15 +605,16 @@ def selection_notes(s):
     expect(two_more >= 0.8, "two more selections lift the flagged band above four-fifths")
     s.text("A39", "Reading the results", "Assoc section")
     s.notes("A40", [
-        f"ASSOC.IMPACT divides each band's selection rate by the highest one ({max(rates):.1%}, "
-        f"{AGE_BANDS[top][0]}). {band}: {rates[low]:.1%}, a ratio of {ratios[low]:.2f}, below four-fifths, so it is "
-        f"flagged. With only {considered} candidates in that band the ratio is unstable: two more selections "
-        f"({selected + 2} of {considered}) would give {two_more:.2f}, above four-fifths.",
+        f"ASSOC.IMPACT divides each band's selection rate by the highest one ({percent(max(rates), 1)}, "
+        f"{AGE_BANDS[top][0]}). {band}: {percent(rates[low], 1)}, a ratio of {fixed(ratios[low], 2)}, below "
+        f"four-fifths, so it is flagged. With only {considered} candidates in that band the ratio is unstable: two "
+        f"more selections ({selected + 2} of {considered}) would give {fixed(two_more, 2)}, above four-fifths.",
         f"The tests do not find the differences significant (Pearson {p_text(value('B20'))}, exact "
-        f"{p_text(value('B21'))}, trend {p_text(value('B22'))}). That is not proof of no difference: the test "
-        f"would very likely find a medium effect (power {value('B25'):.0%}), but for an effect the size of the "
-        f"one seen its power is only {value('B26'):.0%}; about {value('B27'):,.0f} candidates would be needed. "
-        "A flag without significance, or significance without a flag, calls for a closer look, not a conclusion.",
+        f"{p_text(value('B21'))}, trend {p_text(value('B22'))}). That is not proof of no difference: the test would "
+        f"very likely find a medium effect (power {percent(value('B25'), 0)}), but for an effect the size of the one "
+        f"seen its power is only {percent(value('B26'), 0)}; about {fixed(value('B27'), 0, grouping=True)} "
+        "candidates would be needed. A flag without significance, or significance without a flag, calls for a "
+        "closer look, not a conclusion.",
         "The four-fifths ratio is a rule of thumb for screening, not a test, and not a legal threshold everywhere. "
         "For decisions about people a significant result is not proof of discrimination, and a non-significant one "
         "is not proof of fairness. An association is not proof of cause. Follow applicable law and policy, and seek "
@@ -613,7 +629,21 @@ def expect(condition, premise):
 
 
 def p_text(p):
-    return "p < 0.001" if p < 0.001 else f"p = {p:.3f}" if p < 0.1 else f"p = {p:.2f}"
+    return "p < 0.001" if p < 0.001 else f"p = {fixed(p, 3)}" if p < 0.1 else f"p = {fixed(p, 2)}"
+
+
+def fixed(number, places, grouping=False):
+    """A number with `places` decimals as Calc displays it: from its 15 significant digits, rounded half
+    away from zero. (Python's own formatting rounds the binary value half to even: f"{0.0625:.1%}" gives
+    6.2% where the cell shows 6.3%.) Every number the notes quote goes through here or percent()."""
+    rounded = decimal.Decimal(f"{number:.15g}").quantize(decimal.Decimal(1).scaleb(-places),
+                                                           rounding=decimal.ROUND_HALF_UP)
+    return f"{rounded:,.{places}f}" if grouping else f"{rounded:.{places}f}"
+
+
+def percent(share, places):
+    """A share as a percentage with `places` decimals, rounded as Calc displays it (see fixed)."""
+    return fixed(float(decimal.Decimal(f"{share:.15g}") * 100), places) + "%"
 
 
 # ---------------------------------------------------------------------------------------------
@@ -783,10 +813,10 @@ def region_notes(s, row, p_cell, residual_row):
     s.text(f"A{row}", "Reading the results", "Assoc section")
     s.notes(f"A{row + 1}", [
         f"Exception rates differ between regions ({p_text(value(p_cell))}); {top} has the highest rate "
-        f"({rates[top]:.1%}). Adjusted residuals beyond ±2: {', '.join(sorted({b[0] for b in beyond}))}. After "
-        f"Holm's adjustment for the {2 * len(rates)} cells only {top}'s stay small (p = "
-        f"{min(h for l, _, _, h in beyond if l == top):.4f}): it has more exceptions, and fewer clean invoices, "
-        f"than independence predicts. {', '.join(others)} alone would not count as standing out.",
+        f"({percent(rates[top], 1)}). Adjusted residuals beyond ±2: {', '.join(sorted({b[0] for b in beyond}))}. "
+        f"After Holm's adjustment for the {2 * len(rates)} cells only {top}'s stay small (p = "
+        f"{fixed(min(h for l, _, _, h in beyond if l == top), 4)}): it has more exceptions, and fewer clean "
+        f"invoices, than independence predicts. {', '.join(others)} alone would not count as standing out.",
         f"An association is not proof of cause: {top} may route more invoices through manual overrides, or have "
         "larger invoices (see the other sheets), rather than check them worse. Cramér's V is small although the "
         "p-value is small: with many invoices, modest differences become significant.",
@@ -845,15 +875,15 @@ def channel_notes(s, row, fit_row, p_cell, simulated_cell):
     expect(value(f"B{fit_row}") < 0.05, "the channel mix departs from the planned mix")
     s.text(f"A{row}", "Reading the results", "Assoc section")
     s.notes(f"A{row + 1}", [
-        f"Manual overrides end in an exception far more often ({rates['Manual override']:.1%}) than automatic "
-        f"matches ({rates['Automatic match']:.1%}); {p_text(value(p_cell))}. None of the {trials:,} random tables "
-        f"of ASSOC.SIMULATE was as extreme, so its p-value is at its floor, 1/{trials + 1:,}: a simulated p-value "
-        "is never 0, only as small as the number of trials allows.",
+        f"Manual overrides end in an exception far more often ({percent(rates['Manual override'], 1)}) than "
+        f"automatic matches ({percent(rates['Automatic match'], 1)}); {p_text(value(p_cell))}. None of the "
+        f"{trials:,} random tables of ASSOC.SIMULATE was as extreme, so its p-value is at its floor, "
+        f"1/{trials + 1:,}: a simulated p-value is never 0, only as small as the number of trials allows.",
         "An association is not proof of cause: overrides may be used for invoices that were already unusual. The "
         f"goodness-of-fit test ({p_text(value(f'B{fit_row}'))}) asks another question: the channel mix departs "
         "from the planned mix.",
-        f"Small samples and many tests mislead: only {value('D8'):.0f} invoices went through manual override, and "
-        "each extra test adds a chance of a false alarm.",
+        f"Small samples and many tests mislead: only {fixed(value('D8'), 0)} invoices went through manual override, "
+        "and each extra test adds a chance of a false alarm.",
     ], width=150)
 
 
@@ -886,13 +916,13 @@ def band_notes(s, row, trend_cell):
     expect(value(trend_cell) < 0.01 and z < 0 and rates == sorted(rates), "the exception rate rises band by band")
     s.text(f"A{row}", "Reading the results", "Assoc section")
     s.notes(f"A{row + 1}", [
-        f"The exception rate rises from band to band, from {rates[0]:.1%} to {rates[-1]:.1%} (trend "
-        f"{p_text(value(trend_cell))}). z = {z:.2f} is negative because the first column of the table is 'No' (the "
-        "labels are sorted): the share without an exception falls as invoices grow. The trend test uses the order "
-        "of the bands (scores 1 to 4); the Pearson test ignores it.",
-        f"The largest band holds only {value('D9'):.0f} invoices: ASSOC.CHECK reports its small expected count, and "
-        "the exact p-value is the safer guide there. Larger invoices may differ in other ways (supplier, channel): "
-        "an association is not proof of cause.",
+        f"The exception rate rises from band to band, from {percent(rates[0], 1)} to {percent(rates[-1], 1)} (trend "
+        f"{p_text(value(trend_cell))}). z = {fixed(z, 2)} is negative because the first column of the table is 'No' "
+        "(the labels are sorted): the share without an exception falls as invoices grow. The trend test uses the "
+        "order of the bands (scores 1 to 4); the Pearson test ignores it.",
+        f"The largest band holds only {fixed(value('D9'), 0)} invoices: ASSOC.CHECK reports its small expected "
+        "count, and the exact p-value is the safer guide there. Larger invoices may differ in other ways (supplier, "
+        "channel): an association is not proof of cause.",
     ], width=150)
 
 
@@ -948,15 +978,141 @@ def reaudit_notes(s):
     expect(value("B13") < 0.05 and found > 3 * cleared, "the changes go mostly one way, significantly")
     s.text("A16", "Reading the results", "Assoc section")
     s.notes("A17", [
-        f"The two checks agree on most invoices. Of the changes, {found:.0f} are exceptions the first check missed "
-        f"and {cleared:.0f} is one the re-audit cleared: the changes go one way (exact {p_text(value('B13'))}; "
-        f"McNemar {p_text(value('B12'))}). The paired tests weigh only the changes; agreement does not enter them.",
-        f"So the first check seems to miss exceptions: {found:.0f} of the {first_no:.0f} re-audited invoices it "
-        f"passed ({found / first_no:.0%}). With only {found + cleared:.0f} changes that share is uncertain: small "
-        "samples mislead, and the re-audit is not proof of why the first check missed them.",
+        f"The two checks agree on most invoices. Of the changes, {fixed(found, 0)} are exceptions the first check "
+        f"missed and {fixed(cleared, 0)} is one the re-audit cleared: the changes go one way (exact "
+        f"{p_text(value('B13'))}; McNemar {p_text(value('B12'))}). The paired tests weigh only the changes; "
+        "agreement does not enter them.",
+        f"So the first check seems to miss exceptions: {fixed(found, 0)} of the {fixed(first_no, 0)} re-audited "
+        f"invoices it passed ({percent(found / first_no, 0)}). With only {fixed(found + cleared, 0)} changes that "
+        "share is uncertain: small samples mislead, and the re-audit is not proof of why the first check missed "
+        "them.",
         "No residual heat map here: for paired answers the question is the balance of the changes, not "
         "whether rows and columns are independent.",
     ], width=100)
+
+
+# ---------------------------------------------------------------------------------------------
+# The demo's workbook (scripts/demo.py prints the named ranges CountTable and AssocReport)
+
+# Promotion decisions in 2025 by department (invented): promoted, not promoted.
+DEPARTMENTS = [("Engineering", 22, 98), ("Sales", 18, 62), ("Operations", 9, 111), ("Finance", 7, 38),
+               ("Customer Support", 6, 84)]
+# The styles of ASSOC.REPORT's 22 values, line by line (see its result in docs/functions.md).
+REPORT_STYLES = (["Assoc count"] * 4 + ["Assoc ratio", "Assoc p-value", "Assoc ratio", "Assoc p-value"]
+                 + ["Assoc text"] * 2 + ["Assoc p-value", "Assoc ratio", "Assoc text"] + ["Assoc strength"] * 3
+                 + ["Assoc ratio", "Assoc rate"] + ["Assoc text"] * 4)
+
+
+def build_promotions(office, out):
+    book = Workbook(office, "Larkspur Components Ltd: promotions in 2025 by department (invented)")
+    s = book.sheet("Promotions", [7.0, 2.8, 2.8, 2.8, 0.6, 8.0, 12])
+    s.text("A1", "Larkspur Components Ltd: promotions in 2025 by department", "Assoc title")
+    s.text("A2", "Invented data of a fictional company, for the Assoc demo. Every result below is a live formula on "
+                 "the table A4:C9; the grey text beside a key figure is its formula.", "Assoc note")
+    # The corner cell names both variables, for the report's conclusion.
+    header_row(s, "A4", ["Department / Promotion outcome", "Promoted", "Not promoted", "Promotion rate"])
+    s.put("A5", [[name] for name, _, _ in DEPARTMENTS])
+    s.put("B5", [[promoted, not_promoted] for _, promoted, not_promoted in DEPARTMENTS], "Assoc count")
+    for r in range(5, 10):
+        s.formula(f"D{r}", f"=B{r}/(B{r}+C{r})", "Assoc rate")
+    book.name_range("CountTable", s, "A4:C9")
+
+    s.text("F4", "Report: ASSOC.REPORT(A4:C9; 0.05)", "Assoc header", across="G4")
+    s.array("F5:G26", "=ASSOC.REPORT(A4:C9; 0.05)", "Assoc label")
+    left = uno_enum("com.sun.star.table.CellHoriJustify", "LEFT")
+    for offset, style in enumerate(REPORT_STYLES):
+        value = s.cells(f"G{5 + offset}")
+        value.CellStyle = style
+        value.HoriJustify = left
+    book.name_range("AssocReport", s, "F5:G26")
+
+    for top, title, formula in ((11, "Expected counts if promotion were unrelated to department",
+                                 "=ASSOC.EXPECTED(A4:C9)"),
+                                (18, "Adjusted residuals (heat map; beyond ±2 stands out)",
+                                 '=ASSOC.RESIDUALS(A4:C9; "adjusted")')):
+        s.text(f"A{top}", title, "Assoc header", across=f"C{top}")
+        for i in range(5):
+            s.formula(f"A{top + 1 + i}", f"=A{5 + i}")
+        s.array(f"B{top + 1}:C{top + 5}", formula, "Assoc residual")
+    s.cells("B12:C16").NumberFormat = book.number_format("0.0")
+    s.heat_map("B19:C23")
+    s.heat_map_key("A27")
+
+    s.text("A30", "Key figures", "Assoc header", across="D30")
+    s.text("F30", "Formula", "Assoc header")
+    rows = [("Pearson X², degrees of freedom, p-value", "B31:D31", "=ASSOC.STATISTIC(A4:C9)",
+             ("Assoc ratio", "Assoc whole", "Assoc p-value")),
+            ("p-value of the likelihood-ratio G²", "B32", '=ASSOC.PVALUE(A4:C9; "g")', ("Assoc p-value",)),
+            ("Critical X² at 5% for these degrees of freedom", "B33", "=ASSOC.CRITICAL(ASSOC.DF(A4:C9); 0.05)",
+             ("Assoc ratio",)),
+            ("Cramér's V", "B34", "=ASSOC.STRENGTH(A4:C9)", ("Assoc strength",)),
+            ("Cramér's V, bias-corrected", "B35", '=ASSOC.STRENGTH(A4:C9; "cramer-corrected")',
+             ("Assoc strength",))]
+    for label, cells, text, styles in rows:
+        r = cells.split(":")[0][1:]
+        s.text(f"A{r}", label, "Assoc label")
+        if ":" in cells:
+            s.array(cells, text, None, show=f"F{r}")
+        else:
+            s.formula(cells, text, None, show=f"F{r}")
+        for offset, style in enumerate(styles):
+            s.raw.getCellByPosition(1 + offset, int(r) - 1).CellStyle = style
+    for r, label, text in ((36, "Can the test be trusted?", "=ASSOC.CHECK(A4:C9)"),
+                           (37, "And with Yates' correction?", '=ASSOC.CHECK(A4:C9; "yates")')):
+        s.text(f"A{r}", label, "Assoc label")
+        s.formula(f"B{r}", text, "Assoc text")
+        s.cells(f"B{r}:D{r}").merge(True)
+        s.show_formula(f"F{r}", f"B{r}")
+    s.chart("DepartmentRates", "G30", (12, 7.5), ["A4:A9", "D4:D9"], "Promotion rate by department",
+            "Share promoted", percent=True, legend=False)
+
+    def tidy():
+        s.cells("A4:G26").Rows.OptimalHeight = True
+        for r in (36, 37):
+            s.fit_text_height(f"B{r}", 46)
+    store(office, book, out / "promotions.fods", [tidy, lambda: promotions_notes(s, chart_bottom=("G30", 7500))])
+
+
+def promotions_notes(s, chart_bottom):
+    value = lambda cell: s.cells(cell).getValue()  # noqa: E731
+    departments = [s.cells(f"A{r}").getString() for r in range(5, 10)]
+    rates = {name: value(f"D{5 + i}") for i, name in enumerate(departments)}
+    residuals = {name: value(f"B{19 + i}") for i, name in enumerate(departments)}
+    staff = {name: value(f"B{5 + i}") + value(f"C{5 + i}") for i, name in enumerate(departments)}
+    promoted = sum(value(f"B{r}") for r in range(5, 10))
+    more = [name for name in departments if residuals[name] > 2]
+    fewer = [name for name in departments if residuals[name] < -2]
+    within = [name for name in departments if abs(residuals[name]) <= 2]
+    highest, lowest = max(rates, key=rates.get), min(rates, key=rates.get)
+    smallest = min(staff, key=staff.get)
+    x2, df, p = value("B31"), value("C31"), value("D31")
+    expect(p < 0.05 and len(more) == 1 and len(fewer) == 2 and s.cells("B36").getString().startswith("Sound"),
+           "the association is significant, the test sound, and one department has more and two fewer "
+           "promotions than independence predicts")
+
+    # The notes start below the chart (and below the key figures).
+    cell, height = chart_bottom
+    bottom = s.cells(cell).Position.Y + height
+    row = next(r for r in range(38, 200) if s.cells(f"A{r}").Position.Y >= bottom) + 1
+    s.text(f"A{row}", "Reading the results", "Assoc section")
+    listed = lambda names: " and ".join(f"{n} ({fixed(residuals[n], 2)})" for n in names)  # noqa: E731
+    s.notes(f"A{row + 1}", [
+        f"Promotion rates run from {percent(rates[lowest], 1)} ({lowest}) to {percent(rates[highest], 1)} "
+        f"({highest}); over all {fixed(sum(staff.values()), 0)} staff {percent(promoted / sum(staff.values()), 1)} "
+        f"were promoted. Pearson X² = {fixed(x2, 2)} with {fixed(df, 0)} degrees of freedom ({p_text(p)}): at the 5% "
+        f"level, department and promotion outcome appear associated. Cramér's V of {fixed(value('B34'), 3)} puts "
+        "the strength of the association nearer 0 (none) than 1. ASSOC.CHECK finds the test sound.",
+        f"The heat map shows where: {listed(more)} had more promotions than independence predicts (orange), "
+        f"{listed(fewer)} fewer (blue); {', '.join(within[:-1])} and {within[-1]} stay within ±2. With two columns "
+        "the residuals of 'Not promoted' mirror those of 'Promoted'. With ten cells, one just beyond ±2 can arise "
+        "by chance: ASSOC.CELLTEST adjusts each cell's p-value for the number of cells.",
+        "Cautions: an association is not proof of cause. Departments differ in roles, grades and vacancies, and "
+        "another variable can create, hide or reverse a difference (the Offices sheet of hr_review.fods shows a "
+        f"pooled difference that vanishes office by office). Small samples and many tests mislead: {smallest} has "
+        f"only {fixed(staff[smallest], 0)} staff, and at the 5% level about one test in twenty is 'significant' by "
+        "chance alone. For decisions about people a significant result is not proof of discrimination, and a "
+        "non-significant one is not proof of fairness. Follow applicable law and policy, and seek qualified advice.",
+    ], width=165)
 
 
 # ---------------------------------------------------------------------------------------------
@@ -1003,12 +1159,15 @@ def build_quick_start(office, out):
                 show=f"G{top + 2}")
     s.heat_map("C16:E18")
     s.heat_map_key("B20")
+    s.chart("BranchOutcomes", "I8", (9.4, 5.8), ["B2:E5"], "Check outcome by branch", "Share of invoices",
+            stacked_shares=True)
     s.notes("B23", [
         "Type the table with its labels (B2:E5), then =ASSOC.PVALUE(B2:E5) in an empty cell. For a result that "
         "is an array, select the whole output range first (C10:E12 for the expected counts), type the formula and "
         "press Ctrl+Shift+Enter. Entered in one cell, such a function shows only its first (headline) value.",
-        "Riverside returns more invoices than independence predicts (orange) and Hillcrest fewer (blue). An "
-        "association is not proof of cause: the branches may receive different kinds of invoices.",
+        "Riverside returns more invoices than independence predicts (orange) and Hillcrest fewer (blue); the chart "
+        "shows each branch's mix of outcomes from the table. An association is not proof of cause: the branches "
+        "may receive different kinds of invoices.",
     ], width=120)
 
     def tidy():
@@ -1144,20 +1303,23 @@ def build_finance(office, out):
            lambda: band_notes(band, band_row, trend_cell), lambda: reaudit_notes(reaudit), tidy])
 
 
+BUILDERS = {"quick_start": build_quick_start, "promotions": build_promotions, "hr_review": build_hr,
+            "invoice_exceptions": build_finance}
+
+
 def main():
     parser = argparse.ArgumentParser(description=__doc__, formatter_class=argparse.RawDescriptionHelpFormatter)
     parser.add_argument("--oxt", required=True, help="the built extension, e.g. build/extension/assoc.oxt")
     parser.add_argument("--out", default=str(HERE.parent / "samples"), help="folder for the .fods files")
+    parser.add_argument("--only", nargs="+", choices=sorted(BUILDERS), help="build only these workbooks")
     options = parser.parse_args()
     out = pathlib.Path(options.out).resolve()
     out.mkdir(parents=True, exist_ok=True)
     with ThrowawayOffice(options.oxt, log=lambda message: print(f"[office] {message}", flush=True)) as office:
-        build_quick_start(office, out)
-        print(f"wrote {out / 'quick_start.fods'}")
-        build_hr(office, out)
-        print(f"wrote {out / 'hr_review.fods'}")
-        build_finance(office, out)
-        print(f"wrote {out / 'invoice_exceptions.fods'}")
+        for name, build in BUILDERS.items():
+            if options.only is None or name in options.only:
+                build(office, out)
+                print(f"wrote {out / (name + '.fods')}")
 
 
 if __name__ == "__main__":

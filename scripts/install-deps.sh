@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # Installs the Debian packages Assoc needs to build and test (and, with --bench or
-# --reference, the reference tools). Uses sudo when not root; skips what is installed.
+# --reference, the reference tools; with --render, what the guide's screenshots need).
+# Uses sudo when not root; skips what is installed.
 set -euo pipefail
 
 packages=(cmake g++ make libboost-math-dev libgtest-dev
@@ -9,6 +10,7 @@ for arg in "$@"; do
   case "$arg" in
     --bench) packages+=(r-base-core) ;;
     --reference) packages+=(python3-scipy python3-statsmodels python3-mpmath r-base-core) ;;
+    --render) packages+=(python3-pil fonts-liberation2) ;;
     *) echo "install-deps.sh: unknown option $arg" >&2; exit 2 ;;
   esac
 done

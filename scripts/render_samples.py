@@ -6,8 +6,9 @@ pdftoppm turns the page into a PNG that is cropped to its content and reduced to
 
     /usr/bin/python3 scripts/render_samples.py --oxt build/extension/assoc.oxt [--out docs/images]
 
-scripts/render_samples.sh builds the extension first. Needs pdftoppm (poppler-utils) and Pillow
-(python3-pil) besides the office.
+scripts/render_samples.sh builds the extension first. Needs pdftoppm (poppler-utils), Pillow
+(python3-pil) and the Liberation fonts the samples use (fonts-liberation2; without them the office
+draws a wider substitute, text wraps differently and the shots no longer match the guide).
 """
 
 import argparse
@@ -35,7 +36,7 @@ COLOURS = 64
 SHOTS = [
     ("quick-start.png", "quick_start.fods", "Quick start", "B1:K7"),
     ("arrays.png", "quick_start.fods", "Quick start", "B8:H21"),
-    ("report.png", "promotions.fods", "Promotions", "A4:G26"),
+    ("report.png", "promotions.fods", "Promotions", "A4:G28"),
     ("simpson.png", "hr_review.fods", "Offices", "A1:N24"),
     ("simpson-why.png", "hr_review.fods", "Offices", "A25:I42"),
     ("impact.png", "hr_review.fods", "Selection", "A11:N27"),
@@ -89,6 +90,12 @@ def main():
     options = parser.parse_args()
     if shutil.which("pdftoppm") is None:
         raise SystemExit("pdftoppm is missing: install poppler-utils")
+    if shutil.which("fc-match") is not None:
+        found = subprocess.run(["fc-match", "-f", "%{family}", "Liberation Sans"], capture_output=True,
+                               text=True).stdout
+        if "Liberation Sans" not in found:
+            raise SystemExit(f"the font Liberation Sans is missing (the office would draw {found or 'another'}): "
+                             "install fonts-liberation2")
     out = pathlib.Path(options.out).resolve()
     out.mkdir(parents=True, exist_ok=True)
     with ThrowawayOffice(options.oxt, log=lambda message: print(f"[office] {message}", flush=True)) as office, \

@@ -7,6 +7,7 @@ set -euo pipefail
 out=""
 [ $# -ge 1 ] && out="$(realpath -m "$1")"
 cd "$(dirname "$0")/.."
+scripts/install-deps.sh --render
 cmake -S . -B build
 cmake --build build -j2 --target assoc_oxt
 /usr/bin/python3 scripts/render_samples.py --oxt "$(pwd)/build/extension/assoc.oxt" ${out:+--out "$out"}

@@ -9,6 +9,10 @@ with scipy 1.10.1, numpy 1.24.2, statsmodels 0.13.5 and R 4.2.2 from the samples
 counts that ASSOC.COUNTS makes of the invoice records are recounted here in Python from the records
 as the recalculated sheet holds them, and the selection rates of ASSOC.IMPACT are exact fractions.
 The data are invented (Larkspur Components Ltd is a fictional company).
+
+Every analysis sheet (all but the record sheets a class lists) must also carry a chart, and a heat
+map (a colour scale in our HEAT_MAP colours) over each ASSOC.RESIDUALS(...; "adjusted") block, with
+the key beside it; a sheet without such a block must be listed, with its reason, as having none.
 """
 
 import argparse
@@ -24,6 +28,7 @@ from fractions import Fraction
 ROOT = pathlib.Path(__file__).resolve().parents[2]
 sys.path.insert(0, str(ROOT / "scripts"))
 import assoc_office  # noqa: E402
+from build_samples import HEAT_MAP  # noqa: E402
 
 REFERENCE = json.loads((ROOT / "tests" / "reference" / "samples_values.json").read_text())
 SAMPLES = ROOT / "samples"
@@ -36,6 +41,8 @@ office = None
 class SampleCase:
     """Opens one workbook for the class and recalculates it (mixed into a TestCase)."""
     workbook = None
+    record_sheets = ()    # sheets of records only, not analysis sheets
+    without_heat_map = {}  # analysis sheets that rightly have no residual heat map: the reason
 
     @classmethod
     def setUpClass(cls):
@@ -72,6 +79,71 @@ class SampleCase:
             self.assertEqual(errors.getCount(), 0, f"{sheet.Name}: error cells {errors.RangeAddressesAsString}")
             formulas += sheet.queryFormulaCells(1 | 2 | 4).getCount()  # VALUE | STRING | ERROR
         self.assertGreater(formulas, 0)
+
+    def analysis_sheets(self):
+        sheets = [self.doc.Sheets.getByIndex(i) for i in range(self.doc.Sheets.Count)]
+        return [sheet for sheet in sheets if sheet.Name not in self.record_sheets]
+
+    def test_every_analysis_sheet_has_a_chart(self):
+        for sheet in self.analysis_sheets():
+            with self.subTest(sheet.Name):
+                charts = sheet.Charts
+                self.assertGreater(charts.getCount(), 0, f"{sheet.Name} has no chart")
+                for index in range(charts.getCount()):
+                    self.assertTrue(charts.getByIndex(index).getRanges(), f"{sheet.Name}: a chart without data")
+
+    def test_adjusted_residuals_have_a_heat_map_and_its_key(self):
+        from com.sun.star.sheet.ConditionEntryType import COLORSCALE
+        colours = [colour for _, colour, _ in HEAT_MAP]
+        points = [str(value) for value, _, _ in HEAT_MAP]
+        for sheet in self.analysis_sheets():
+            with self.subTest(sheet.Name):
+                blocks = residual_blocks(sheet)
+                if sheet.Name in self.without_heat_map:
+                    self.assertEqual(blocks, [], f"{sheet.Name} is listed as having no residual heat map")
+                    continue
+                self.assertTrue(blocks, f"{sheet.Name} has no ASSOC.RESIDUALS(...; \"adjusted\") block; list it "
+                                        "in without_heat_map with the reason if it rightly has none")
+                scales = []
+                for conditional in sheet.ConditionalFormats.getConditionalFormats():
+                    entries = [conditional.getByIndex(i) for i in range(conditional.getCount())]
+                    for entry in entries:
+                        if entry.getType() == COLORSCALE:
+                            scale = entry.ColorScaleEntries
+                            self.assertEqual([point.getColor() for point in scale], colours, sheet.Name)
+                            self.assertEqual([point.getFormula() for point in scale], points, sheet.Name)
+                            scales += [address_tuple(a) for a in conditional.Range.getRangeAddresses()]
+                for block in blocks:
+                    self.assertTrue(any(covers(scale, block) for scale in scales),
+                                    f"{sheet.Name}: no colour scale over the adjusted residuals at {block}")
+                search = sheet.createSearchDescriptor()
+                search.SearchString = "Heat map (adjusted residuals):"
+                self.assertIsNotNone(sheet.findFirst(search), f"{sheet.Name}: the heat map has no key")
+
+
+def residual_blocks(sheet):
+    """(first column, first row, last column, last row) of each array formula of the sheet that
+    computes adjusted residuals."""
+    blocks = []
+    formulas = sheet.queryFormulaCells(1 | 2 | 4).getCells().createEnumeration()  # VALUE | STRING | ERROR
+    while formulas.hasMoreElements():
+        cell = formulas.nextElement()
+        text = cell.getFormula().upper()
+        if ".RESIDUALS(" in text and '"ADJUSTED"' in text:
+            cursor = sheet.createCursorByRange(cell)
+            cursor.collapseToCurrentArray()
+            block = address_tuple(cursor.RangeAddress)
+            if block not in blocks:
+                blocks.append(block)
+    return blocks
+
+
+def address_tuple(address):
+    return address.StartColumn, address.StartRow, address.EndColumn, address.EndRow
+
+
+def covers(outer, inner):
+    return outer[0] <= inner[0] and outer[1] <= inner[1] and outer[2] >= inner[2] and outer[3] >= inner[3]
 
 
 class QuickStart(SampleCase, unittest.TestCase):
@@ -161,6 +233,9 @@ class HumanResources(SampleCase, unittest.TestCase):
 class Invoices(SampleCase, unittest.TestCase):
     workbook = "invoice_exceptions.fods"
     reference = REFERENCE["finance"]
+    record_sheets = ("Invoices",)
+    # Paired answers: the question is the balance of the changes, not whether rows and columns are independent.
+    without_heat_map = {"Re-audit": "paired answers (McNemar): no test of independence, so no residuals"}
 
     @classmethod
     def setUpClass(cls):
