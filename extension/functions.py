@@ -40,7 +40,9 @@ function that takes no range at all (ASSOC.CHECK then reads its numbers from the
 from dataclasses import dataclass, field
 from typing import Dict, List, Optional
 
-# The wizard category; one of the names Calc honours.
+# The wizard category of every function (the add-in reports it to Calc); one of the names Calc honours:
+# Database, Date&Time, Financial, Information, Logical, Mathematical, Matrix, Statistical, Spreadsheet,
+# Text, Add-In.
 CATEGORY = "Statistical"
 
 
@@ -165,7 +167,8 @@ CONTINUITY = Options("continuity", "correction", "assoc::Continuity", [
 ], include="assoc/mantel_haenszel.hpp")
 
 PAIRED_METHODS = Options("paired_method", "method", "std::optional<assoc::PairedMethod>", [
-    Word("corrected", "McNemar's test with the continuity correction, (|b − c| − 1)² / (b + c) (2×2 tables)",
+    Word("corrected", "McNemar's test with the continuity correction, max(0, |b − c| − 1)² / (b + c) "
+                      "(2×2 tables; the correction never exceeds the difference)",
          "assoc::PairedMethod::corrected"),
     Word("uncorrected", "McNemar's test without the correction, (b − c)² / (b + c); for a larger square table "
                         "Bowker's test of symmetry", "assoc::PairedMethod::uncorrected"),

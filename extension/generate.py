@@ -323,7 +323,8 @@ def trial_body(function, option_argument=None, word=None):
                           else omitted_value(argument.options))
         else:
             values.append("assoc::Cell::blank()")
-    statements.append(f"(void)cell_functions::{function.method}({', '.join(values)});")
+    # Through to_any, as the UNO method does, so that a result that is not a finite number fails here too.
+    statements.append(f"(void)to_any(cell_functions::{function.method}({', '.join(values)}));")
     return " ".join(statements)
 
 
@@ -371,6 +372,8 @@ def source():
         lines.append(f"    {cpp_string(options.name)}, {{{entries}}},")
         lines.append(f"    {omitted_value(options)}, {{{refused}}});")
     lines += ["", "}  // namespace", "",
+              f"const char* const function_category = {cpp_string(spec.CATEGORY)};",
+              "",
               "const std::vector<FunctionInfo>& function_catalog() {",
               "    static const std::vector<FunctionInfo> catalog = {"]
     for function in spec.FUNCTIONS:

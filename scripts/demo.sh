@@ -22,6 +22,7 @@ cat <<EOT
 
 To use Assoc in your own LibreOffice (close LibreOffice first):
   unopkg add "$oxt"
+(as root, unopkg installs for every user of the machine only: unopkg add --shared "$oxt")
 or in LibreOffice: Tools > Extension Manager > Add..., choose that file, and restart LibreOffice.
 The functions are in the Function Wizard's Statistical category (ASSOC.*); see docs/functions.md.
 The user guide, docs/guide.md, works through the other sample workbooks in samples/ (promotions by

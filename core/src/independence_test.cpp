@@ -3,10 +3,6 @@
 
 namespace assoc {
 
-double degrees_of_freedom(const CountTable& table) {
-    return static_cast<double>(table.rows() - 1) * static_cast<double>(table.columns() - 1);
-}
-
 TestResult independence_test(const CountTable& table, Method method) {
     TestResult result;
     switch (method) {

@@ -17,7 +17,6 @@ namespace {
 using css::uno::Sequence;
 
 constexpr const char* implementation_name = "org.assocproject.calc.Functions";
-constexpr const char* category = "Statistical";  // one of the category names Calc honours
 
 Sequence<OUString> service_names() {
     Sequence<OUString> names(2);
@@ -67,8 +66,8 @@ public:
         const ArgumentInfo* argument = argument_of(method, index);
         return argument ? text(argument->description) : OUString();
     }
-    OUString SAL_CALL getProgrammaticCategoryName(const OUString&) override { return text(category); }
-    OUString SAL_CALL getDisplayCategoryName(const OUString&) override { return text(category); }
+    OUString SAL_CALL getProgrammaticCategoryName(const OUString&) override { return text(function_category); }
+    OUString SAL_CALL getDisplayCategoryName(const OUString&) override { return text(function_category); }
 
     // XLocalizable: the texts are English only; the locale is kept because Calc sets it.
     void SAL_CALL setLocale(const css::lang::Locale& locale) override { locale_ = locale; }

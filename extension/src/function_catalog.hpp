@@ -38,6 +38,8 @@ struct FunctionTrial {
     void (*run)(const CellGrid& range);
 };
 
+// The Function Wizard category of every function (CATEGORY in functions.py).
+extern const char* const function_category;
 const std::vector<FunctionInfo>& function_catalog();
 const std::vector<FunctionTrial>& function_trials();
 

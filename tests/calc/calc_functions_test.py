@@ -5,7 +5,7 @@
 
 Installs the .oxt into a throwaway profile, starts one headless soffice (scripts/assoc_office.py),
 and checks every function against outside references: the published figures in
-../shared/references.md (named beside each check) and values computed with scipy 1.10.1,
+tests/reference/published_values.md (named beside each check) and values computed with scipy 1.10.1,
 numpy 1.24.2 and statsmodels 0.13.5 by make_reference_values.py (stored in reference_values.json).
 Also: the Function Wizard's texts, errors for bad input with ASSOC.CHECK explaining them, and
 results that survive saving as .ods and loading again. CTest runs it (tests/calc/CMakeLists.txt).
@@ -65,7 +65,7 @@ class ExpectedCounts(CalcTestCase):
 class TestStatistics(CalcTestCase):
     def test_pearson_and_g_match_agresti(self):
         table = self.put(PARTY)
-        # Agresti (2007) quotes X² ≈ 30.1 and G² ≈ 30.0 (references.md section 3).
+        # Agresti (2007) quotes X² ≈ 30.1 and G² ≈ 30.0 (published_values.md section 3).
         pearson = self.number("F1", f"=ASSOC.STATISTIC({table})")
         g = self.number("F2", f'=ASSOC.STATISTIC({table}; "g")')
         self.assertEqual(round(pearson, 1), 30.1)
@@ -95,7 +95,7 @@ class TestStatistics(CalcTestCase):
 
     def test_p_values_match_agresti_and_scipy(self):
         table = self.put(PARTY)
-        # references.md section 3: p 2.9535891832e-07 (X²) and 3.0335979106e-07 (G²).
+        # published_values.md section 3: p 2.9535891832e-07 (X²) and 3.0335979106e-07 (G²).
         self.assertClose(self.number("F1", f"=ASSOC.PVALUE({table})"), 2.9535891832e-07, 1e-9, "p of X²")
         self.assertClose(self.number("F2", f'=ASSOC.PVALUE({table}; "g")'), 3.0335979106e-07, 1e-9, "p of G²")
         teams = self.put(TEAMS, row=5)
@@ -119,7 +119,7 @@ class TestStatistics(CalcTestCase):
 class CriticalValues(CalcTestCase):
     def test_match_the_nist_table(self):
         # NIST/SEMATECH e-Handbook of Statistical Methods 1.3.6.7.4, upper-tail critical values
-        # (3 decimals; references.md section 1).
+        # (3 decimals; published_values.md section 1).
         for df, alpha, nist in [(1, 0.05, 3.841), (2, 0.05, 5.991), (4, 0.05, 9.488), (10, 0.05, 18.307),
                                 (1, 0.01, 6.635), (4, 0.01, 13.277), (30, 0.01, 50.892), (10, 0.001, 29.588)]:
             with self.subTest(df=df, alpha=alpha):
@@ -132,7 +132,7 @@ class CriticalValues(CalcTestCase):
                 self.assertClose(got, entry["value"], 1e-12, "scipy chi2.isf")
 
     def test_use_alpha_five_percent_when_it_is_omitted(self):
-        # references.md section 1: df 2, alpha 0.05, mpmath 50-digit root 5.99146454710798199.
+        # published_values.md section 1: df 2, alpha 0.05, mpmath 50-digit root 5.99146454710798199.
         self.assertClose(self.number("A1", "=ASSOC.CRITICAL(2)"), 5.99146454710798199, 1e-12, "df 2")
         self.put([[2]], column=2)
         self.assertClose(self.number("A2", "=ASSOC.CRITICAL(C1)"), 5.99146454710798199, 1e-12, "df from a cell")
@@ -167,7 +167,7 @@ class Residuals(CalcTestCase):
 class Strength(CalcTestCase):
     def test_cramers_v_and_its_correction_match_the_references(self):
         table = self.put(PARTY)
-        # references.md sections 3 and 11: V = 0.10443580236, bias-corrected 0.10091998278.
+        # published_values.md sections 3 and 11: V = 0.10443580236, bias-corrected 0.10091998278.
         self.assertClose(self.number("F1", f"=ASSOC.STRENGTH({table})"), 0.10443580236, 1e-10, "V")
         self.assertClose(self.number("F2", f'=ASSOC.STRENGTH({table}; "cramer-corrected")'), 0.10091998278, 1e-10,
                          "corrected V")
@@ -220,12 +220,19 @@ class ReportBlock(CalcTestCase):
         self.assertEqual(lines["Total count (n)"], 2757)
         self.assertEqual(lines["Degrees of freedom"], 2)
         self.assertClose(lines["Pearson X²"], REFERENCE["party"]["pearson"][0], what="X² (scipy)")
-        self.assertClose(lines["p-value, Pearson X²"], 2.9535891832e-07, 1e-9, "p (references.md section 3)")
+        self.assertClose(lines["p-value, Pearson X²"], 2.9535891832e-07, 1e-9, "p (published_values.md section 3)")
         self.assertClose(lines["Likelihood-ratio G²"], REFERENCE["party"]["g"][0], what="G² (scipy)")
+        self.assertClose(lines["p-value, G²"], 3.0335979106e-07, 1e-9, "p of G² (published_values.md section 3)")
+        self.assertEqual(lines["Rows with counts"], 2)
+        self.assertEqual(lines["Columns with counts"], 3)
         self.assertEqual(lines["Yates-corrected X²"], "2×2 tables only")
+        # Exact arithmetic: the smallest expected count is males × Independent, 1200 · 566 / 2757.
+        self.assertClose(lines["Smallest expected count"], 1200 * 566 / 2757, 1e-12, "smallest E (exact)")
+        self.assertEqual(lines["Share of cells expecting fewer than 5"], 0)
+        self.assertTrue(lines["Validity"].startswith("Sound"), lines["Validity"])
         self.assertClose(lines["Critical X² at 5%"], 5.991464547107983, 1e-12, "critical (NIST, scipy)")
         self.assertTrue(lines["Decision at 5%"].startswith("Independence rejected"))
-        self.assertClose(lines["Cramér's V"], 0.10443580236, 1e-10, "V (references.md section 3)")
+        self.assertClose(lines["Cramér's V"], 0.10443580236, 1e-10, "V (published_values.md section 3)")
         self.assertEqual(lines["Conclusion"], "At the 5% level, gender and party appear associated (p = 3.0e-07).")
         self.assertIn("not proof of cause, nor of discrimination", lines["Caution"])
         self.assertEqual(block[-1][0], "Caution")
@@ -247,7 +254,7 @@ class ReportBlock(CalcTestCase):
 
     def test_tells_the_exact_p_value_in_its_conclusion_when_the_approximation_is_doubtful(self):
         lines = {label: value for label, value in self.array("F1:G22", f"=ASSOC.REPORT({self.put([[3, 1], [1, 3]])})")}
-        # Fisher's tea-tasting table (references.md section 2): two-sided exact p = 34/70.
+        # Fisher's tea-tasting table (published_values.md section 2): two-sided exact p = 34/70.
         self.assertClose(lines["p-value, exact test"], 34 / 70, 1e-12, "exact p (Fisher 1935)")
         self.assertTrue(lines["Conclusion"].endswith("the exact test gives p = 0.486."), lines["Conclusion"])
         self.assertEqual(lines["Cells that stand out"], "None: no cell's adjusted residual is beyond ±2")

@@ -2,7 +2,7 @@
 tests, goodness of fit, power and sample size, counts from records, strata, paired tables, trend and
 selection impact. Run by calc_functions_test.py (which starts the office); not a script of its own.
 
-Expected values: the published figures of ../shared/references.md (section named beside each check)
+Expected values: the published figures of tests/reference/published_values.md (section named beside each check)
 and values from R 4.2.2, scipy 1.10.1, numpy 1.24.2 and statsmodels 0.13.5 written by
 make_reference_values.py into reference_values.json ("functions").
 """
@@ -41,7 +41,7 @@ class ErrorCheckMixin:
 class ExactTest(CalcTestCase, ErrorCheckMixin):
     def test_gives_fishers_tea_tasting_p_values(self):
         table = self.put([[3, 1], [1, 3]])
-        # references.md section 2: one-sided 17/70, two-sided 34/70 (exact rationals).
+        # published_values.md section 2: one-sided 17/70, two-sided 34/70 (exact rationals).
         self.assertClose(self.number("F1", f"=ASSOC.EXACT({table})"), 34 / 70, 1e-12, "two-sided")
         self.assertClose(self.number("F2", f'=ASSOC.EXACT({table}; "upper")'), 17 / 70, 1e-12, "upper")
         self.assertClose(self.number("F3", f'=ASSOC.EXACT({table}; "Lower")'), EXACT["tea"]["lower"], 1e-12,
@@ -110,7 +110,7 @@ class ExactTest(CalcTestCase, ErrorCheckMixin):
 class SimulatedPValue(CalcTestCase, ErrorCheckMixin):
     def test_is_within_four_standard_errors_of_the_exact_p_value_of_the_tea_table(self):
         table = self.put([[3, 1], [1, 3]])
-        # references.md section 2: tables with X² ≥ 2 have probability 34/70 (so do those with G² ≥ G²obs).
+        # published_values.md section 2: tables with X² ≥ 2 have probability 34/70 (so do those with G² ≥ G²obs).
         for method in ("pearson", "g"):
             with self.subTest(method=method):
                 p, standard_error, trials = self.array("F1:H1", f'=ASSOC.SIMULATE({table}; ; ; "{method}")')[0]
@@ -150,7 +150,7 @@ class RatiosOfATwoByTwoTable(CalcTestCase, ErrorCheckMixin):
     def test_odds_ratio_matches_agresti_and_statsmodels(self):
         table = self.put(self.ASPIRIN)
         got = self.array("F1:H1", f"=ASSOC.ODDSRATIO({table})")[0]
-        # references.md section 10: Agresti (2007) Table 2.3 (from memory): 1.83 (1.44, 2.33).
+        # published_values.md section 10: Agresti (2007) Table 2.3 (from memory): 1.83 (1.44, 2.33).
         self.assertEqual([round(v, 2) for v in got], [1.83, 1.44, 2.33])
         self.assertAllClose([got], [FUNCTIONS["aspirin"]["95"]["odds"]], 1e-9, "OR, Woolf CI (statsmodels Table2x2)")
         got90 = self.array("F3:H3", f"=ASSOC.ODDSRATIO({table}; 0.9)")
@@ -159,13 +159,13 @@ class RatiosOfATwoByTwoTable(CalcTestCase, ErrorCheckMixin):
     def test_risk_ratio_matches_statsmodels(self):
         table = self.put(self.ASPIRIN)
         got = self.array("F1:H1", f"=ASSOC.RISKRATIO({table})")
-        # references.md section 10: RR 1.82, log-method CI (1.43, 2.31).
+        # published_values.md section 10: RR 1.82, log-method CI (1.43, 2.31).
         self.assertEqual([round(v, 2) for v in got[0]], [1.82, 1.43, 2.31])
         self.assertAllClose(got, [FUNCTIONS["aspirin"]["95"]["risk"]], 1e-9, "RR, log CI (statsmodels Table2x2)")
 
     def test_add_one_half_to_every_cell_when_one_is_zero_and_check_says_so(self):
         table = self.put(FUNCTIONS["zero_cell"]["counts"])
-        # references.md section 10: 0.5 added to every cell, statsmodels on table + 0.5.
+        # published_values.md section 10: 0.5 added to every cell, statsmodels on table + 0.5.
         self.assertAllClose(self.array("F1:H1", f"=ASSOC.ODDSRATIO({table})"), [FUNCTIONS["zero_cell"]["95"]["odds"]],
                             1e-9, "Haldane OR")
         self.assertAllClose(self.array("F2:H2", f"=ASSOC.RISKRATIO({table})"), [FUNCTIONS["zero_cell"]["95"]["risk"]],
@@ -215,7 +215,7 @@ class GoodnessOfFit(CalcTestCase, ErrorCheckMixin):
         observed = self.put([FUNCTIONS["mendel"]["observed"]])
         shares = self.put([FUNCTIONS["mendel"]["shares"]], row=1)
         p, statistic, df = self.array("F1:H1", f"=ASSOC.FIT({observed}; {shares})")[0]
-        # references.md section 6: X² = 196/417 exactly, df 3, p 0.925425895103616 (mpmath).
+        # published_values.md section 6: X² = 196/417 exactly, df 3, p 0.925425895103616 (mpmath).
         self.assertClose(statistic, 196 / 417, 1e-13, "X²")
         self.assertEqual(df, 3)
         self.assertClose(p, 0.925425895103616, 1e-12, "p")
@@ -237,7 +237,7 @@ class GoodnessOfFit(CalcTestCase, ErrorCheckMixin):
 class PowerAndSampleSize(CalcTestCase, ErrorCheckMixin):
     def test_match_cohen_and_scipy(self):
         power = FUNCTIONS["power"]
-        # references.md section 8: power at N = 87 is 0.799055746 and at N = 88 is 0.803527484 (R agrees).
+        # published_values.md section 8: power at N = 87 is 0.799055746 and at N = 88 is 0.803527484 (R agrees).
         self.assertClose(self.number("A1", "=ASSOC.POWER(0.3; 87; 1)"), power["w0.3_n87_df1"], 1e-9, "N 87")
         self.assertClose(self.number("A2", "=ASSOC.POWER(0.3; 88; 1)"), power["w0.3_n88_df1"], 1e-9, "N 88")
         self.assertClose(self.number("A3", "=ASSOC.POWER(0.5; 50; 2; 0.01)"), power["w0.5_n50_df2_alpha0.01"], 1e-9,
@@ -320,7 +320,7 @@ class Strata(CalcTestCase, ErrorCheckMixin):
 
     def test_mantel_haenszel_matches_statsmodels_and_r_for_the_berkeley_admissions(self):
         table = self.put_departments()
-        # references.md section 7 (Bickel et al. 1975; counts of R's UCBAdmissions): corrected χ² 1.4269462286,
+        # published_values.md section 7 (Bickel et al. 1975; counts of R's UCBAdmissions): corrected χ² 1.4269462286,
         # p 0.2322634628, common OR 0.9046968283, CI (0.7719073618, 1.0603297644).
         self.assertAllClose(self.array("H1:L1", f"=ASSOC.STRATA({table})"), [self.ADMISSIONS["corrected"]], 1e-9,
                             "corrected (statsmodels StratifiedTable)")
@@ -329,7 +329,7 @@ class Strata(CalcTestCase, ErrorCheckMixin):
 
     def test_breslow_day_matches_statsmodels(self):
         table = self.put_departments()
-        # references.md section 7: Tarone-corrected 18.825501252, p 0.0020714014, df 5.
+        # published_values.md section 7: Tarone-corrected 18.825501252, p 0.0020714014, df 5.
         self.assertAllClose(self.array("H1:J1", f"=ASSOC.HOMOGENEITY({table})"), [self.ADMISSIONS["homogeneity"]],
                             1e-9, "Breslow–Day, Tarone (statsmodels)")
 
@@ -357,7 +357,7 @@ class PairedTables(CalcTestCase, ErrorCheckMixin):
 
     def test_mcnemar_matches_the_approval_table(self):
         table = self.put(self.PAIRED["approval"])
-        # references.md section 5: X² uncorrected 17.36 (Agresti 1990 via R's ?mcnemar.test), corrected 16.8178.
+        # published_values.md section 5: X² uncorrected 17.36 (Agresti 1990 via R's ?mcnemar.test), corrected 16.8178.
         uncorrected = self.array("F1:H1", f'=ASSOC.PAIRED({table}; "uncorrected")')
         self.assertEqual(round(uncorrected[0][1], 2), 17.36)
         self.assertAllClose(uncorrected, [self.PAIRED["uncorrected"]], 1e-9, "uncorrected (statsmodels mcnemar)")
@@ -388,7 +388,7 @@ class Trend(CalcTestCase, ErrorCheckMixin):
                           ["Absent", *self.ALCOHOL["absent"]]])
         scores = self.put([self.ALCOHOL["scores"]], row=4)
         got = self.array("H1:I1", f"=ASSOC.TREND({table}; {scores})")
-        # references.md section 4: R prop.trend.test χ² = 6.570133945 = z², p 0.0103704146.
+        # published_values.md section 4: R prop.trend.test χ² = 6.570133945 = z², p 0.0103704146.
         self.assertAllClose(got, [self.ALCOHOL["trend"]], 1e-9, "p, z (R 4.2.2 prop.trend.test)")
         self.assertEqual(round(got[0][1] ** 2, 2), 6.57)
 
@@ -412,7 +412,7 @@ class SelectionImpact(CalcTestCase, ErrorCheckMixin):
         selected = self.put(column(self.IMPACT["selected"]), column=1)
         considered = self.put(column(self.IMPACT["considered"]), column=2)
         block = self.array("E1:G3", f"=ASSOC.IMPACT({selected}; {considered})")
-        # references.md section 9: rates .6, .4, .5; ratios 1, 2/3, 5/6; only G2 below 0.8 (29 CFR 1607.4(D)).
+        # published_values.md section 9: rates .6, .4, .5; ratios 1, 2/3, 5/6; only G2 below 0.8 (29 CFR 1607.4(D)).
         self.assertAllClose([row[:2] for row in block], [list(v) for v in zip(self.IMPACT["rates"],
                                                                               self.IMPACT["ratios"])], 1e-14, "rates")
         self.assertEqual([row[2] for row in block], ["", "below four-fifths of the highest rate", ""])

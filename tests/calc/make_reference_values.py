@@ -13,7 +13,7 @@ The "functions" section holds the values for the later worksheet functions (exac
 p-values, ratios, cell tests, goodness of fit, power, counts from records, strata, paired, trend,
 selection impact), from the same libraries and from R 4.2.2 (Rscript: fisher.test, mantelhaen.test,
 prop.trend.test, the UCBAdmissions data set). Their published sources are named beside each entry in
-../shared/references.md and beside each check in calc_functions_test.py.
+tests/reference/published_values.md and beside each check in calc_functions_test.py.
 """
 
 import json
@@ -163,7 +163,7 @@ def exact_conditional(counts):
 
 
 # Invented tables for the exact test (fictional firm); tea is Fisher's tea-tasting table
-# (Fisher 1935 via R's ?fisher.test; references.md section 2).
+# (Fisher 1935 via R's ?fisher.test; published_values.md section 2).
 EXACT_TABLES = {
     "tea": [[3, 1], [1, 3]],
     "teams": TABLES["teams"],
@@ -175,19 +175,19 @@ EXACT_TABLES = {
 
 # Agresti (2007) Table 2.3 (from memory), the Physicians' Health Study: placebo / aspirin × MI / no MI.
 ASPIRIN = [[189, 10845], [104, 10933]]
-ZERO_CELL = [[0, 10], [5, 5]]  # invented (references.md section 10)
-# Mendel (1866) dihybrid cross (counts from memory), against 9:3:3:1 (references.md section 6).
+ZERO_CELL = [[0, 10], [5, 5]]  # invented (published_values.md section 10)
+# Mendel (1866) dihybrid cross (counts from memory), against 9:3:3:1 (published_values.md section 6).
 MENDEL = [315, 108, 101, 32]
 MENDEL_SHARES = [9, 3, 3, 1]
-# R's ?mcnemar.test: Agresti (1990) p. 350, approval ratings in two surveys (references.md section 5).
+# R's ?mcnemar.test: Agresti (1990) p. 350, approval ratings in two surveys (published_values.md section 5).
 APPROVAL = [[794, 150], [86, 570]]
 # Invented: appraisal ratings of the same staff in two years (below / meets / exceeds).
 RATINGS = [[24, 14, 6], [4, 41, 15], [1, 5, 19]]
-# Agresti (2007) malformation × maternal alcohol (from memory; references.md section 4).
+# Agresti (2007) malformation × maternal alcohol (from memory; published_values.md section 4).
 ALCOHOL_PRESENT = [48, 38, 5, 1, 1]
 ALCOHOL_ABSENT = [17066, 14464, 788, 126, 37]
 ALCOHOL_SCORES = [0, 0.5, 1.5, 4.0, 7.0]
-# The four-fifths example of references.md section 9 (invented numbers).
+# The four-fifths example of published_values.md section 9 (invented numbers).
 IMPACT_SELECTED = [48, 12, 30]
 IMPACT_CONSIDERED = [80, 30, 60]
 # Invented records of a fictional firm: department and review outcome of each employee, a blank

@@ -1,10 +1,10 @@
 // A published worked example: Agresti, An Introduction to Categorical Data Analysis, 2nd ed.
 // (2007), gender by political party identification. The counts are read in R 4.2.2's
 // ?chisq.test example, headed "From Agresti(2007) p.39"; the table numbers (Table 2.5, and
-// Table 2.6 for the residuals, section 2.4.5) are (from memory). See references.md section 3.
+// Table 2.6 for the residuals, section 2.4.5) are (from memory). See published_values.md section 3.
 // Each quantity is checked twice: against the figure as published, to the precision printed,
 // and against the recomputed value (scipy 1.10.1 chi2_contingency, statsmodels 0.13.5
-// Table.standardized_resids, R 4.2.2 chisq.test; pasted from references.md section 3 and
+// Table.standardized_resids, R 4.2.2 chisq.test; pasted from published_values.md section 3 and
 // tests/reference/generate_core_values.py) to 1e-10 relative.
 #include <gtest/gtest.h>
 

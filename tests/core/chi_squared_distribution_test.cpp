@@ -16,7 +16,7 @@ using assoc::test::expect_error;
 
 TEST(ChiSquaredCriticalValue, MatchesTheNistTableToThePrintedThreeDecimals) {
     // NIST/SEMATECH e-Handbook of Statistical Methods, section 1.3.6.7.4, upper-tail critical
-    // values; several entries are recalled (from memory), see references.md section 1.
+    // values; several entries are recalled (from memory), see published_values.md section 1.
     for (const CriticalValue& entry : reference::nist_critical_values)
         EXPECT_NEAR(chi_squared_critical_value(entry.df, entry.alpha), entry.nist, 0.0005 + 1e-12)
             << "df " << entry.df << ", alpha " << entry.alpha;

@@ -28,7 +28,7 @@ TEST(CramersVInterval, MatchesTheInvertedNoncentralChiSquaredForThePartyTable) {
     EXPECT_NEAR_REL(v.noncentrality_upper, ref::party_lambda_upper, 1e-9);
     EXPECT_NEAR_REL(v.lower, ref::party_v_lower, 1e-9);
     EXPECT_NEAR_REL(v.upper, ref::party_v_upper, 1e-9);
-    EXPECT_NEAR_REL(v.estimate, 0.10443580236, 1e-10);  // references.md section 3
+    EXPECT_NEAR_REL(v.estimate, 0.10443580236, 1e-10);  // published_values.md section 3
 }
 
 TEST(CramersVInterval, NarrowsForALowerConfidence) {
@@ -47,7 +47,7 @@ TEST(CramersVInterval, MatchesForAThreeByThreeTable) {
 }
 
 TEST(CramersVInterval, MatchesForALargeTableWithAWeakAssociation) {
-    // Agresti (2007) alcohol × malformation (references.md section 4), n = 32,574.
+    // Agresti (2007) alcohol × malformation (published_values.md section 4), n = 32,574.
     const CramersVInterval v = cramers_v_interval(table({{48, 38, 5, 1, 1}, {17066, 14464, 788, 126, 37}}));
     EXPECT_NEAR_REL(v.noncentrality_lower, ref::alcohol_lambda_lower, 1e-8);
     EXPECT_NEAR_REL(v.lower, ref::alcohol_v_lower, 1e-8);
@@ -55,7 +55,7 @@ TEST(CramersVInterval, MatchesForALargeTableWithAWeakAssociation) {
 }
 
 TEST(CramersVInterval, StartsAtZeroWhenTheTestIsNotSignificant) {
-    // [[5, 3, 2], [4, 6, 1]]: X² = 1.4, p = 0.50 ≥ α/2, so λ_L = 0 (references.md section 11 table).
+    // [[5, 3, 2], [4, 6, 1]]: X² = 1.4, p = 0.50 ≥ α/2, so λ_L = 0 (published_values.md section 11 table).
     const CramersVInterval v = cramers_v_interval(table({{5, 3, 2}, {4, 6, 1}}));
     EXPECT_EQ(v.noncentrality_lower, 0.0);
     EXPECT_EQ(v.lower, 0.0);

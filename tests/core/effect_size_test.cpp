@@ -13,9 +13,11 @@ using assoc::test::counts_table;
 using assoc::test::expect_error;
 
 TEST(CramersV, IsOneForAPerfectAssociation) {
+    // Exact identity: a diagonal table has X² = n·(min(r, c) − 1), so V = 1.
     EXPECT_NEAR_REL(cramers_v(counts_table({{10, 0, 0}, {0, 7, 0}, {0, 0, 4}})), 1.0, 1e-15);
 }
 
+// Exact identity: rows proportional to each other give O = E in every cell, so X² = 0.
 TEST(CramersV, IsZeroForAProportionalTable) { EXPECT_EQ(cramers_v(counts_table({{2, 4, 6}, {3, 6, 9}})), 0.0); }
 
 TEST(CramersV, IsTheSizeOfPhiInATwoByTwoTable) {
@@ -26,7 +28,7 @@ TEST(CramersV, IsTheSizeOfPhiInATwoByTwoTable) {
 
 TEST(CramersV, OfTheAlcoholTableMatchesTheRecomputedValue) {
     // Agresti (2007) infant malformation by maternal alcohol consumption (data from memory,
-    // references.md sections 4 and 11): V = 0.019259050, Ṽ = 0.015751747 (scipy 1.10.1 /
+    // published_values.md sections 4 and 11): V = 0.019259050, Ṽ = 0.015751747 (scipy 1.10.1 /
     // Bergsma's formula, printed to 9 decimals there).
     const CountTable t = counts_table({{48, 38, 5, 1, 1}, {17066, 14464, 788, 126, 37}});
     EXPECT_NEAR(cramers_v(t), 0.019259050, 5e-10);
@@ -34,7 +36,7 @@ TEST(CramersV, OfTheAlcoholTableMatchesTheRecomputedValue) {
 }
 
 TEST(CramersVCorrected, FloorsAtZeroWhenTheTableShowsLessAssociationThanChance) {
-    // references.md section 11: invented [[5, 3, 2], [4, 6, 1]], X² = 7/5, n = 21:
+    // published_values.md section 11: invented [[5, 3, 2], [4, 6, 1]], X² = 7/5, n = 21:
     // X²/n − (r−1)(c−1)/(n−1) = 1/15 − 1/10 < 0, so Ṽ = 0 while V = 0.258198890.
     const CountTable t = counts_table({{5, 3, 2}, {4, 6, 1}});
     EXPECT_EQ(cramers_v_corrected(t), 0.0);

@@ -11,7 +11,7 @@ using assoc::test::grid;
 namespace ref = assoc::reference;
 
 TEST(GoodnessOfFit, MatchesMendelsPeasAgainstNineThreeThreeOne) {
-    // Mendel (1866), counts from memory (references.md section 6): X² = 196/417 exactly, df 3;
+    // Mendel (1866), counts from memory (published_values.md section 6): X² = 196/417 exactly, df 3;
     // p from scipy 1.10.1 chisquare (mpmath 0.92542589510361598).
     const GoodnessOfFit fit = goodness_of_fit({315, 108, 101, 32}, {9, 3, 3, 1});
     EXPECT_NEAR_REL(fit.statistic, 196.0 / 417.0, 1e-14);

@@ -29,6 +29,7 @@ TEST(IndependenceTest, ReportsTheUpperTailPValueOfItsStatistic) {
 }
 
 TEST(IndependenceTest, GivesAPValueOfOneForAProportionalTable) {
+    // Exact identity: X² = 0 and P(χ² ≥ 0) = 1.
     const TestResult result = independence_test(counts_table({{2, 4, 6}, {3, 6, 9}}));
     EXPECT_EQ(result.statistic, 0.0);
     EXPECT_EQ(result.p_value, 1.0);
@@ -46,6 +47,7 @@ TEST(IndependenceTest, HandlesAProportionalTableWithHundredsOfDegreesOfFreedom) 
 }
 
 TEST(DegreesOfFreedom, AreRowsLessOneTimesColumnsLessOne) {
+    // Definition: df = (r − 1)(c − 1) (common practice; e.g. Agresti 2007, section 2.4).
     EXPECT_EQ(degrees_of_freedom(counts_table({{1, 2, 3, 4}, {5, 6, 7, 8}, {9, 1, 2, 3}})), 6.0);
     EXPECT_EQ(degrees_of_freedom(counts_table({{1, 2}, {3, 4}})), 1.0);
 }

@@ -96,7 +96,7 @@ TEST_P(LibraryReferenceTable, CramersVMatchesScipy) {
 }
 
 TEST_P(LibraryReferenceTable, BiasCorrectedVMatchesBergsmasFormulaInNumpyAndMpmath) {
-    // Bergsma (2013), formula as in references.md section 11 (no library implements it).
+    // Bergsma (2013), formula as in published_values.md section 11 (no library implements it).
     const double corrected = cramers_v_corrected(table);
     EXPECT_NEAR_REL(corrected, reference.numpy_cramers_v_corrected, library_tolerance);
     EXPECT_NEAR_REL(corrected, reference.cramers_v_corrected, mpmath_tolerance);

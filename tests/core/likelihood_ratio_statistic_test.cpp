@@ -26,6 +26,7 @@ TEST(LikelihoodRatioStatistic, MatchesTheTextbookSumOnAnOrdinaryTable) {
 }
 
 TEST(LikelihoodRatioStatistic, IsExactlyZeroForAProportionalTable) {
+    // Exact identity: O = E in every cell, so every ln(O/E) = 0.
     EXPECT_EQ(likelihood_ratio_statistic(counts_table({{2, 4, 6}, {3, 6, 9}})), 0.0);
 }
 

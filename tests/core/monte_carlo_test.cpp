@@ -39,7 +39,7 @@ CountTable three_by_four() { return table({{2, 0, 3, 1}, {1, 4, 0, 2}, {0, 1, 2,
 }  // namespace
 
 TEST(MonteCarloTest, AgreesWithTheExactPValueOfTheTeaTastingTable) {
-    // Fisher (1935) via references.md section 2: tables with X² ≥ 2 have probability 34/70.
+    // Fisher (1935) via published_values.md section 2: tables with X² ≥ 2 have probability 34/70.
     expect_close_to_exact(table({{3, 1}, {1, 3}}), 34.0 / 70.0);
 }
 

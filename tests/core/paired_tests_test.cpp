@@ -33,12 +33,21 @@ TEST(PairedTest, AppliesTheContinuityCorrectionToATwoByTwoByDefault) {
     EXPECT_EQ(result.df, 1.0);
 }
 
+// Exact arithmetic: with b = c = 5 the difference is 0, and max(0, 0 − 1)² = 0, so X² = 0 and p = 1
+// (not (0 − 1)²/10 = 0.1, which statsmodels 0.13.5 mcnemar gives). R 4.2.2:
+// mcnemar.test(matrix(c(20,5,5,30),2))$statistic is 0, as here.
+TEST(PairedTest, NeverLetsTheCorrectionExceedTheDifference) {
+    const PairedResult result = paired_test(grid({{20, 5}, {5, 30}}));
+    EXPECT_EQ(result.statistic, 0.0);
+    EXPECT_EQ(result.p_value, 1.0);
+}
+
 TEST(PairedTest, LeavesTheCorrectionOutWhenAsked) {
     const PairedResult result = paired_test(approval(), PairedMethod::uncorrected);
     EXPECT_NEAR_REL(result.statistic, r::approval_uncorrected_statistic, 1e-12);
     EXPECT_NEAR_REL(result.statistic, sm::approval_uncorrected_statistic, 1e-12);
     EXPECT_NEAR_REL(result.p_value, r::approval_uncorrected_p, 1e-10);
-    // references.md section 5: 17.36, z = −4.17 as quoted for this table (z² = 17.356).
+    // published_values.md section 5: 17.36, z = −4.17 as quoted for this table (z² = 17.356).
     EXPECT_NEAR(result.statistic, 17.36, 0.005);
 }
 

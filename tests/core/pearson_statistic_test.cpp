@@ -37,6 +37,7 @@ TEST(PearsonStatistic, OfTheSickLeaveTableIsTheExactFraction) {
 }
 
 TEST(PearsonStatistic, IsExactlyZeroForAProportionalTable) {
+    // Exact identity: proportional rows give O = E in every cell.
     EXPECT_EQ(pearson_statistic(counts_table({{2, 4, 6}, {3, 6, 9}})), 0.0);
 }
 
@@ -48,12 +49,14 @@ TEST(PearsonStatistic, GrowsInProportionToTheCounts) {
 }
 
 TEST(PearsonStatistic, DoesNotDependOnTheOrderOrOrientationOfTheTable) {
+    // Exact identity: X² is a sum over cells, unchanged by permuting rows or transposing.
     const double original = pearson_statistic(counts_table({{23, 41, 17}, {31, 28, 22}, {12, 19, 30}}));
     EXPECT_NEAR_REL(pearson_statistic(counts_table({{12, 19, 30}, {23, 41, 17}, {31, 28, 22}})), original, 1e-14);
     EXPECT_NEAR_REL(pearson_statistic(counts_table({{23, 31, 12}, {41, 28, 19}, {17, 22, 30}})), original, 1e-14);
 }
 
 TEST(PearsonStatistic, IsTheSameWithAnAllZeroRowSetAside) {
+    // Definition (issue 2, item 1): an all-zero row is set aside, so the two tables are the same test.
     EXPECT_EQ(pearson_statistic(counts_table({{10, 4, 6}, {0, 0, 0}, {3, 9, 8}})),
               pearson_statistic(counts_table({{10, 4, 6}, {3, 9, 8}})));
 }

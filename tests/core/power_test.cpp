@@ -17,7 +17,7 @@ TEST(ChiSquaredPower, MatchesTheNoncentralChiSquaredOfScipyAndR) {
 }
 
 TEST(ChiSquaredPower, StraddlesPointEightBetween87And88CountsForWPointThree) {
-    // references.md section 8: power 0.799055746 at n = 87 and 0.803527484 at n = 88 (R agrees);
+    // published_values.md section 8: power 0.799055746 at n = 87 and 0.803527484 at n = 88 (R agrees);
     // Cohen (1988) ch. 7 prints N = 87 for w = 0.3, power .80 (from memory).
     EXPECT_NEAR(chi_squared_power(0.3, 87, 1), 0.799055746, 1e-9);
     EXPECT_NEAR(chi_squared_power(0.3, 88, 1), 0.803527484, 1e-9);
@@ -26,6 +26,13 @@ TEST(ChiSquaredPower, StraddlesPointEightBetween87And88CountsForWPointThree) {
 TEST(ChiSquaredPower, IsAlphaForAnEffectOfZero) {
     // With λ = 0 the noncentral distribution is the central one: power = P(reject | H0) = alpha.
     EXPECT_NEAR_REL(chi_squared_power(0, 100, 3, 0.05), 0.05, 1e-12);
+}
+
+// Exact bound: P(miss) ≤ e^(c/2 − λ/4)·2^(−df/2) (Chernoff at t = 1/2), here e^(−2.5e9): the power
+// is 1 in double precision, also where the noncentral series cannot be summed.
+TEST(ChiSquaredPower, IsOneWhenTheNoncentralityIsHuge) {
+    EXPECT_EQ(chi_squared_power(1, 1e10, 1), 1.0);
+    EXPECT_EQ(chi_squared_power(0.5, 1e12, 30, 0.001), 1.0);
 }
 
 TEST(ChiSquaredPower, RejectsANegativeEffectSize) {
@@ -46,12 +53,12 @@ TEST(ChiSquaredPower, RejectsAnAlphaOutsideZeroAndOne) {
 }
 
 TEST(ChiSquaredSampleSize, Gives88ForWPointThreeAtPowerPointEight) {
-    // references.md section 8: the smallest n reaching .80 is 88 (Cohen's table prints 87 = λ/w² rounded).
+    // published_values.md section 8: the smallest n reaching .80 is 88 (Cohen's table prints 87 = λ/w² rounded).
     EXPECT_EQ(chi_squared_sample_size(0.3, 0.80, 1), 88);
 }
 
 TEST(ChiSquaredSampleSize, MatchesTheTableOfSmallestSampleSizes) {
-    // references.md section 8 (Cohen 1988 Table 7.4.6, from memory; recomputed with scipy ncx2 and R),
+    // published_values.md section 8 (Cohen 1988 Table 7.4.6, from memory; recomputed with scipy ncx2 and R),
     // plus two cases beyond it, all by scanning n with scipy 1.10.1 ncx2.
     for (const ref::SampleSizeCase& c : ref::sample_size_cases)
         EXPECT_EQ(chi_squared_sample_size(c.w, c.power, c.df, c.alpha), c.n)

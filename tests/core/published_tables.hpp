@@ -10,19 +10,19 @@ namespace assoc::test::published {
 
 // Agresti (2007), An Introduction to Categorical Data Analysis, 2nd ed.: gender × party
 // identification (table number from memory; counts read in R's ?chisq.test example,
-// "From Agresti(2007) p.39"; references.md section 3).
+// "From Agresti(2007) p.39"; published_values.md section 3).
 inline CountTable party() {
     return table({{"", "Democrat", "Independent", "Republican"},
                   {"Female", 762, 327, 468},
                   {"Male", 484, 239, 477}});
 }
 
-// Physicians' Health Study, Agresti (2007) Table 2.3 (from memory; references.md section 10):
+// Physicians' Health Study, Agresti (2007) Table 2.3 (from memory; published_values.md section 10):
 // rows placebo, aspirin; columns myocardial infarction yes, no.
 inline CountTable aspirin() { return table({{189, 10845}, {104, 10933}}); }
 
 // Bickel, Hammel & O'Connell (1975), Science 187:398–403: Berkeley admissions by department
-// (counts as in R's UCBAdmissions; references.md section 7). Per stratum: men admitted, men
+// (counts as in R's UCBAdmissions; published_values.md section 7). Per stratum: men admitted, men
 // rejected, women admitted, women rejected.
 inline CellGrid admissions() {
     return grid({{"", "men admitted", "men rejected", "women admitted", "women rejected"},
@@ -41,7 +41,7 @@ inline CellGrid admissions_stacked() {
 }
 
 // Agresti (2007): infant malformation present / absent (rows) by maternal drinks per day
-// (columns), scores 0, 0.5, 1.5, 4, 7 (table number and data from memory; references.md section 4).
+// (columns), scores 0, 0.5, 1.5, 4, 7 (table number and data from memory; published_values.md section 4).
 inline CellGrid alcohol() {
     return grid({{"", "0", "<1", "1-2", "3-5", ">=6"},
                  {"present", 48, 38, 5, 1, 1},
@@ -50,7 +50,7 @@ inline CellGrid alcohol() {
 inline CellGrid alcohol_scores() { return grid({{0, 0.5, 1.5, 4.0, 7.0}}); }
 
 // Approval ratings in two surveys a month apart (R's ?mcnemar.test example, citing Agresti
-// (1990) p.350; references.md section 5).
+// (1990) p.350; published_values.md section 5).
 inline CellGrid approval() {
     return grid({{"", "approve", "disapprove"}, {"approve", 794, 150}, {"disapprove", 86, 570}});
 }

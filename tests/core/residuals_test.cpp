@@ -85,6 +85,8 @@ TEST(Residuals, PercentagesAddUpToOneHundred) {
 }
 
 TEST(Residuals, PercentagesAreZeroWhenTheTableShowsNoAssociation) {
+    // Exact identity: proportional rows give O = E, so every contribution is 0 (and X² = 0: shares of
+    // nothing are reported as 0, not as 0/0).
     const Matrix percent = residuals(counts_table({{2, 4, 6}, {3, 6, 9}}), ResidualKind::percent);
     for (double value : percent.values()) EXPECT_EQ(value, 0.0);
 }

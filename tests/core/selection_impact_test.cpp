@@ -1,5 +1,5 @@
 // Selection rates and the four-fifths rule of the US Uniform Guidelines on Employee Selection
-// Procedures (1978), 29 CFR 1607.4(D) (rule text read; see /work/shared/references.md section 9,
+// Procedures (1978), 29 CFR 1607.4(D) (rule text read; see tests/reference/published_values.md section 9,
 // whose worked example uses invented numbers). Rates and ratios are exact fractions.
 #include <gtest/gtest.h>
 
@@ -11,7 +11,7 @@ using assoc::test::expect_error;
 using assoc::test::grid;
 
 namespace {
-// references.md section 9: G1 48/80, G2 12/30, G3 30/60.
+// published_values.md section 9: G1 48/80, G2 12/30, G3 30/60.
 SelectionImpact worked_example() { return selection_impact(grid({{48}, {12}, {30}}), grid({{80}, {30}, {60}})); }
 }  // namespace
 

@@ -1,6 +1,6 @@
 // The Cochran–Armitage trend test. Agresti (2007), An Introduction to Categorical Data Analysis, 2nd ed.:
 // infant malformation by maternal alcohol consumption (table number and data from memory, see
-// /work/shared/references.md section 4). Expected values: R 4.2.2 prop.trend.test, and the same
+// tests/reference/published_values.md section 4). Expected values: R 4.2.2 prop.trend.test, and the same
 // formula in numpy 1.24.2 / scipy 1.10.1 (tests/reference/workflow_generate.*).
 #include <gtest/gtest.h>
 
@@ -29,7 +29,7 @@ TEST(TrendTest, MatchesPropTrendTestOnTheAlcoholTable) {
     EXPECT_NEAR_REL(result.z, r::alcohol_trend_z, 1e-10);
     EXPECT_NEAR_REL(result.z, sm::alcohol_trend_z, 1e-10);
     EXPECT_NEAR_REL(result.p_value, r::alcohol_trend_p, 1e-10);
-    // references.md section 4: R prop.trend.test's chi-squared 6.57013394470554.
+    // published_values.md section 4: R prop.trend.test's chi-squared 6.57013394470554.
     EXPECT_NEAR_REL(result.statistic, 6.57013394470554, 1e-12);
 }
 
@@ -37,7 +37,7 @@ TEST(TrendTest, MatchesPropTrendTestOnTheAlcoholTable) {
 TEST(TrendTest, UsesTheVarianceWithNRatherThanNMinusOne) {
     const TrendResult result = trend_test(alcohol(), alcohol_scores());
     const double n = 32574;
-    EXPECT_NEAR_REL(result.statistic * (n - 1) / n, 6.569932246, 1e-9);  // M², references.md section 4
+    EXPECT_NEAR_REL(result.statistic * (n - 1) / n, 6.569932246, 1e-9);  // M², published_values.md section 4
 }
 
 TEST(TrendTest, UsesScoresOneToKByDefaultForCategoriesInRows) {

@@ -58,7 +58,7 @@ TEST(ValidityCheck, FailsCochransRuleWhenAnyCellExpectsFewerThanOne) {
 }
 
 TEST(ValidityCheck, RecommendsTheExactTestForATwoByTwoTableWithAnExpectedCountBelowFive) {
-    // Fisher's tea-tasting table (references.md section 2): every E = 2.
+    // Fisher's tea-tasting table (published_values.md section 2): every E = 2.
     const ValidityCheck check = check_validity(table({{3, 1}, {1, 3}}));
     EXPECT_TRUE(check.exact_test_recommended);
     EXPECT_EQ(check.smallest_expected, 2.0);

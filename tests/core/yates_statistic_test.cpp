@@ -27,7 +27,7 @@ TEST(YatesStatistic, SubtractsOneHalfFromEachDeviation) {
 }
 
 TEST(YatesStatistic, OfTheTeaTastingTableIsOneHalf) {
-    // Fisher's tea-tasting table [[3, 1], [1, 3]] (references.md section 2): E = 2, |O − E| = 1,
+    // Fisher's tea-tasting table [[3, 1], [1, 3]] (published_values.md section 2): E = 2, |O − E| = 1,
     // so Σ (1 − ½)²/2 = 4·0.125 = 0.5 (exact arithmetic); scipy 1.10.1 gives 0.5, p 0.47950012218695337.
     const TestResult yates = independence_test(counts_table({{3, 1}, {1, 3}}), Method::yates);
     EXPECT_EQ(yates.statistic, 0.5);

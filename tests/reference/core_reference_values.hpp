@@ -12,7 +12,7 @@ inline constexpr double nan = std::numeric_limits<double>::quiet_NaN();
 
 // An upper-tail critical value: the NIST/SEMATECH e-Handbook of Statistical Methods,
 // section 1.3.6.7.4, table of upper-tail critical values (as printed, 3 decimals; the
-// source status of each entry is in /work/shared/references.md section 1), and the root of
+// source status of each entry is in tests/reference/published_values.md section 1), and the root of
 // Q(df/2, c/2) = alpha found with mpmath 1.2.1 findroot at 60 digits.
 struct CriticalValue {
     double df, alpha, nist, mpmath_root;
@@ -364,7 +364,7 @@ inline const std::vector<ReferenceTable> library_tables = {
         nan,
         nan,
     },
-    // small_floor: invented (references.md section 11): bias-corrected V floors at 0
+    // small_floor: invented (published_values.md section 11): bias-corrected V floors at 0
     {
         "small_floor", 2, 3, {5.0, 3.0, 2.0, 4.0, 6.0, 1.0},
         2, 3, 2.0,

@@ -60,7 +60,7 @@ def critical_value(df, alpha):
     return mp.findroot(lambda x: upper_tail(x, df) - mp.mpf(alpha), start, tol=mp.mpf(10) ** -55)
 
 
-# (df, alpha, the NIST/SEMATECH e-Handbook 1.3.6.7.4 upper-tail entry, source status in references.md)
+# (df, alpha, the NIST/SEMATECH e-Handbook 1.3.6.7.4 upper-tail entry, source status in published_values.md)
 NIST = [
     (1, "0.05", "3.841", "from memory"), (2, "0.05", "5.991", "from memory"), (3, "0.05", "7.815", "from memory"),
     (4, "0.05", "9.488", "from memory"), (5, "0.05", "11.070", "added"), (6, "0.05", "12.592", "added"),
@@ -147,7 +147,7 @@ def library_statistics(counts):
                       else np.sqrt(x2 / (n * (min(r, c) - 1)))),
         "contingency_coefficient": (association(t.astype(int), method="pearson", correction=False) if whole
                                     else np.sqrt(x2 / (x2 + n))),
-        # Bergsma (2013), from the formula in references.md section 11 (no library has it)
+        # Bergsma (2013), from the formula in published_values.md section 11 (no library has it)
         "cramers_v_corrected": np.sqrt(phi2t / min(rt - 1, ct - 1)),
     }
     if t.shape == (2, 2):
@@ -172,7 +172,7 @@ LIBRARY_TABLES = [
     ("with_empty_column", [[14, 0, 9, 5], [6, 0, 12, 11]],
      "invented: 2 shifts by 4 incident kinds, the second kind never occurs (set aside)"),
     ("with_zero_cell", [[0, 5, 8], [6, 3, 2]], "invented: a zero cell, so 0·ln 0 = 0 enters G²"),
-    ("small_floor", [[5, 3, 2], [4, 6, 1]], "invented (references.md section 11): bias-corrected V floors at 0"),
+    ("small_floor", [[5, 3, 2], [4, 6, 1]], "invented (published_values.md section 11): bias-corrected V floors at 0"),
     ("sick_leave_2x2", [[12, 5], [3, 10]], "invented 2x2: sick leave by contract type"),
 ]
 
@@ -242,7 +242,7 @@ emit("inline constexpr double nan = std::numeric_limits<double>::quiet_NaN();")
 emit()
 emit("// An upper-tail critical value: the NIST/SEMATECH e-Handbook of Statistical Methods,")
 emit("// section 1.3.6.7.4, table of upper-tail critical values (as printed, 3 decimals; the")
-emit("// source status of each entry is in /work/shared/references.md section 1), and the root of")
+emit("// source status of each entry is in tests/reference/published_values.md section 1), and the root of")
 emit("// Q(df/2, c/2) = alpha found with mpmath 1.2.1 findroot at 60 digits.")
 emit("struct CriticalValue {")
 emit("    double df, alpha, nist, mpmath_root;")

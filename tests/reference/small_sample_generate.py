@@ -53,7 +53,7 @@ def comment(text):
 
 # --- Odds ratio and risk ratio: statsmodels Table2x2 -------------------------------------------
 comment("Odds and risk ratios: statsmodels 0.13.5 Table2x2 (Woolf logit interval; log interval for the\n"
-        "risk ratio). Aspirin table of references.md section 10: placebo 189/10845, aspirin 104/10933.")
+        "risk ratio). Aspirin table of published_values.md section 10: placebo 189/10845, aspirin 104/10933.")
 aspirin = np.array([[189, 10845], [104, 10933]], dtype=float)
 t = Table2x2(aspirin)
 emit("aspirin_odds_ratio", t.oddsratio)
@@ -84,7 +84,7 @@ emit("haldane_risk_ratio_lower", lo)
 emit("haldane_risk_ratio_upper", hi)
 
 # --- Goodness of fit: scipy.stats.chisquare ---------------------------------------------------
-comment("Goodness of fit: scipy 1.10.1 stats.chisquare. Mendel's dihybrid cross (references.md section 6,\n"
+comment("Goodness of fit: scipy 1.10.1 stats.chisquare. Mendel's dihybrid cross (published_values.md section 6,\n"
         "counts from memory) 315/108/101/32 against 9:3:3:1; X² is exactly 196/417.")
 mendel = np.array([315, 108, 101, 32], dtype=float)
 shares = np.array([9, 3, 3, 1], dtype=float)
@@ -106,7 +106,7 @@ emit_array("adjustment_raw", raw)
 emit_array("adjustment_holm", multipletests(raw, method="holm")[1])
 emit_array("adjustment_bonferroni", multipletests(raw, method="bonferroni")[1])
 
-comment("Cell p-values of the Agresti (2007) party-identification table (references.md section 3):\n"
+comment("Cell p-values of the Agresti (2007) party-identification table (published_values.md section 3):\n"
         "statsmodels Table.standardized_resids (adjusted residuals), 2·scipy norm.sf(|z|), then multipletests,\n"
         "row by row: females D, I, R, males D, I, R.")
 party = np.array([[762, 327, 468], [484, 239, 477]], dtype=float)
@@ -128,7 +128,7 @@ def power(w, n, df, alpha):
 
 
 comment("Power of the chi-squared test, λ = n·w²: scipy 1.10.1 ncx2.sf(chi2.isf(alpha, df), df, λ)\n"
-        "(references.md section 8; Cohen 1988 ch. 7). Rows: w, n, df, alpha, power.")
+        "(published_values.md section 8; Cohen 1988 ch. 7). Rows: w, n, df, alpha, power.")
 power_cases = [(0.3, 87, 1, 0.05), (0.3, 88, 1, 0.05), (0.1, 785, 1, 0.05), (0.5, 50, 4, 0.01),
                (0.2, 200, 3, 0.05), (0.3, 100, 1, 0.05), (0.05, 10000, 10, 0.05), (0.4, 30, 6, 0.10)]
 rows = ", ".join("{%r, %r, %r, %r, %r}" % (w, float(n), float(df), a, float(power(w, n, df, a)))
@@ -142,7 +142,7 @@ out.append("struct PowerCase { double w, n, df, alpha, power; };")
 out.append(f"inline constexpr PowerCase power_cases[] = {{{rows}}};")
 
 comment("Sample sizes: the smallest whole n with power ≥ target, by scanning n with scipy ncx2\n"
-        "(references.md section 8 table). Rows: w, power, df, alpha, n.")
+        "(published_values.md section 8 table). Rows: w, power, df, alpha, n.")
 
 
 def smallest_n(w, target, df, alpha):
@@ -303,7 +303,7 @@ comment("Exact conditional p-values P(statistic ≥ observed | both margins), by
         "the observed margins (exact rational probabilities; Python fractions, G² with mpmath at 50 digits;\n"
         "counting ties within a relative 1e-7 gives the same p). The Fisher (probability-ordering) p-value of\n"
         "the same enumeration equals R 4.2.2 fisher.test to 1e-12 (checked when generating), which checks the enumeration.\n"
-        "tea: Fisher's tea-tasting table (references.md section 2, exact Pearson p = 34/70).\n"
+        "tea: Fisher's tea-tasting table (published_values.md section 2, exact Pearson p = 34/70).\n"
         "The others are invented (promotions, shift patterns and training uptake at a fictional firm).")
 exact_tables = {
     "tea": [[3, 1], [1, 3]],

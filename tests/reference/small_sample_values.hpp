@@ -4,7 +4,7 @@
 namespace assoc::reference {
 
 // Odds and risk ratios: statsmodels 0.13.5 Table2x2 (Woolf logit interval; log interval for the
-// risk ratio). Aspirin table of references.md section 10: placebo 189/10845, aspirin 104/10933.
+// risk ratio). Aspirin table of published_values.md section 10: placebo 189/10845, aspirin 104/10933.
 inline constexpr double aspirin_odds_ratio = 1.8320539419087136;
 inline constexpr double aspirin_odds_ratio_lower = 1.4400423918486245;
 inline constexpr double aspirin_odds_ratio_upper = 2.3307797500006435;
@@ -25,7 +25,7 @@ inline constexpr double haldane_risk_ratio = 0.09090909090909091;
 inline constexpr double haldane_risk_ratio_lower = 0.0056862578332829376;
 inline constexpr double haldane_risk_ratio_upper = 1.4534097911536135;
 
-// Goodness of fit: scipy 1.10.1 stats.chisquare. Mendel's dihybrid cross (references.md section 6,
+// Goodness of fit: scipy 1.10.1 stats.chisquare. Mendel's dihybrid cross (published_values.md section 6,
 // counts from memory) 315/108/101/32 against 9:3:3:1; X² is exactly 196/417.
 inline constexpr double mendel_statistic = 0.4700239808153477;
 inline constexpr double mendel_p_value = 0.925425895103616;
@@ -40,7 +40,7 @@ inline constexpr double adjustment_raw[] = {0.01, 0.04, 0.03, 0.005, 0.2, 0.04, 
 inline constexpr double adjustment_holm[] = {0.06, 0.16, 0.15, 0.035, 0.4, 0.16, 0.6};
 inline constexpr double adjustment_bonferroni[] = {0.07, 0.28, 0.21, 0.035, 1.0, 0.28, 1.0};
 
-// Cell p-values of the Agresti (2007) party-identification table (references.md section 3):
+// Cell p-values of the Agresti (2007) party-identification table (published_values.md section 3):
 // statsmodels Table.standardized_resids (adjusted residuals), 2·scipy norm.sf(|z|), then multipletests,
 // row by row: females D, I, R, males D, I, R.
 inline constexpr double party_cell_p_none[] = {6.730002776117125e-06, 0.4842697672054399, 1.0610488189573482e-07, 6.730002776117125e-06, 0.48426976720544335, 1.0610488189573523e-07};
@@ -52,13 +52,13 @@ inline constexpr double party_cell_p_bonferroni[] = {4.0380016656702754e-05, 1.0
 inline constexpr double strong_cell_p = 1.0018468253978383e-23;
 
 // Power of the chi-squared test, λ = n·w²: scipy 1.10.1 ncx2.sf(chi2.isf(alpha, df), df, λ)
-// (references.md section 8; Cohen 1988 ch. 7). Rows: w, n, df, alpha, power.
+// (published_values.md section 8; Cohen 1988 ch. 7). Rows: w, n, df, alpha, power.
 // R 4.2.2 pchisq(ncp=) agrees to a relative 6.8e-16.
 struct PowerCase { double w, n, df, alpha, power; };
 inline constexpr PowerCase power_cases[] = {{0.3, 87.0, 1.0, 0.05, 0.7990557458799729}, {0.3, 88.0, 1.0, 0.05, 0.8035274844561174}, {0.1, 785.0, 1.0, 0.05, 0.8000569268798244}, {0.5, 50.0, 4.0, 0.01, 0.623639991787425}, {0.2, 200.0, 3.0, 0.05, 0.654111103401789}, {0.3, 100.0, 1.0, 0.05, 0.8508387683270557}, {0.05, 10000.0, 10.0, 0.05, 0.9554779391410436}, {0.4, 30.0, 6.0, 0.1, 0.4478936034087843}};
 
 // Sample sizes: the smallest whole n with power ≥ target, by scanning n with scipy ncx2
-// (references.md section 8 table). Rows: w, power, df, alpha, n.
+// (published_values.md section 8 table). Rows: w, power, df, alpha, n.
 struct SampleSizeCase { double w, power, df, alpha, n; };
 inline constexpr SampleSizeCase sample_size_cases[] = {{0.1, 0.8, 1.0, 0.05, 785.0}, {0.3, 0.8, 1.0, 0.05, 88.0}, {0.5, 0.8, 1.0, 0.05, 32.0}, {0.1, 0.8, 2.0, 0.05, 964.0}, {0.3, 0.8, 2.0, 0.05, 108.0}, {0.5, 0.8, 2.0, 0.05, 39.0}, {0.1, 0.8, 4.0, 0.05, 1194.0}, {0.3, 0.8, 4.0, 0.05, 133.0}, {0.5, 0.8, 4.0, 0.05, 48.0}, {0.1, 0.9, 1.0, 0.05, 1051.0}, {0.3, 0.9, 1.0, 0.05, 117.0}, {0.5, 0.9, 1.0, 0.05, 43.0}, {0.1, 0.9, 2.0, 0.05, 1266.0}, {0.3, 0.9, 2.0, 0.05, 141.0}, {0.5, 0.9, 2.0, 0.05, 51.0}, {0.1, 0.9, 4.0, 0.05, 1541.0}, {0.3, 0.9, 4.0, 0.05, 172.0}, {0.5, 0.9, 4.0, 0.05, 62.0}, {0.25, 0.95, 3.0, 0.01, 363.0}, {0.02, 0.8, 1.0, 0.05, 19623.0}};
 
@@ -111,7 +111,7 @@ inline constexpr double training_v_upper_90 = 0.42908906825072934;
 // the observed margins (exact rational probabilities; Python fractions, G² with mpmath at 50 digits;
 // counting ties within a relative 1e-7 gives the same p). The Fisher (probability-ordering) p-value of
 // the same enumeration equals R 4.2.2 fisher.test to 1e-12 (checked when generating), which checks the enumeration.
-// tea: Fisher's tea-tasting table (references.md section 2, exact Pearson p = 34/70).
+// tea: Fisher's tea-tasting table (published_values.md section 2, exact Pearson p = 34/70).
 // The others are invented (promotions, shift patterns and training uptake at a fictional firm).
 // tea [[3, 1], [1, 3]]: 5 tables with these margins
 inline constexpr double exact_tea_pearson_p = 0.4857142857142857;

@@ -13,7 +13,7 @@
 namespace assoc {
 
 enum class PairedMethod {
-    corrected,    // McNemar with continuity correction, (|b − c| − 1)² / (b + c): the default for 2×2
+    corrected,    // McNemar with continuity correction, max(0, |b − c| − 1)² / (b + c): the default for 2×2
     uncorrected,  // (b − c)² / (b + c); for k×k, Bowker's Σ_{i<j} (n_ij − n_ji)² / (n_ij + n_ji)
     exact,        // two-sided binomial test of b against b + c with probability ½ (2×2, whole counts)
 };
