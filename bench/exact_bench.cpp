@@ -130,7 +130,8 @@ int main(int argc, char** argv) {
     }
     if (!r.empty())
         std::printf("Assoc at least as fast as R on %d of %d tables both could do; R could not do %d, Assoc %d "
-                    "(limits: %.0f s, %zu stored values).\n",
-                    faster, compared, beyond, assoc_stopped, limits.max_seconds, limits.max_stored_values);
+                    "(limits: %.0f s, %.0f MB of working memory).\n",
+                    faster, compared, beyond, assoc_stopped, limits.max_seconds,
+                    static_cast<double>(limits.max_memory_bytes) / 1e6);
     return 0;
 }

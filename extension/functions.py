@@ -269,7 +269,7 @@ FUNCTIONS = [
         "number", "the p-value, between 0 and 1",
         ["Trustworthy where the chi-squared approximation is doubtful (small expected counts). For larger "
          "tables with many counts the number of possible tables grows quickly: the calculation stops with an "
-         "error after about 5 seconds, or when it would need more than about 350 MB of memory; ASSOC.SIMULATE "
+         "error after about 5 seconds, or when it would need more than about 400 MB of memory; ASSOC.SIMULATE "
          "then gives a Monte Carlo p-value instead. ASSOC.CHECK with \"exact\" says why it fails."],
         "=ASSOC.EXACT(A1:C3)"),
     Function(
@@ -481,8 +481,9 @@ FUNCTIONS = [
                  "as an array formula over 2 columns and 22 rows",
         ["When the corner cell of a table with both headers names the variables as \"rows / columns\" "
          "(for example \"Department / Outcome\"), the conclusion uses those names.",
-         "The exact p-value is computed when the counts are whole and the test finishes within 2 seconds; "
-         "otherwise its line says why not (ASSOC.EXACT allows 5 seconds, ASSOC.SIMULATE estimates the p-value). The cells "
+         "The exact p-value is computed when the counts are whole and the test finishes within 2 seconds and "
+         "100 MB of memory; otherwise its line says why not (ASSOC.EXACT allows 5 seconds and 400 MB, "
+         "ASSOC.SIMULATE estimates the p-value). The cells "
          "that stand out are the (at most 3) cells with the largest adjusted residuals beyond ±2, named by "
          "their labels."],
         "=ASSOC.REPORT(A1:D3; 0.05)"),

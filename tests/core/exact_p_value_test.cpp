@@ -20,7 +20,7 @@ CountTable case_table(const reference::ExactCase& c) {
 
 // Fisher (1935), The Design of Experiments, ch. II: 8 cups, 4 with milk first, 3 named right.
 // The hypergeometric probabilities of 0..4 right are 1, 16, 36, 16, 1 over 70 (exact identity);
-// R's ?fisher.test quotes the one-sided p = 0.2429 (references.md section 2).
+// R's ?fisher.test quotes the one-sided p = 0.2429 (published_values.md section 2).
 TEST(ExactPValue, ReproducesFishersTeaTastingOneSidedAs17Over70) {
     EXPECT_NEAR_REL(exact_p_value(counts_table({{3, 1}, {1, 3}}), Side::upper), 17.0 / 70.0, 1e-14);
 }
@@ -92,13 +92,45 @@ TEST(ExactPValue, RejectsOneSidedTestsOnLargerTables) {
 
 TEST(ExactPValue, StopsAtTheMemoryLimitAndSuggestsASimulation) {
     ExactLimits limits;
-    limits.max_stored_values = 1000;
-    try {
+    limits.max_memory_bytes = 1'000'000;  // the table needs about 7 MB
+    expect_error([&] {
         exact_p_value(counts_table({{6, 4, 8, 8, 5, 5}, {2, 15, 6, 8, 8, 4}, {0, 3, 9, 2, 4, 3}}), Side::two_sided, limits);
+    }, "the exact test for this table needs more memory than allowed (the limit is 20 seconds and 1 MB of working "
+       "memory); use ASSOC.SIMULATE for a Monte Carlo p-value instead");
+}
+
+// A column of 2 beside columns of 22,000 and 23,000: the last two columns alone have about 10⁸
+// fills, which once took gigabytes unchecked. Which limit stops it first depends on the machine's
+// speed, so either message is right; growing past them is not.
+TEST(ExactPValue, StopsATableWithATinyColumnBesideHugeOnesAtItsLimits) {
+    const ExactLimits limits{2.0, 200'000'000};
+    const std::string limits_text = " than allowed (the limit is 2 seconds and 200 MB of working memory); use "
+                                    "ASSOC.SIMULATE for a Monte Carlo p-value instead";
+    try {
+        exact_p_value(counts_table({{1, 10000, 5000}, {1, 5000, 10000}, {0, 7000, 8000}}), Side::two_sided, limits);
         ADD_FAILURE() << "expected the work cap to stop the test";
     } catch (const Error& error) {
-        EXPECT_NE(std::string(error.what()).find("use ASSOC.SIMULATE"), std::string::npos) << error.what();
+        const std::string message = error.what();
+        EXPECT_TRUE(message == "the exact test for this table needs more memory" + limits_text ||
+                    message == "the exact test for this table needs more time" + limits_text)
+            << message;
     }
+}
+
+// Counts past 2³² once overflowed before the total was checked.
+TEST(ExactPValue, RefusesATableWhoseTotalIsTooLargeToEnumerate) {
+    expect_error([] { exact_p_value(counts_table({{5e9, 1, 1}, {1, 1, 1}, {1, 1, 1}})); },
+                 "the exact test handles totals up to 10,000,000; this table is larger (use the chi-squared test)");
+}
+
+// R 4.2.2 (Debian r-base-core): fisher.test(matrix(c(50, 40, 60, 45, 52, 53, 60, 48, 42), nrow = 3,
+// byrow = TRUE), workspace = 2e8)$p.value gives 0.13267391166609138. The test holds about 174 MB
+// at its peak, within the worksheet's 400 MB (the time limit is generous here: speed is not
+// asserted in unit tests).
+TEST(ExactPValue, ComputesAnOrdinaryThreeByThreeTableOf450WithinTheWorksheetsMemory) {
+    const ExactLimits limits{600.0, 400'000'000};
+    EXPECT_NEAR_REL(exact_p_value(counts_table({{50, 40, 60}, {45, 52, 53}, {60, 48, 42}}), Side::two_sided, limits),
+                    0.13267391166609138, 1e-10);
 }
 
 TEST(ExactPValue, StopsAtTheTimeLimitAndSuggestsASimulation) {

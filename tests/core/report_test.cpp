@@ -81,7 +81,7 @@ TEST(AssociationReport, GivesTheSizesOfTheAgrestiPartyTable) {
 
 TEST(AssociationReport, GivesPearsonAndLikelihoodRatioTestsOfTheAgrestiPartyTable) {
     // Agresti (2007) quotes X² ≈ 30.1 and G² ≈ 30.0; full values from scipy 1.10.1
-    // chi2_contingency (R 4.2.2 chisq.test agrees), see ../shared/references.md section 3.
+    // chi2_contingency (R 4.2.2 chisq.test agrees), see tests/reference/published_values.md section 3.
     const auto lines = report_of(party_range(""));
     EXPECT_NEAR_REL(number(lines, "Pearson X²"), 30.070149095754672, 1e-12);
     EXPECT_NEAR_REL(number(lines, "p-value, Pearson X²"), 2.9535891832e-07, 1e-9);
@@ -127,7 +127,7 @@ TEST(AssociationReport, KeepsIndependenceWhenThePValueIsAtLeastAlpha) {
 }
 
 TEST(AssociationReport, GivesCramersVAndTheExpectedCountChecks) {
-    // V: scipy 1.10.1 scipy.stats.contingency.association (references.md section 3).
+    // V: scipy 1.10.1 scipy.stats.contingency.association (published_values.md section 3).
     // Smallest E = 1200 · 566 / 2757 (males × independents), an exact identity.
     const auto lines = report_of(party_range(""));
     EXPECT_NEAR_REL(number(lines, "Cramér's V"), 0.10443580236, 1e-10);
@@ -165,7 +165,7 @@ TEST(AssociationReport, SaysWhenNoAssociationIsShownAndWarnsWhenTheApproximation
 }
 
 TEST(AssociationReport, GivesTheExactPValueOfTheTeaTable) {
-    // Fisher (1935) via R's ?fisher.test (references.md section 2): two-sided p = 34/70.
+    // Fisher (1935) via R's ?fisher.test (published_values.md section 2): two-sided p = 34/70.
     EXPECT_NEAR_REL(number(association_report(tea_table()), "p-value, exact test"), 34.0 / 70.0, 1e-12);
 }
 
@@ -176,11 +176,11 @@ TEST(AssociationReport, GivesTheExactPValueOfTheAgrestiPartyTable) {
 
 TEST(AssociationReport, SaysWhyTheExactTestStoppedAtItsLimitsAndPointsToTheSimulation) {
     ReportOptions options;
-    options.exact_limits = ExactLimits{2.0, 10};  // far too little for any 3×3 table
+    options.exact_limits = ExactLimits{2.0, 1'000};  // 1,000 bytes: far too little for any 3×3 table
     const auto lines = association_report(read_count_table(grid({{5, 3, 2}, {4, 6, 1}, {2, 2, 7}})), options);
     EXPECT_EQ(text(lines, "p-value, exact test"),
               "Not computed: the exact test for this table needs more memory than allowed (the limit is 2 seconds "
-              "and 10 stored values); use ASSOC.SIMULATE for a Monte Carlo p-value instead.");
+              "and 0.001 MB of working memory); use ASSOC.SIMULATE for a Monte Carlo p-value instead.");
 }
 
 TEST(AssociationReport, SaysWeightedCountsHaveNoExactPValue) {

@@ -21,7 +21,10 @@ inline constexpr double exact_tie_tolerance = 1e-7;
 // instead of hanging the office or exhausting its memory.
 struct ExactLimits {
     double max_seconds = 20.0;
-    std::size_t max_stored_values = 60'000'000;  // about 1 GB of working memory
+    // Working memory in bytes, as the test counts what it holds (its lists of partial values,
+    // their hash-map nodes, its temporaries): the process's peak resident memory grows by about
+    // as much as the count, or somewhat less.
+    std::size_t max_memory_bytes = 1'000'000'000;  // 1 GB
 };
 
 // The exact p-value. Needs whole counts. Throws assoc::Error for weighted counts,
