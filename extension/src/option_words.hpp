@@ -32,7 +32,10 @@ public:
     Value read(const css::uno::Any& argument) const {
         const Cell cell = to_cell(argument);
         if (cell.is_blank()) return omitted_;
-        require(cell.is_text(), "the " + what_ + " must be one of the words " + accepted() + ", not " + cell.describe());
+        // Calc passes a reference to an empty cell as the number 0, so say how to get the default.
+        const bool empty_cell = cell.is_number() && cell.as_number() == 0;
+        require(cell.is_text(), "the " + what_ + " must be one of the words " + accepted() + ", not " + cell.describe() +
+                                    (empty_cell ? " (an empty cell arrives as 0; leave the argument out for the default)" : ""));
         return parse(cell.as_text());
     }
 
