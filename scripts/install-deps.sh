@@ -4,8 +4,10 @@
 # Uses sudo when not root; skips what is installed.
 set -euo pipefail
 
+# libreoffice-calc (not the -nogui variant): the same office runs headless for the tests and in a
+# window under a virtual X server (xvfb) for the visible test of the menu command.
 packages=(cmake g++ make libboost-math-dev libgtest-dev
-          libreoffice-dev libreoffice-calc-nogui python3 python3-uno poppler-utils)
+          libreoffice-dev libreoffice-calc python3 python3-uno poppler-utils xvfb xauth)
 for arg in "$@"; do
   case "$arg" in
     --bench) packages+=(r-base-core) ;;
