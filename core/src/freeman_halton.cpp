@@ -37,6 +37,7 @@
 #include <limits>
 #include <new>
 #include <string>
+#include <tuple>
 #include <unordered_map>
 #include <vector>
 
@@ -201,7 +202,9 @@ public:
                 if (last) {
                     settle_before_meeting(k, node, pasts);
                 } else {
-                    const auto [first, end] = split_by_bounds(pasts, bounds_of(k, node), log_total_future(k, node));
+                    // Plain variables, not structured bindings: C++17 does not let a lambda capture those.
+                    std::size_t first = 0, end = 0;
+                    std::tie(first, end) = split_by_bounds(pasts, bounds_of(k, node), log_total_future(k, node));
                     if (first < end)
                         for_each_fill(node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
                             const auto [place, inserted] = next.try_emplace(child);

@@ -15,13 +15,11 @@ fit, power, counts from records, strata, paired, trend, selection impact) are in
 calc_more_functions.py; both files share the one office through calc_support.py, and this file's
 main runs them all.
 """
-import argparse
-import sys
 import time
 import unittest
 
 from calc_support import *  # noqa: F401,F403  (the session, the tables, CalcTestCase)
-from calc_support import ROOT, TIMINGS, assoc_office, session
+from calc_support import ROOT, assoc_office, run_harness, session
 from calc_more_functions import *  # noqa: F401,F403  (the tests of the later functions)
 
 
@@ -390,29 +388,5 @@ def _content_xml(path):
         return archive.read("content.xml")
 
 
-def main():
-    parser = argparse.ArgumentParser(description=__doc__, formatter_class=argparse.RawDescriptionHelpFormatter)
-    parser.add_argument("--oxt", required=True, help="the built extension, e.g. build/extension/assoc.oxt")
-    known, rest = parser.parse_known_args()
-    started = time.monotonic()
-    try:
-        session.office = assoc_office.ThrowawayOffice(known.oxt, log=lambda m: print(m, flush=True)).__enter__()
-        session.document = session.office.new_spreadsheet()
-        program = unittest.main(argv=[sys.argv[0], *rest], exit=False, verbosity=2)
-        ok = program.result.wasSuccessful()
-    finally:
-        if session.document is not None:
-            try:
-                session.document.close(True)
-            except Exception:
-                pass
-        if session.office is not None:
-            session.office.close()
-    for seconds, name in sorted(TIMINGS, reverse=True)[:5]:
-        print(f"  {seconds:5.1f} s  {'.'.join(name)}")
-    print(f"Calc harness: {time.monotonic() - started:.1f} s", flush=True)
-    sys.exit(0 if ok else 1)
-
-
 if __name__ == "__main__":
-    main()
+    run_harness(__doc__)

@@ -3,6 +3,7 @@ up by calc_functions_test.py's main), the reference values, the test tables, and
 with its helpers for writing cells and reading results.
 """
 
+import argparse
 import json
 import math
 import pathlib
@@ -138,3 +139,32 @@ class CalcTestCase(unittest.TestCase):
             self.assertEqual(len(got_row), len(want_row), f"{what}: columns of row {r}")
             for c, (got, want) in enumerate(zip(got_row, want_row)):
                 self.assertClose(got, want, tolerance, f"{what} [{r}][{c}]")
+
+
+def run_harness(description):
+    """The main of every Calc harness file: installs the .oxt given by --oxt into a throwaway office,
+    opens one spreadsheet, runs the unittest cases of the calling module (`__main__`, with whatever it
+    imports) and exits 0 only when all passed. Register the file in tests/calc/CMakeLists.txt with
+    assoc_calc_harness()."""
+    parser = argparse.ArgumentParser(description=description, formatter_class=argparse.RawDescriptionHelpFormatter)
+    parser.add_argument("--oxt", required=True, help="the built extension, e.g. build/extension/assoc.oxt")
+    known, rest = parser.parse_known_args()
+    started = time.monotonic()
+    ok = False
+    try:
+        session.office = assoc_office.ThrowawayOffice(known.oxt, log=lambda m: print(m, flush=True)).__enter__()
+        session.document = session.office.new_spreadsheet()
+        program = unittest.main(module="__main__", argv=[sys.argv[0], *rest], exit=False, verbosity=2)
+        ok = program.result.wasSuccessful()
+    finally:
+        if session.document is not None:
+            try:
+                session.document.close(True)
+            except Exception:
+                pass
+        if session.office is not None:
+            session.office.close()
+    for seconds, name in sorted(TIMINGS, reverse=True)[:5]:
+        print(f"  {seconds:5.1f} s  {'.'.join(name)}")
+    print(f"Calc harness: {time.monotonic() - started:.1f} s", flush=True)
+    sys.exit(0 if ok else 1)
