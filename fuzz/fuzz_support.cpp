@@ -1,0 +1,207 @@
+#include "fuzz_support.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <cstdlib>
+#include <ctime>
+
+namespace assoc::fuzz {
+namespace {
+
+// Every text of the current input: messages quote them, so a word or a number in a message is
+// only held against the core when the input did not supply it.
+std::vector<std::string> input_texts;
+
+bool input_has(const std::string& word) {
+    for (const std::string& text : input_texts)
+        if (text.find(word) != std::string::npos) return true;
+    return false;
+}
+
+bool input_has_digits() {
+    for (const std::string& text : input_texts)
+        if (text.find_first_of("0123456789") != std::string::npos) return true;
+    return false;
+}
+
+Cell read_cell(const std::string& token) {
+    if (token.empty()) return Cell::blank();
+    if (token[0] == '\'') return Cell::text(token.substr(1));
+    // strtod stops at a NUL; a token with one inside is a text.
+    if (token.find('\0') == std::string::npos) {
+        char* end = nullptr;
+        const double value = std::strtod(token.c_str(), &end);
+        if (end == token.c_str() + token.size()) return Cell::number(value);
+    }
+    return Cell::text(token);
+}
+
+}  // namespace
+
+std::vector<CellGrid> read_sections(const std::uint8_t* data, std::size_t size) {
+    using Rows = std::vector<std::vector<Cell>>;
+    input_texts.clear();
+    std::vector<Rows> blocks(1);
+    std::size_t cells = 0;
+    std::size_t start = 0;
+    while (start <= size && cells < max_input_cells) {
+        std::size_t end = start;
+        while (end < size && data[end] != '\n') ++end;
+        const std::string line(reinterpret_cast<const char*>(data) + start, end - start);
+        if (line == "---") {
+            blocks.emplace_back();
+        } else if (!(end == size && line.empty())) {  // no empty row from a final newline
+            std::vector<Cell> row;
+            std::size_t from = 0;
+            for (;;) {
+                const std::size_t to = line.find(';', from);
+                row.push_back(read_cell(line.substr(from, to == std::string::npos ? std::string::npos : to - from)));
+                if (row.back().is_text()) input_texts.push_back(row.back().as_text());
+                if (++cells >= max_input_cells || to == std::string::npos) break;
+                from = to + 1;
+            }
+            blocks.back().push_back(std::move(row));
+        }
+        start = end + 1;
+    }
+    std::vector<CellGrid> grids;
+    for (const Rows& rows : blocks) {
+        std::size_t columns = 0;
+        for (const auto& row : rows) columns = std::max(columns, row.size());
+        CellGrid grid(rows.size(), columns);
+        for (std::size_t r = 0; r < rows.size(); ++r)
+            for (std::size_t c = 0; c < rows[r].size(); ++c) grid.at(r, c) = rows[r][c];
+        grids.push_back(std::move(grid));
+    }
+    return grids;
+}
+
+const CellGrid& section(const std::vector<CellGrid>& sections, std::size_t i) {
+    static const CellGrid empty;
+    return i < sections.size() ? sections[i] : empty;
+}
+
+double number_at(const CellGrid& grid, std::size_t i, double fallback) {
+    if (grid.rows() == 0 || i >= grid.columns() || !grid.at(0, i).is_number()) return fallback;
+    return grid.at(0, i).as_number();
+}
+
+std::string word_at(const CellGrid& grid, std::size_t i) {
+    if (grid.rows() == 0 || i >= grid.columns() || !grid.at(0, i).is_text()) return "";
+    return grid.at(0, i).as_text();
+}
+
+void finding(const std::string& what) {
+    std::fprintf(stderr, "\n*** Assoc fuzz finding: %s\n", what.c_str());
+    std::fflush(stderr);
+    std::abort();
+}
+
+namespace {
+
+bool checking_values = true;
+
+}  // namespace
+
+void wrong(const std::string& what) {
+    if (checking_values) finding(what);
+}
+
+CheckValues::CheckValues(bool on) : before_(checking_values) { checking_values = on; }
+CheckValues::~CheckValues() { checking_values = before_; }
+
+namespace {
+
+std::string shown(double x) {
+    char buffer[40];
+    std::snprintf(buffer, sizeof buffer, "%.17g", x);
+    return buffer;
+}
+
+}  // namespace
+
+void check_finite(double x, const std::string& what) {
+    if (!std::isfinite(x)) wrong(what + " is " + shown(x) + ", returned as a valid result");
+}
+
+void check_probability(double p, const std::string& what) { check_between(p, 0.0, 1.0, what); }
+
+void check_nonnegative(double x, const std::string& what) {
+    check_finite(x, what);
+    if (x < 0) wrong(what + " is " + shown(x) + ", below 0");
+}
+
+void check_between(double x, double low, double high, const std::string& what) {
+    check_finite(x, what);
+    if (x < low || x > high) wrong(what + " is " + shown(x) + ", outside [" + shown(low) + ", " + shown(high) + "]");
+}
+
+void check_finite(const Matrix& values, const std::string& what) {
+    for (std::size_t r = 0; r < values.rows(); ++r)
+        for (std::size_t c = 0; c < values.columns(); ++c)
+            check_finite(values(r, c), what + " (" + std::to_string(r + 1) + ", " + std::to_string(c + 1) + ")");
+}
+
+void check_message(const std::string& message, const std::string& what) {
+    if (message.empty()) finding(what + " gave an empty message");
+    // Words a library or the C++ runtime would write, never Assoc (unless the input's texts hold them).
+    for (const char* word : {"boost", "Boost", "Error in function", "%1%", "std::", "basic_string", "vector::",
+                             "bad_alloc", "stod", "out_of_range", "_M_"})
+        if (message.find(word) != std::string::npos && !input_has(word))
+            finding(what + " gave a library's message: " + message);
+    // A number printed with all its digits is not formatted for reading.
+    if (input_has_digits()) return;
+    std::size_t digits = 0;
+    for (char c : message) {
+        digits = (c >= '0' && c <= '9') ? digits + 1 : 0;
+        if (digits > 17) wrong(what + " gave a number with more than 17 digits: " + message);
+    }
+}
+
+double cpu_seconds() { return static_cast<double>(std::clock()) / CLOCKS_PER_SEC; }
+
+}  // namespace assoc::fuzz
+
+namespace assoc::fuzz {
+
+bool strict() {
+    static const bool on = [] {
+        const char* value = std::getenv("ASSOC_FUZZ_STRICT");
+        return value != nullptr && std::string(value) == "1";
+    }();
+    return on;
+}
+
+bool check_numbers(std::initializer_list<const CellGrid*> grids) {
+    if (strict()) return true;
+    for (const CellGrid* grid : grids)
+        for (std::size_t r = 0; r < grid->rows(); ++r)
+            for (std::size_t c = 0; c < grid->columns(); ++c) {
+                const Cell& cell = grid->at(r, c);
+                if (!cell.is_number()) continue;
+                const double size = std::fabs(cell.as_number());
+                if (size != 0 && (size < 1e-3 || size > 1e12)) return false;
+            }
+    return true;
+}
+
+CellGrid scaled(const CellGrid& grid, double factor) {
+    CellGrid result = grid;
+    for (std::size_t r = 0; r < grid.rows(); ++r)
+        for (std::size_t c = 0; c < grid.columns(); ++c)
+            if (grid.at(r, c).is_number()) result.at(r, c) = Cell::number(grid.at(r, c).as_number() * factor);
+    return result;
+}
+
+double scale_factor(const std::uint8_t* data, std::size_t size) {
+    unsigned hash = 0;
+    for (std::size_t i = 0; i < size; ++i) hash = hash * 31 + data[i];
+    return std::ldexp(1.0, 2 * static_cast<int>(hash % 17) - 16);
+}
+
+bool close(double a, double b, double tolerance) {
+    return std::fabs(a - b) <= tolerance * std::max({std::fabs(a), std::fabs(b), 1.0});
+}
+
+}  // namespace assoc::fuzz
