@@ -22,18 +22,27 @@ double two_sided_z(double confidence) {
 
 RateInterval wilson(double count, double total, double z) {
     const double z2 = z * z;
-    const double a = 2 * count + z2;
-    // 4x(n − x)/n as 4x·((n − x)/n): no overflow for huge counts.
-    const double b = z * std::sqrt(z2 + 4 * count * ((total - count) / total));
     RateInterval interval;
     interval.rate = count / total;
-    // lower = (A − B) / (2(n + z²)) = 2x² / (n (A + B)), since A² − B² = 4x²(1 + z²/n); written as
-    // (x/n)·(2x/(A + B)) so that neither product overflows.
-    interval.lower = count == 0 ? 0.0 : interval.rate * (2 * count / (a + b));
-    interval.upper = count == total ? 1.0 : (a + b) / (2 * (total + z2));
-    // Rounding must not push an end past the rate or out of [0, 1].
-    interval.lower = std::min(std::max(interval.lower, 0.0), interval.rate);
-    interval.upper = std::max(std::min(interval.upper, 1.0), interval.rate);
+    const double p = interval.rate;
+    // lower = (A − B) / (2(n + z²)) = 2x² / (n (A + B)), since A² − B² = 4x²(1 + z²/n): no cancellation.
+    // From a total of 1 up, in shares of the total (A/n, B/n), so that huge counts cannot overflow;
+    // below it in counts, so that z²/n cannot overflow for a tiny (weighted) total.
+    double lower = 0.0, upper = 1.0;
+    if (total >= 1) {
+        const double a = 2 * p + z2 / total;
+        const double b = z * std::sqrt(z2 / total / total + 4 * p * (1 - p) / total);
+        lower = 2 * p * p / (a + b);
+        upper = (a + b) / (2 * (1 + z2 / total));
+    } else {
+        const double a = 2 * count + z2;
+        const double b = z * std::sqrt(z2 + 4 * count * (1 - p));
+        lower = p * (2 * count / (a + b));
+        upper = (a + b) / (2 * (total + z2));
+    }
+    // Exact ends at the edges, and rounding must not push an end past the rate or out of [0, 1].
+    interval.lower = count == 0 ? 0.0 : std::min(std::max(lower, 0.0), p);
+    interval.upper = count == total ? 1.0 : std::max(std::min(upper, 1.0), p);
     return interval;
 }
 
