@@ -557,7 +557,7 @@ MEMO_FUNCTIONS = [
          "all fall in one column gets p = 1. Rows without a label are named \"row k\"; rows of zeros take no part. "
          "At most 100 rows. ASSOC.CHECK with \"pairwise\" names pairs whose chi-squared p-value is doubtful.",
          "Entered in a single cell it shows the first row's label, as an array's top-left value. The smallest "
-         "adjusted p-value: =MIN(INDEX(ASSOC.PAIRWISE(A1:C6);0;4))."],
+         "adjusted p-value: `=MIN(INDEX(ASSOC.PAIRWISE(A1:C6);0;4))`."],
         "=ASSOC.PAIRWISE(A1:C6)"),
     Function(
         "ASSOC.STRATARISK", "stratarisk",
@@ -570,8 +570,9 @@ MEMO_FUNCTIONS = [
          "row, or with nobody in column 1, adds nothing and is left out (ASSOC.CHECK with \"stratarisk\" names "
          "it); a zero cell elsewhere needs no correction. For one stratum without a zero cell the ratio and its "
          "interval are those of ASSOC.RISKRATIO.",
-         "Beside ASSOC.IMPACT: a common ratio below 0.8 is the four-fifths screen applied within strata. It is a "
-         "screen, not a test; follow applicable law and policy and seek qualified advice."],
+         "Beside ASSOC.IMPACT: a ratio below 0.8 (or above 1.25, which puts row 2's group below four-fifths of row "
+         "1's) is the four-fifths screen applied within strata. It is a screen, not a test; follow applicable law "
+         "and policy and seek qualified advice."],
         "=ASSOC.STRATARISK(A1:E5)"),
 ]
 
