@@ -43,7 +43,7 @@ void expect_reference(const CommonRiskRatio& result, const ref::CommonRiskRatioC
 TEST(CommonRiskRatio, MatchesStatsmodelsAndTheGreenlandRobinsIntervalAcrossOffices) {
     // Estimate: statsmodels 0.13.5 StratifiedTable.riskratio_pooled. Interval: Greenland & Robins
     // (1985), Biometrics 41:55–68, variance of the log ratio, in 50-digit mpmath (the formula as the R
-    // package Hmisc implements it in mhgr(); see tests/reference/rates_and_pairs_generate.py).
+    // package Hmisc implements it in mhgr(); published_values.md section 13).
     expect_reference(common_risk_ratio(strata_of(reference_case("offices"))), reference_case("offices"));
 }
 

@@ -47,7 +47,8 @@ TEST(WilsonInterval, MatchesTheFormulaInFiftyDigitsForEveryReferenceCase) {
 
 TEST(WilsonInterval, ReproducesNewcombesPublishedSingleProportionExamples) {
     // Newcombe (1998a), Statistics in Medicine 17:857–872, Table I, method 3 (score, no continuity
-    // correction), to the 4 decimals printed (from memory; the 50-digit values above agree):
+    // correction), to the 4 decimals printed (from memory; published_values.md section 12; the 50-digit
+    // values above agree):
     // 81/263: 0.2553–0.3662; 15/148: 0.0624–0.1605; 0/20: 0–0.1611; 1/29: 0.0061–0.1718.
     const struct { double x, n, lower, upper; } published[] = {
         {81, 263, 0.2553, 0.3662}, {15, 148, 0.0624, 0.1605}, {0, 20, 0.0, 0.1611}, {1, 29, 0.0061, 0.1718}};
@@ -233,10 +234,10 @@ TEST(RateDifference, MatchesNewcombesMethodTenForEveryReferenceCase) {
 
 TEST(RateDifference, ReproducesNewcombesPublishedDifferenceExamples) {
     // Newcombe (1998), Statistics in Medicine 17:873–890, Table II, method 10, to the 4 decimals
-    // printed (from memory; the 50-digit values agree): (a) 56/70 − 48/80: 0.0524 to 0.3339;
-    // (b) 9/10 − 3/10: 0.1705 to 0.8090; (d) 5/56 − 0/29: −0.0381 to 0.1926; (e) 0/10 − 0/20: −0.1611
-    // to 0.2775; (f) 0/10 − 0/10: −0.2775 to 0.2775; (g) 10/10 − 0/20: 0.6791 to 1; (h) 10/10 − 0/10:
-    // 0.6075 to 1.
+    // printed (from memory; published_values.md section 12; the 50-digit values agree):
+    // (a) 56/70 − 48/80: 0.0524 to 0.3339; (b) 9/10 − 3/10: 0.1705 to 0.8090; (d) 5/56 − 0/29: −0.0381
+    // to 0.1926; (e) 0/10 − 0/20: −0.1611 to 0.2775; (f) 0/10 − 0/10: −0.2775 to 0.2775;
+    // (g) 10/10 − 0/20: 0.6791 to 1; (h) 10/10 − 0/10: 0.6075 to 1.
     const struct { double x1, n1, x2, n2, lower, upper; } published[] = {
         {56, 70, 48, 80, 0.0524, 0.3339}, {9, 10, 3, 10, 0.1705, 0.8090}, {5, 56, 0, 29, -0.0381, 0.1926},
         {0, 10, 0, 20, -0.1611, 0.2775},  {0, 10, 0, 10, -0.2775, 0.2775}, {10, 10, 0, 20, 0.6791, 1.0},
