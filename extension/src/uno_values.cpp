@@ -123,7 +123,10 @@ CellGrid to_cell_grid(const AnyTable& range) {
         require(static_cast<std::size_t>(row.getLength()) == columns, "the rows of the range have different lengths");
     // Trailing blank rows and columns are not part of the range: a whole-column reference (A:C) or a
     // range drawn generously below a growing table reads as the table it holds.
-    const RangeExtent used = used_extent(range);
+    RangeExtent used = used_extent(range);
+    // A range of blanks keeps its shape (when it is not huge), so that messages speak of its blanks.
+    const std::size_t all_rows = static_cast<std::size_t>(range.getLength());
+    if (used.rows == 0 && columns > 0 && all_rows <= ReadOptions{}.max_body_cells / columns) used = {all_rows, columns};
     const std::size_t rows = used.rows;
     // The reader has its own cap on the body; this one keeps a huge range from being copied before
     // that check can run. A header row and column are allowed on top.

@@ -34,7 +34,8 @@ RangeExtent used_extent(const AnyTable& range);
 
 // A range as Calc passes it to an any[][] argument (numbers, texts, and blanks as empty texts),
 // without its trailing blank rows and columns (see used_extent): whole-column and whole-row
-// references read as the table they hold, and the size cap applies to what is left.
+// references read as the table they hold, and the size cap applies to what is left. A range of
+// blanks keeps its shape unless it is larger than the cap (then it reads as empty).
 CellGrid to_cell_grid(const AnyTable& range);
 // A range of labels (raw records: one label per record) in dictionary form, read without a Cell per
 // record: each distinct text is converted once, so a million records cost little more than Calc's
