@@ -17,6 +17,7 @@ import itertools
 import json
 import pathlib
 import subprocess
+import sys
 
 import numpy as np
 import scipy
@@ -30,6 +31,8 @@ assert scipy.__version__ == "1.10.1", scipy.__version__
 assert statsmodels.__version__.startswith("0.13.5"), statsmodels.__version__
 
 OUT = pathlib.Path(__file__).with_name("rates_and_pairs_values.json")
+sys.path.insert(0, str(pathlib.Path(__file__).resolve().parents[1] / "reference"))
+from samples_generate import r_matrix, r_numbers as r_values  # noqa: E402  (Rscript helpers, whole counts)
 
 # Promoted / not promoted in 2025 by department at a fictional company; Legal had no promotion round.
 DEPARTMENTS = [["Department", "Promoted", "Not promoted"],
@@ -39,17 +42,6 @@ DEPARTMENTS = [["Department", "Promoted", "Not promoted"],
 OFFICES = [["Office", "Design: promoted", "Design: not promoted", "Assembly: promoted", "Assembly: not promoted"],
            ["Northgate", 41, 56, 10, 11], ["Riverside", 23, 61, 12, 25], ["Hillcrest", 7, 31, 13, 70],
            ["Lakeview", 2, 25, 11, 93]]
-
-
-def r_values(expression):
-    text = subprocess.run(["Rscript", "-e", f"cat(sprintf('%.17g', {expression}), sep='\\n')"],
-                          check=True, capture_output=True, text=True).stdout
-    return [float(v) for v in text.split()]
-
-
-def r_matrix(table):
-    flat = ", ".join(repr(float(v)) for row in table for v in row)
-    return f"matrix(c({flat}), nrow = {len(table)}, byrow = TRUE)"
 
 
 def rates(rows, confidence):

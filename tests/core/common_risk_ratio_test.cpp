@@ -19,9 +19,7 @@ namespace ref = assoc::reference;
 namespace {
 
 const ref::CommonRiskRatioCase& reference_case(const std::string& name) {
-    for (const ref::CommonRiskRatioCase& c : ref::common_risk_ratio_cases)
-        if (name == c.name) return c;
-    throw std::runtime_error("no common risk ratio case " + name);
+    return ref::case_named(ref::common_risk_ratio_cases, name);
 }
 
 Strata strata_of(const ref::CommonRiskRatioCase& c) {

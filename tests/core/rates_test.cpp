@@ -16,17 +16,8 @@ namespace ref = assoc::reference;
 
 namespace {
 
-const ref::WilsonCase& wilson_case(const std::string& name) {
-    for (const ref::WilsonCase& c : ref::wilson_cases)
-        if (name == c.name) return c;
-    throw std::runtime_error("no Wilson case " + name);
-}
-
-const ref::NewcombeCase& newcombe_case(const std::string& name) {
-    for (const ref::NewcombeCase& c : ref::newcombe_cases)
-        if (name == c.name) return c;
-    throw std::runtime_error("no Newcombe case " + name);
-}
+const ref::WilsonCase& wilson_case(const std::string& name) { return ref::case_named(ref::wilson_cases, name); }
+const ref::NewcombeCase& newcombe_case(const std::string& name) { return ref::case_named(ref::newcombe_cases, name); }
 
 }  // namespace
 

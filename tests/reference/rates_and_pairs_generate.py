@@ -292,8 +292,18 @@ header = [
     f"// mpmath {mp.__version__}, scipy {scipy.__version__}, numpy {np.__version__}, statsmodels "
     f"{statsmodels.__version__}, {subprocess.run(['Rscript', '-e', 'cat(R.version.string)'], check=True, capture_output=True, text=True).stdout}.",
     "#include <cstddef>",
+    "#include <stdexcept>",
+    "#include <string>",
     "",
     "namespace assoc::reference {",
+    "",
+    "// The case of `cases` called `name`; a name that is not there throws, so a typo in a test fails loudly.",
+    "template <class Case, std::size_t N>",
+    "const Case& case_named(const Case (&cases)[N], const std::string& name) {",
+    "    for (const Case& c : cases)",
+    "        if (name == c.name) return c;",
+    "    throw std::out_of_range(\"no reference case \" + name);",
+    "}",
     "",
 ]
 OUT.write_text("\n".join(header + lines + ["}  // namespace assoc::reference", ""]))
