@@ -1,6 +1,6 @@
 // Fuzz target: a count table read from cells (read_count_table), and every statistic of a table:
 // expected counts, the three chi-squared tests, degrees of freedom, residuals of every kind, effect
-// sizes, the interval for Cramér's V, cell p-values and the validity check.
+// sizes, the interval for Cramér's V, cell p-values, pairwise comparisons of rows and the validity check.
 // Input: section 1 is the range.
 // Checks: only assoc::Error leaves the core; p-values in [0, 1]; statistics, expected counts and
 // effect sizes finite and in range; a table of everyday counts multiplied by a power of 4 gives
@@ -12,6 +12,7 @@
 #include "assoc/cramers_v_interval.hpp"
 #include "assoc/effect_size.hpp"
 #include "assoc/expected_counts.hpp"
+#include "assoc/pairwise_comparisons.hpp"
 #include "assoc/residuals.hpp"
 #include "assoc/statistics.hpp"
 #include "assoc/validity.hpp"
@@ -24,11 +25,11 @@ namespace {
 
 void check_table(const CountTable& table) {
     check_nonnegative(table.total(), "total");
-    if (!(table.total() > 0)) wrong("a table was read with a total of 0");
-    if (table.rows() < 2 || table.columns() < 2) wrong("a table was read with fewer than 2 rows or columns");
+    if (!(table.total() > 0)) finding("a table was read with a total of 0");
+    if (table.rows() < 2 || table.columns() < 2) finding("a table was read with fewer than 2 rows or columns");
     for (double count : table.counts().values()) check_nonnegative(count, "count");
-    for (double total : table.row_totals()) if (!(total > 0)) wrong("a kept row has no counts");
-    for (double total : table.column_totals()) if (!(total > 0)) wrong("a kept column has no counts");
+    for (double total : table.row_totals()) if (!(total > 0)) finding("a kept row has no counts");
+    for (double total : table.column_totals()) if (!(total > 0)) finding("a kept column has no counts");
     for (const std::string& remark : table.reading_remarks()) check_message(remark, "reading remark");
 }
 
@@ -41,7 +42,7 @@ Figures check_statistics(const CountTable& table) {
     attempt("expected counts", [&] {
         const Matrix expected = expected_counts(table);
         for (double e : expected.values())
-            if (!(e > 0) || !std::isfinite(e)) wrong("an expected count is " + std::to_string(e));
+            if (!(e > 0) || !std::isfinite(e)) finding("an expected count is " + std::to_string(e));
     });
     for (Method method : {Method::pearson, Method::likelihood_ratio, Method::yates}) {
         const std::string name = "independence test (" + method_name(method) + ")";
@@ -49,14 +50,14 @@ Figures check_statistics(const CountTable& table) {
             const TestResult result = independence_test(table, method);
             check_nonnegative(result.statistic, name + ": statistic");
             check_probability(result.p_value, name + ": p-value");
-            if (!(result.df >= 1)) wrong(name + ": df below 1");
+            if (!(result.df >= 1)) finding(name + ": df below 1");
             if (method == Method::pearson) figures.pearson = result.statistic;
             if (method == Method::likelihood_ratio) figures.likelihood_ratio = result.statistic;
         });
     }
     attempt("Yates below Pearson", [&] {
         if (table.is_two_by_two() && yates_statistic(table) > pearson_statistic(table) * (1 + 1e-12))
-            wrong("the Yates statistic is above Pearson's");
+            finding("the Yates statistic is above Pearson's");
     });
     attempt("degrees of freedom", [&] { check_nonnegative(degrees_of_freedom(table), "df"); });
     for (ResidualKind kind : {ResidualKind::pearson, ResidualKind::adjusted, ResidualKind::raw,
@@ -79,15 +80,26 @@ Figures check_statistics(const CountTable& table) {
         const CramersVInterval interval = cramers_v_interval(table);
         check_between(interval.lower, 0, 1 + 1e-9, "V lower");
         check_between(interval.upper, 0, 1 + 1e-9, "V upper");
-        if (interval.lower > interval.estimate * (1 + 1e-9) + 1e-12 ||
-            interval.upper < interval.estimate * (1 - 1e-9) - 1e-12)
-            wrong("the interval for V does not hold V");
+        // The interval is for the noncentrality (λ), whose estimate is X² − df rather than the X² of V:
+        // the upper limit may fall below V (down to [0, 0], as documented) when X² is small for its df.
+        if (interval.lower > interval.estimate * (1 + 1e-9) + 1e-12 || interval.lower > interval.upper)
+            finding("the lower limit for V is above V or above the upper limit");
     });
     for (PAdjustment adjustment : {PAdjustment::holm, PAdjustment::bonferroni, PAdjustment::none})
         attempt("cell p-values", [&] {
             const Matrix p_values = cell_p_values(table, adjustment);
             for (double p : p_values.values()) check_probability(p, "cell p-value");
         });
+    attempt("pairwise comparisons", [&] {
+        const PairwiseComparisons pairs = pairwise_comparisons(table);
+        for (const PairComparison& pair : pairs.pairs) {
+            check_probability(pair.p_value, "pairwise p-value");
+            check_probability(pair.adjusted_p_value, "adjusted pairwise p-value");
+            if (pair.adjusted_p_value < pair.p_value) finding("an adjusted pairwise p-value is below its p-value");
+            check_message(pair.first_name, "pair name");
+        }
+        for (const std::string& remark : pairs.remarks) check_message(remark, "pairwise remark");
+    });
     attempt("validity", [&] {
         const ValidityCheck validity = check_validity(table);
         check_nonnegative(validity.smallest_expected, "smallest expected count");
@@ -105,26 +117,24 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const CellGrid& range = section(sections, 0);
     CountTable table;
     if (!attempt("read_count_table", [&] { table = read_count_table(range); })) return 0;
-    const bool numbers = check_numbers({&range});
-    const CheckValues values(numbers);
+    if (!everyday_numbers({&range})) return 0;
     check_table(table);
     const Figures figures = check_statistics(table);
-    if (!numbers) return 0;
 
     // Every count times k (a power of 4): X², G² and the expected counts scale by k, V does not.
     const double k = scale_factor(data, size);
     const CellGrid bigger = scaled(range, k);
-    if (!check_numbers({&bigger})) return 0;
+    if (!everyday_numbers({&bigger})) return 0;
     CountTable scaled_table;
     if (!attempt("read_count_table (scaled)", [&] { scaled_table = read_count_table(bigger); })) return 0;
     const Figures scaled_figures = check_statistics(scaled_table);
     if (std::isfinite(figures.pearson) && std::isfinite(scaled_figures.pearson) &&
         !close(scaled_figures.pearson, k * figures.pearson, 1e-7))
-        wrong("X² of the table times " + std::to_string(k) + " is not X² times that");
+        finding("X² of the table times " + std::to_string(k) + " is not X² times that");
     if (std::isfinite(figures.likelihood_ratio) && std::isfinite(scaled_figures.likelihood_ratio) &&
         !close(scaled_figures.likelihood_ratio, k * figures.likelihood_ratio, 1e-7))
-        wrong("G² of the table times " + std::to_string(k) + " is not G² times that");
+        finding("G² of the table times " + std::to_string(k) + " is not G² times that");
     if (std::isfinite(figures.v) && std::isfinite(scaled_figures.v) && !close(scaled_figures.v, figures.v, 1e-7))
-        wrong("V of the table times " + std::to_string(k) + " differs");
+        finding("V of the table times " + std::to_string(k) + " differs");
     return 0;
 }

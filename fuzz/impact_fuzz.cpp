@@ -16,23 +16,21 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const CellGrid& selected = section(sections, 0);
     const CellGrid& considered = section(sections, 1);
     const double threshold = number_at(section(sections, 2), 0, 0.8);
-    const bool numbers = check_numbers({&selected, &considered});
-    const CheckValues values(numbers);
+    if (!everyday_numbers({&selected, &considered})) return 0;
     attempt("selection_impact", [&] {
         const SelectionImpact result = selection_impact(selected, considered, threshold);
-        if (!numbers) return;
-        if (result.groups.size() < 2) wrong("impact ratios for fewer than 2 groups");
-        if (result.highest_group >= result.groups.size()) wrong("the highest group is not a group");
+        if (result.groups.size() < 2) finding("impact ratios for fewer than 2 groups");
+        if (result.highest_group >= result.groups.size()) finding("the highest group is not a group");
         check_probability(result.highest_rate, "highest rate");
         for (const GroupImpact& group : result.groups) {
             check_probability(group.selection_rate, "selection rate");
             check_between(group.impact_ratio, 0, 1 + 1e-12, "impact ratio");
-            if (group.selection_rate > result.highest_rate) wrong("a group's rate is above the highest rate");
-            if (group.below_threshold != (group.impact_ratio < threshold)) wrong("the flag does not follow the threshold");
-            if (group.below_threshold == group.flag.empty()) wrong("a flag without a ratio below the threshold, or none with one");
+            if (group.selection_rate > result.highest_rate) finding("a group's rate is above the highest rate");
+            if (group.below_threshold != (group.impact_ratio < threshold)) finding("the flag does not follow the threshold");
+            if (group.below_threshold == group.flag.empty()) finding("a flag without a ratio below the threshold, or none with one");
             if (!group.flag.empty()) check_message(group.flag, "impact flag");
         }
-        if (result.groups[result.highest_group].impact_ratio != 1) wrong("the highest group's ratio is not 1");
+        if (result.groups[result.highest_group].impact_ratio != 1) finding("the highest group's ratio is not 1");
     });
     return 0;
 }

@@ -12,15 +12,14 @@ using namespace assoc::fuzz;
 
 namespace {
 
-double check_paired(const CellGrid& range, std::optional<PairedMethod> method, bool numbers) {
+double check_paired(const CellGrid& range, std::optional<PairedMethod> method) {
     double statistic = NAN;
     attempt("paired_test", [&] {
         const PairedResult result = paired_test(range, method);
-        if (!numbers) return;
         check_probability(result.p_value, "paired p-value");
         check_nonnegative(result.statistic, "paired statistic");
         // The exact test has no degrees of freedom (0); the chi-squared ones have 1 or more.
-        if (result.method == PairedMethod::exact ? result.df != 0 : !(result.df >= 1)) wrong("paired df wrong");
+        if (result.method == PairedMethod::exact ? result.df != 0 : !(result.df >= 1)) finding("paired df wrong");
         statistic = result.statistic;
     });
     return statistic;
@@ -33,16 +32,14 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const CellGrid& range = section(sections, 0);
     std::optional<PairedMethod> method;
     attempt("parse_paired_method", [&] { method = parse_paired_method(word_at(section(sections, 1), 0)); });
-    const bool numbers = check_numbers({&range});
-    const CheckValues values(numbers);
-    check_paired(range, method, numbers);
-    if (!numbers) return 0;
-    const double statistic = check_paired(range, PairedMethod::uncorrected, true);
+    if (!everyday_numbers({&range})) return 0;
+    check_paired(range, method);
+    const double statistic = check_paired(range, PairedMethod::uncorrected);
     const double k = scale_factor(data, size);
     const CellGrid bigger = scaled(range, k);
-    if (!check_numbers({&bigger})) return 0;
-    const double scaled_statistic = check_paired(bigger, PairedMethod::uncorrected, true);
+    if (!everyday_numbers({&bigger})) return 0;
+    const double scaled_statistic = check_paired(bigger, PairedMethod::uncorrected);
     if (std::isfinite(statistic) && std::isfinite(scaled_statistic) && !close(scaled_statistic, k * statistic, 1e-9))
-        wrong("the uncorrected paired statistic of the table times " + std::to_string(k) + " is not the statistic times that");
+        finding("the uncorrected paired statistic of the table times " + std::to_string(k) + " is not the statistic times that");
     return 0;
 }

@@ -23,24 +23,24 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     attempt("chi_squared_power", [&] {
         power = chi_squared_power(w, n, df, alpha);
         check_probability(power, "power");
-        if (power < alpha * (1 - 1e-9)) wrong("the power is below alpha");
+        if (power < alpha * (1 - 1e-9)) finding("the power is below alpha");
     });
     if (std::isfinite(power))
         attempt("chi_squared_power (twice n)", [&] {
             const double more = chi_squared_power(w, 2 * n, df, alpha);
             check_probability(more, "power");
-            if (more < power - 1e-9) wrong("the power falls when n doubles");
+            if (more < power - 1e-9) finding("the power falls when n doubles");
         });
     attempt("chi_squared_sample_size", [&] {
         const double needed = chi_squared_sample_size(w, wanted, df, alpha);
         check_nonnegative(needed, "sample size");
-        if (needed != std::floor(needed) || needed < 1) wrong("the sample size is not a whole number of 1 or more");
+        if (needed != std::floor(needed) || needed < 1) finding("the sample size is not a whole number of 1 or more");
         attempt("power at the sample size", [&] {
-            if (chi_squared_power(w, needed, df, alpha) < wanted) wrong("the sample size does not reach the power");
+            if (chi_squared_power(w, needed, df, alpha) < wanted) finding("the sample size does not reach the power");
         });
         if (needed > 1)
             attempt("power one below the sample size", [&] {
-                if (chi_squared_power(w, needed - 1, df, alpha) >= wanted) wrong("one less than the sample size reaches the power");
+                if (chi_squared_power(w, needed - 1, df, alpha) >= wanted) finding("one less than the sample size reaches the power");
             });
     });
     attempt("chi_squared_critical_value", [&] {
@@ -48,7 +48,7 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
         check_nonnegative(critical, "critical value");
         const double p = chi_squared_p_value(critical, df);
         check_probability(p, "p-value of the critical value");
-        if (!close(p, alpha, 1e-6) && alpha > 1e-300) wrong("the p-value of the critical value is not alpha");
+        if (!close(p, alpha, 1e-6) && alpha > 1e-300) finding("the p-value of the critical value is not alpha");
     });
     attempt("chi_squared_p_value", [&] { check_probability(chi_squared_p_value(n, df), "chi-squared p-value"); });
     return 0;

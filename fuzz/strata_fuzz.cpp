@@ -1,13 +1,14 @@
-// Fuzz target: strata read from cells (read_strata), the Mantel–Haenszel test and the test of equal
-// odds ratios (Breslow–Day with Tarone's correction).
+// Fuzz target: strata read from cells (read_strata), the Mantel–Haenszel test, the test of equal
+// odds ratios (Breslow–Day with Tarone's correction) and the common risk ratio.
 // Input: section 1 is the range; section 2 may give the confidence and the correction word.
 // Checks: only assoc::Error leaves the core; p-values in [0, 1]; statistics ≥ 0; the common odds
-// ratio positive and inside its interval; everyday counts multiplied by a power of 4 k leave the
-// common odds ratio as it is and multiply the Breslow–Day statistic by k, and the uncorrected
+// and risk ratios positive and inside their intervals; everyday counts multiplied by a power of 4 k
+// leave the common odds and risk ratios as they are and multiply the Breslow–Day statistic by k, and the uncorrected
 // Mantel–Haenszel statistic by k or more, as the formulas say.
 #include <cmath>
 
 #include "assoc/breslow_day.hpp"
+#include "assoc/common_risk_ratio.hpp"
 #include "assoc/mantel_haenszel.hpp"
 #include "assoc/strata.hpp"
 #include "fuzz_support.hpp"
@@ -18,7 +19,7 @@ using namespace assoc::fuzz;
 namespace {
 
 struct Figures {
-    double odds_ratio = NAN, mh_uncorrected = NAN, breslow_day = NAN;
+    double odds_ratio = NAN, risk_ratio = NAN, mh_uncorrected = NAN, breslow_day = NAN;
 };
 
 Figures check_strata(const CellGrid& range, Continuity continuity, double confidence) {
@@ -36,7 +37,7 @@ Figures check_strata(const CellGrid& range, Continuity continuity, double confid
             check_nonnegative(result.lower, "common odds ratio, lower limit");
             check_nonnegative(result.upper, "common odds ratio, upper limit");
             if (result.lower > result.common_odds_ratio * (1 + 1e-9) || result.upper < result.common_odds_ratio * (1 - 1e-9))
-                wrong("the interval does not hold the common odds ratio");
+                finding("the interval does not hold the common odds ratio");
             for (const std::string& remark : result.remarks) check_message(remark, "Mantel–Haenszel remark");
             figures.odds_ratio = result.common_odds_ratio;
             if (c == Continuity::uncorrected) figures.mh_uncorrected = result.statistic;
@@ -48,10 +49,21 @@ Figures check_strata(const CellGrid& range, Continuity continuity, double confid
         check_nonnegative(result.statistic, "Breslow–Day statistic");
         check_nonnegative(result.uncorrected_statistic, "Breslow–Day statistic without Tarone's correction");
         if (result.statistic > result.uncorrected_statistic * (1 + 1e-9) + 1e-12)
-            wrong("Tarone's correction made the Breslow–Day statistic larger");
-        if (!(result.df >= 1)) wrong("Breslow–Day df below 1");
+            finding("Tarone's correction made the Breslow–Day statistic larger");
+        if (!(result.df >= 1)) finding("Breslow–Day df below 1");
         for (const std::string& remark : result.remarks) check_message(remark, "Breslow–Day remark");
         figures.breslow_day = result.uncorrected_statistic;
+    });
+    attempt("common_risk_ratio", [&] {
+        const CommonRiskRatio result = common_risk_ratio(range, confidence);
+        check_nonnegative(result.ratio.estimate, "common risk ratio");
+        check_nonnegative(result.ratio.lower, "common risk ratio, lower limit");
+        check_nonnegative(result.ratio.upper, "common risk ratio, upper limit");
+        if (result.ratio.lower > result.ratio.estimate * (1 + 1e-9) || result.ratio.upper < result.ratio.estimate * (1 - 1e-9))
+            finding("the interval does not hold the common risk ratio");
+        for (const std::string& remark : result.remarks) check_message(remark, "common risk ratio remark");
+        if (!result.ratio.remark.empty()) check_message(result.ratio.remark, "common risk ratio remark");
+        if (!result.ratio.zero_cell_corrected) figures.risk_ratio = result.ratio.estimate;
     });
     return figures;
 }
@@ -65,28 +77,24 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const double confidence = number_at(arguments, 0, 0.95);
     Continuity continuity = Continuity::corrected;
     attempt("parse_continuity", [&] { continuity = parse_continuity(word_at(arguments, 1)); });
-    const bool numbers = check_numbers({&range});
-    const CheckValues values(numbers);
-    // Values are checked only for everyday counts (see check_numbers); the calls always run.
-    if (!numbers) {
-        attempt("mantel_haenszel_test", [&] { mantel_haenszel_test(range, continuity, confidence); });
-        attempt("breslow_day_test", [&] { breslow_day_test(range); });
-        return 0;
-    }
+    if (!everyday_numbers({&range})) return 0;
     const Figures figures = check_strata(range, continuity, confidence);
     const double k = scale_factor(data, size);
     const CellGrid bigger = scaled(range, k);
-    if (!check_numbers({&bigger})) return 0;
+    if (!everyday_numbers({&bigger})) return 0;
     const Figures scaled_figures = check_strata(bigger, continuity, confidence);
     const std::string times = " of the strata times " + std::to_string(k);
     if (std::isfinite(figures.odds_ratio) && std::isfinite(scaled_figures.odds_ratio) &&
         !close(figures.odds_ratio, scaled_figures.odds_ratio, 1e-9))
-        wrong("the common odds ratio" + times + " differs");
+        finding("the common odds ratio" + times + " differs");
+    if (std::isfinite(figures.risk_ratio) && std::isfinite(scaled_figures.risk_ratio) &&
+        !close(figures.risk_ratio, scaled_figures.risk_ratio, 1e-9))
+        finding("the common risk ratio" + times + " differs");
     if (std::isfinite(figures.breslow_day) && std::isfinite(scaled_figures.breslow_day) &&
         !close(scaled_figures.breslow_day, k * figures.breslow_day, 1e-6))
-        wrong("the Breslow–Day statistic" + times + " is not the statistic times that");
+        finding("the Breslow–Day statistic" + times + " is not the statistic times that");
     if (std::isfinite(figures.mh_uncorrected) && std::isfinite(scaled_figures.mh_uncorrected) && k >= 1 &&
         scaled_figures.mh_uncorrected < k * figures.mh_uncorrected * (1 - 1e-9) - 1e-9)
-        wrong("the uncorrected Mantel–Haenszel statistic" + times + " is less than the statistic times that");
+        finding("the uncorrected Mantel–Haenszel statistic" + times + " is less than the statistic times that");
     return 0;
 }

@@ -25,12 +25,15 @@ while [ $# -gt 0 ]; do
     *) targets+=("$1"); shift ;;
   esac
 done
-if [ ${#targets[@]} -eq 0 ]; then
-  targets=($(sed -n 's/^set(ASSOC_FUZZ_TARGETS \(.*\))$/\1/p' fuzz/CMakeLists.txt))
-fi
 
 scripts/install-deps.sh
 build_clang >/dev/null
+if [ ${#targets[@]} -eq 0 ]; then
+  for program in build-clang/fuzz/*_fuzz; do
+    name=$(basename "$program")
+    targets+=("${name%_fuzz}")
+  done
+fi
 
 summary=()
 for target in "${targets[@]}"; do
