@@ -46,7 +46,7 @@ Ratios check_ratios(const CellGrid& range, double confidence) {
         check_ratio(ratio, "risk ratio");
         ratios.risk = ratio;
     });
-    attempt("cramers_v_interval", [&] {
+    if (!v_interval_out_of_reach(table)) attempt("cramers_v_interval", [&] {
         const CramersVInterval interval = cramers_v_interval(table, confidence);
         check_between(interval.lower, 0, 1 + 1e-9, "V lower");
         check_between(interval.upper, 0, 1 + 1e-9, "V upper");

@@ -68,6 +68,17 @@ Figures check_strata(const CellGrid& range, Continuity continuity, double confid
     return figures;
 }
 
+// Known: a stratum whose total is 1 or less (fractional counts) gets a variance n²(n − 1) of 0 or
+// below, so the Mantel–Haenszel statistic is 0 (p = 1) or wrong (issue 9; found here).
+bool small_stratum(const CellGrid& range) {
+    bool small = false;
+    try {
+        for (const Stratum& s : read_strata(range).tables) small = small || (s.informative() && s.total() <= 1);
+    } catch (const Error&) {
+    }
+    return small && known("the Mantel–Haenszel variance for a stratum total of 1 or less");
+}
+
 }  // namespace
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
@@ -77,11 +88,12 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const double confidence = number_at(arguments, 0, 0.95);
     Continuity continuity = Continuity::corrected;
     attempt("parse_continuity", [&] { continuity = parse_continuity(word_at(arguments, 1)); });
-    if (!everyday_numbers({&range})) return 0;
+    if (!everyday_numbers({&range}) || small_stratum(range)) return 0;
     const Figures figures = check_strata(range, continuity, confidence);
     const double k = scale_factor(data, size);
     const CellGrid bigger = scaled(range, k);
     if (!everyday_numbers({&bigger})) return 0;
+    if (small_stratum(bigger)) return 0;
     const Figures scaled_figures = check_strata(bigger, continuity, confidence);
     const std::string times = " of the strata times " + std::to_string(k);
     if (std::isfinite(figures.odds_ratio) && std::isfinite(scaled_figures.odds_ratio) &&
