@@ -61,8 +61,9 @@ RepeatedResult cochrans_q_test(const Matrix& answers) {
         double person = 0.0;
         for (std::size_t j = 0; j < k; ++j) {
             const double answer = answers(i, j);
-            require(answer == 0 || answer == 1, cell_name(i, j) + " holds " + Cell::number(answer).describe() +
-                                                    "; answers must be 1 (yes) or 0 (no)");
+            if (answer != 0 && answer != 1)  // the message is built only on failure: 10,000 people × 10 occasions
+                throw Error(cell_name(i, j) + " holds " + Cell::number(answer).describe() +
+                            "; answers must be 1 (yes) or 0 (no)");
             person += answer;
             occasion_yes[j] += answer;
         }
@@ -98,8 +99,9 @@ RepeatedResult cochrans_q_test(const CellGrid& range, const Cell& yes) {
         for (std::size_t c = 0; c < k; ++c) {
             const Cell& cell = range.at(r, c);
             if (cell.is_number()) {
-                require(cell.as_number() == 0 || cell.as_number() == 1,
-                        cell_name(r, c) + " holds " + cell.describe() + "; answers must be 1 (yes) or 0 (no), or two text labels");
+                if (cell.as_number() != 0 && cell.as_number() != 1)
+                    throw Error(cell_name(r, c) + " holds " + cell.describe() +
+                                "; answers must be 1 (yes) or 0 (no), or two text labels");
                 if (!numbers) number_row = r, number_column = c;
                 numbers = true;
             } else if (cell.is_text() && std::find(labels.begin(), labels.end(), cell.as_text()) == labels.end()) {

@@ -84,9 +84,10 @@ LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
         }
         const Cell& stratum = range.at(r, 0);
         const Cell& row = range.at(r, 1);
-        require(!stratum.is_blank(), range_row(r) + " has no stratum label in column 1; give every row its stratum's "
-                                                    "label (a blank is not read as the label above it)");
-        require(!row.is_blank(), range_row(r) + " has no row label in column 2; every row of counts needs one");
+        if (stratum.is_blank())
+            throw Error(range_row(r) + " has no stratum label in column 1; give every row its stratum's label (a blank "
+                                       "is not read as the label above it)");
+        if (row.is_blank()) throw Error(range_row(r) + " has no row label in column 2; every row of counts needs one");
 
         const auto [found, is_new] = stratum_index.emplace(LabelKey(stratum), result.strata.size());
         if (is_new) {
@@ -121,11 +122,14 @@ LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
             const Cell& cell = range.at(r, c + 2);
             double value = 0.0;
             if (!cell.is_blank()) {
-                const std::string where = range_row(r) + ", column " + std::to_string(c + 3) + " holds " + cell.describe();
-                require(cell.is_number(), where + "; counts must be numbers");
+                // The message is built only on failure: a range can hold a million counts.
+                const auto fail = [&](const char* reason) {
+                    throw Error(range_row(r) + ", column " + std::to_string(c + 3) + " holds " + cell.describe() + reason);
+                };
+                if (!cell.is_number()) fail("; counts must be numbers");
                 value = cell.as_number();
-                require(std::isfinite(value), where + "; counts must be ordinary numbers");
-                require(value >= 0, where + "; counts cannot be negative");
+                if (!std::isfinite(value)) fail("; counts must be ordinary numbers");
+                if (value < 0) fail("; counts cannot be negative");
             }
             counts[k].push_back(value);
         }
