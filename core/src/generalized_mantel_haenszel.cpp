@@ -162,6 +162,8 @@ GeneralAssociationResult general_association_test(const LongStrata& data, const 
             }
     }
 
+    for (double value : variance)
+        require(std::isfinite(value), "the counts are too large to compute with; divide them all by a common factor");
     double statistic = 0.0;
     require(quadratic_form(variance, size, difference, statistic),
             "the strata together cannot compare every row with every column (each stratum compares only the rows and "

@@ -13,16 +13,21 @@ struct Pairs {
     double discordant = 0.0;
 };
 
+// Every count is multiplied by 2^-scale, a power of two (exact), so that n² cannot overflow for
+// huge weights; both measures are ratios of pair counts, which the scale leaves unchanged.
+int pair_scale(const CountTable& table) { return table.total() > 0x1p400 ? std::ilogb(table.total()) : 0; }
+
 // C and D in one pass over the cells, from the sums of the cells below and to the right (left):
 // below[j] holds Σ_{k>i, l≥j} n_kl for the rows after the current one. For whole counts with
 // n below about 9·10⁷ every product and sum is an exact integer in a double.
 Pairs pairs(const CountTable& table) {
     const std::size_t rows = table.rows(), columns = table.columns();
+    const int scale = pair_scale(table);
     std::vector<double> below(columns + 1, 0.0);  // below[columns] = 0
     Pairs result;
     for (std::size_t i = rows; i-- > 0;) {
         for (std::size_t j = 0; j < columns; ++j) {
-            const double count = table.count(i, j);
+            const double count = std::ldexp(table.count(i, j), -scale);
             if (count == 0) continue;
             result.concordant += count * below[j + 1];
             result.discordant += count * (below[0] - below[j]);
@@ -30,7 +35,7 @@ Pairs pairs(const CountTable& table) {
         // Add row i to the suffix sums for the rows above it.
         double suffix = 0.0;
         for (std::size_t j = columns; j-- > 0;) {
-            suffix += table.count(i, j);
+            suffix += std::ldexp(table.count(i, j), -scale);
             below[j] += suffix;
         }
     }
@@ -56,10 +61,11 @@ double goodman_kruskal_gamma(const CountTable& table) {
 double kendall_tau_b(const CountTable& table) {
     require_ordered_table(table, "tau-b");
     const Pairs p = pairs(table);
-    const double n = table.total();
+    const int scale = pair_scale(table);
+    const double n = std::ldexp(table.total(), -scale);
     double row_squares = 0.0, column_squares = 0.0;
-    for (double total : table.row_totals()) row_squares += total * total;
-    for (double total : table.column_totals()) column_squares += total * total;
+    for (double total : table.row_totals()) row_squares += std::ldexp(total, -scale) * std::ldexp(total, -scale);
+    for (double total : table.column_totals()) column_squares += std::ldexp(total, -scale) * std::ldexp(total, -scale);
     const double untied_rows = n * n - row_squares, untied_columns = n * n - column_squares;
     require(untied_rows > 0 && untied_columns > 0, "tau-b is undefined: every pair of counts is tied on the rows or the columns");
     const double tau = 2 * (p.concordant - p.discordant) / (std::sqrt(untied_rows) * std::sqrt(untied_columns));

@@ -57,10 +57,13 @@ std::vector<double> checked_scores(const std::vector<double>& given, const Side&
 // largest distance from it: M² and |r| do not change, and no product can overflow.
 std::vector<double> standardized(const std::vector<double>& body_scores, const std::vector<std::size_t>& kept,
                                  const std::vector<double>& totals, double n) {
+    // First brought into [−1, 1] (scores near the largest double would overflow the mean).
+    double size = 0.0;
+    for (std::size_t i : kept) size = std::max(size, std::fabs(body_scores[i]));
     std::vector<double> scores;
     double mean = 0.0;
     for (std::size_t i = 0; i < kept.size(); ++i) {
-        scores.push_back(body_scores[kept[i]]);
+        scores.push_back(body_scores[kept[i]] / size);
         mean += totals[i] / n * scores.back();
     }
     double largest = 0.0;

@@ -73,3 +73,8 @@ TEST(LongStrata, RefusesARangeWithTooFewColumns) {
                  "the range needs a column of stratum labels, a column of row labels and at least 2 columns of counts "
                  "(one per column category); this range has 3 columns");
 }
+
+TEST(LongStrata, RefusesMoreCountCellsThanItReads) {
+    expect_error([] { read_long_strata(grid({{"A", "x", 1, 2}, {"B", "y", 3, 4}, {"C", "z", 5, 6}}), 12); },
+                 "the strata make 18 count cells (strata × row labels × columns); at most 12 can be read");
+}

@@ -68,3 +68,15 @@ TEST(KendallTauB, IsSmallerThanGammaWhenThereAreTies) {
     const CountTable job = table_of(ref::job_counts);
     EXPECT_LT(std::fabs(kendall_tau_b(job)), std::fabs(goodman_kruskal_gamma(job)));
 }
+
+// Exact identity: both measures are ratios of pair counts, so multiplying every count by the same
+// factor changes neither, also for weights so large that n² would overflow.
+TEST(OrdinalMeasures, AreUnchangedWhenEveryCountIsMultipliedByAHugeFactor) {
+    const CountTable job = table_of(ref::job_counts);
+    Matrix huge(4, 4);
+    for (std::size_t r = 0; r < 4; ++r)
+        for (std::size_t c = 0; c < 4; ++c) huge(r, c) = ref::job_counts[r][c] * 1e300;
+    const CountTable scaled = CountTable::from_counts(huge);
+    EXPECT_NEAR_REL(goodman_kruskal_gamma(scaled), goodman_kruskal_gamma(job), 1e-14);
+    EXPECT_NEAR_REL(kendall_tau_b(scaled), kendall_tau_b(job), 1e-14);
+}

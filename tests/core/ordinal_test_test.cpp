@@ -90,6 +90,12 @@ TEST(OrdinalTest, IsUnchangedByShiftingAndStretchingTheScores) {
     EXPECT_NEAR_REL(moved.correlation, plain.correlation, 1e-12);
 }
 
+TEST(OrdinalTest, IsUnchangedByScoresNearTheLargestNumber) {
+    const OrdinalResult plain = ordinal_test(tenure());
+    const OrdinalResult huge = ordinal_test(tenure(), {1e307, 2e307, 3e307, 4e307, 5e307});
+    EXPECT_NEAR_REL(huge.statistic, plain.statistic, 1e-12);
+}
+
 TEST(OrdinalTest, TurnsTheSignOfRButNotMSquaredWhenTheScoresFall) {
     const OrdinalResult rising = ordinal_test(tenure());
     const OrdinalResult falling = ordinal_test(tenure(), {5, 4, 3, 2, 1});

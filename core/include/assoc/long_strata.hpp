@@ -43,7 +43,7 @@ struct LongStrata {
 //   silently joined or split);
 // - a row label appears at most once within a stratum.
 // At most `max_cells` counts are read (strata × row labels × columns).
-LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells = 10'000'000);
+LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells = 2'000'000);
 
 // "stratum "Northgate"", for messages.
 std::string long_stratum_name(const LongStratum& stratum);
