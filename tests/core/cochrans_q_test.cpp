@@ -8,6 +8,7 @@
 
 #include "assoc/cochrans_q.hpp"
 #include "assoc/paired_tests.hpp"
+#include "array_tables.hpp"
 #include "ordered_values.hpp"
 #include "test_support.hpp"
 #include "workflow_r_values.hpp"
@@ -16,17 +17,10 @@ using namespace assoc;
 using assoc::test::expect_error;
 using assoc::test::grid;
 namespace ref = assoc::reference::ordered_values;
+using assoc::test::matrix_of;
 namespace r = assoc::reference::r_values;
 
 namespace {
-
-template <std::size_t P, std::size_t K>
-Matrix answers_of(const double (&answers)[P][K]) {
-    Matrix matrix(P, K);
-    for (std::size_t i = 0; i < P; ++i)
-        for (std::size_t j = 0; j < K; ++j) matrix(i, j) = answers[i][j];
-    return matrix;
-}
 
 // One row per person of a 2×2 paired table: a people answering yes twice, b yes then no, and so on.
 Matrix people_of(double a, double b, double c, double d) {
@@ -53,7 +47,7 @@ CellGrid waves_as_text() {
 }  // namespace
 
 TEST(CochransQ, MatchesStatsmodelsOnThreeSurveyWaves) {
-    const RepeatedResult result = cochrans_q_test(answers_of(ref::wave_answers));
+    const RepeatedResult result = cochrans_q_test(matrix_of(ref::wave_answers));
     EXPECT_NEAR_REL(result.statistic, ref::wave_repeated_statistic, 1e-12);
     EXPECT_NEAR_REL(result.p_value, ref::wave_repeated_p, 1e-10);
     EXPECT_EQ(result.df, ref::wave_repeated_df);
@@ -61,7 +55,7 @@ TEST(CochransQ, MatchesStatsmodelsOnThreeSurveyWaves) {
 }
 
 TEST(CochransQ, MatchesStatsmodelsOnFourTasks) {
-    const RepeatedResult result = cochrans_q_test(answers_of(ref::task_answers));
+    const RepeatedResult result = cochrans_q_test(matrix_of(ref::task_answers));
     EXPECT_NEAR_REL(result.statistic, ref::task_repeated_statistic, 1e-12);
     EXPECT_NEAR_REL(result.p_value, ref::task_repeated_p, 1e-10);
     EXPECT_EQ(result.df, 3.0);

@@ -6,24 +6,14 @@
 #include <gtest/gtest.h>
 
 #include "assoc/ordinal_measures.hpp"
+#include "array_tables.hpp"
 #include "ordered_values.hpp"
 #include "test_support.hpp"
 
 using namespace assoc;
 using assoc::test::table;
 namespace ref = assoc::reference::ordered_values;
-
-namespace {
-
-template <std::size_t R, std::size_t C>
-CountTable table_of(const double (&counts)[R][C]) {
-    Matrix matrix(R, C);
-    for (std::size_t r = 0; r < R; ++r)
-        for (std::size_t c = 0; c < C; ++c) matrix(r, c) = counts[r][c];
-    return CountTable::from_counts(matrix);
-}
-
-}  // namespace
+using assoc::test::table_of;
 
 TEST(GoodmanKruskalGamma, ReproducesAgrestisJobSatisfactionExample) {
     const double gamma = goodman_kruskal_gamma(table_of(ref::job_counts));

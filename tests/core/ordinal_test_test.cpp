@@ -7,6 +7,7 @@
 
 #include "assoc/ordinal_test.hpp"
 #include "assoc/trend_test.hpp"
+#include "array_tables.hpp"
 #include "ordered_values.hpp"
 #include "published_tables.hpp"
 #include "test_support.hpp"
@@ -15,16 +16,9 @@ using namespace assoc;
 using assoc::test::expect_error;
 using assoc::test::grid;
 namespace ref = assoc::reference::ordered_values;
+using assoc::test::table_of;
 
 namespace {
-
-template <std::size_t R, std::size_t C>
-CountTable table_of(const double (&counts)[R][C]) {
-    Matrix matrix(R, C);
-    for (std::size_t r = 0; r < R; ++r)
-        for (std::size_t c = 0; c < C; ++c) matrix(r, c) = counts[r][c];
-    return CountTable::from_counts(matrix);
-}
 
 template <std::size_t N>
 std::vector<double> vector_of(const double (&values)[N]) {
