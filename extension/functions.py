@@ -274,8 +274,8 @@ FUNCTIONS = [
         ["Cramér's V and the measures after it ignore any order of the categories. For ordered rows and columns "
          "(tenure bands by a satisfaction scale), \"gamma\" and \"taub\" say in which direction and how strongly the "
          "order of the rows goes with that of the columns: positive when later rows go with later columns. Gamma "
-         "leaves out pairs tied on either variable, so it reaches ±1 as soon as one kind of pair is missing and is "
-         "larger than tau-b; tau-b counts the ties against the association and reaches ±1 only for a square table "
+         "leaves out pairs tied on either variable, so it reaches ±1 as soon as one kind of pair is missing and lies "
+         "further from 0 than tau-b; tau-b counts the ties against the association and reaches ±1 only for a square table "
          "with every count on a diagonal. ASSOC.ORDINAL tests such an association."],
         '=ASSOC.STRENGTH(A1:D3; "cramer-corrected")'),
     Function(
