@@ -271,7 +271,7 @@ FUNCTIONS = [
         "number", "the measure; \"cramer\" to \"w\" are computed from the uncorrected Pearson X², \"gamma\" and "
                   "\"taub\" from the pairs of counts that the order of the rows and the columns ranks alike or "
                   "oppositely",
-        ["Cramér's V and the measures after it ignore any order of the categories. For ordered rows and columns "
+        ["Cramér's V (corrected or not), phi, C and w ignore any order of the categories. For ordered rows and columns "
          "(tenure bands by a satisfaction scale), \"gamma\" and \"taub\" say in which direction and how strongly the "
          "order of the rows goes with that of the columns: positive when later rows go with later columns. Gamma "
          "leaves out pairs tied on either variable, so it reaches ±1 as soon as one kind of pair is missing and lies "
