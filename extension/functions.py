@@ -513,9 +513,100 @@ FUNCTIONS = [
 
 
 # ---------------------------------------------------------------------------------------------
-# Ordered tables, association within r×c strata, repeated yes/no answers (issue 13).
+# The figures a memo needs: rates with intervals, a difference of rates, which groups differ from
+# which, and one risk ratio across strata. Placed before ASSOC.CHECK in the wizard and the docs.
 
-FUNCTIONS += [
+PAIR_ADJUSTMENTS = Options("pair_adjustment", "adjustment", "assoc::PAdjustment", [
+    Word("holm", "Holm's step-down adjustment: the chance of any false finding among the pairs stays at the "
+                 "level, with more power than Bonferroni", "assoc::PAdjustment::holm"),
+    Word("bonferroni", "each p-value times the number of pairs, at most 1", "assoc::PAdjustment::bonferroni"),
+    Word("none", "no adjustment: each pair on its own, so with many pairs some look significant by chance",
+         "assoc::PAdjustment::none"),
+], include="assoc/p_value_adjustment.hpp")
+
+PAIRWISE_METHODS = Options("pairwise_method", "method", "assoc::PairwiseMethod", [
+    Word("pearson", "Pearson's X² without correction on each pair's table", "assoc::PairwiseMethod::pearson"),
+    Word("exact", "the exact test on each pair's table (whole counts only; all pairs together get about 5 seconds "
+                  "and 400 MB of working memory)", "assoc::PairwiseMethod::exact"),
+], include="assoc/pairwise_comparisons.hpp")
+
+RATE_TABLE = Argument(
+    "table", "range",
+    "A range of counts, headers allowed: one row per group, column 1 the outcome of interest (for example "
+    "promoted), the other columns the rest. Blank cells count as 0.")
+
+MEMO_FUNCTIONS = [
+    Function(
+        "ASSOC.RATES", "rates",
+        "The rate of the outcome in each row of a table (column 1 over the row total), with its Wilson score "
+        "confidence interval.",
+        [RATE_TABLE, CONFIDENCE],
+        "cells", "one row per row of the table body: the row total n, the rate, the lower and the upper end of its "
+                 "interval; a row of zeros stays empty; enter it over 4 columns and one row per group",
+        ["The Wilson interval suits small groups and rates near 0 or 1 and always lies between 0 and 1: a rate of 0 "
+         "has the lower end 0, a rate of 1 the upper end 1, and no correction is needed. A table of one row is "
+         "allowed. ASSOC.CHECK with \"rates\" names the rows that have no counts.",
+         "Intervals that overlap do not show that two groups do not differ: ASSOC.RATEDIFF and ASSOC.PAIRWISE "
+         "compare groups."],
+        "=ASSOC.RATES(A1:C6)"),
+    Function(
+        "ASSOC.RATEDIFF", "ratediff",
+        "The difference between the rates of the two rows of a 2×2 table (row 1 minus row 2, column 1 the "
+        "outcome), with Newcombe's hybrid score confidence interval.",
+        [Argument("table", "range", "A 2×2 range of counts, headers allowed: rows are the two groups, column 1 the "
+                                    "outcome of interest (for example promoted), column 2 the rest."),
+         CONFIDENCE],
+        "row", "one row: the difference, the lower and the upper end of its interval, as shares (0.109 is 10.9 "
+               "percentage points); a plain entry shows the difference",
+        ["Newcombe's method (1998, method 10) combines the Wilson intervals of the two rates; it stays between −1 "
+         "and 1 and needs no correction when a rate is 0 or 1. A column of zeros is allowed (both rates 0, or "
+         "both 1); a row of zeros is not, since that group has no rate."],
+        "=ASSOC.RATEDIFF(A1:C3)"),
+    Function(
+        "ASSOC.PAIRWISE", "pairwise",
+        "Which groups differ from which: every pair of rows of a table tested on its columns, with the p-values "
+        "adjusted for the number of pairs.",
+        [TABLE,
+         Argument("adjust", "option", "Optional. How the p-values allow for testing many pairs.",
+                  options=PAIR_ADJUSTMENTS),
+         Argument("method", "option", "Optional. The test of each pair.", options=PAIRWISE_METHODS)],
+        "cells", "one row per pair of rows with counts, in the order (1,2), (1,3), …, (2,3), …: the first row's "
+                 "label, the second row's label, the p-value of the pair and the adjusted p-value; enter it over 4 "
+                 "columns and r(r − 1)/2 rows for r groups (10 rows for 5 groups)",
+        ["Read the adjusted p-value: with many pairs some unadjusted p-values are small by chance alone. A "
+         "significant difference between two groups is not proof of discrimination, nor of what causes it.",
+         "Each pair is tested on its own table of 2 rows (columns empty in both rows left out); a pair whose counts "
+         "all fall in one column gets p = 1. Rows without a label are named \"row k\"; rows of zeros take no part. "
+         "At most 100 rows. ASSOC.CHECK with \"pairwise\" names pairs whose chi-squared p-value is doubtful.",
+         "Entered in a single cell it shows the first row's label, as an array's top-left value. The smallest "
+         "adjusted p-value: `=MIN(INDEX(ASSOC.PAIRWISE(A1:C6);0;4))`."],
+        "=ASSOC.PAIRWISE(A1:C6)"),
+    Function(
+        "ASSOC.STRATARISK", "stratarisk",
+        "The Mantel–Haenszel common risk ratio across strata (for example Design's promotion rate over "
+        "Assembly's, office by office), with the Greenland–Robins confidence interval.",
+        [STRATA_RANGE, CONFIDENCE],
+        "row", "one row: the common risk ratio, the lower and the upper end of its interval; a plain entry shows "
+               "the ratio",
+        ["In each stratum row 1 is the group whose rate is on top, column 1 the outcome. A stratum with an empty "
+         "row, or with nobody in column 1, adds nothing and is left out (ASSOC.CHECK with \"stratarisk\" names "
+         "it); a zero cell elsewhere needs no correction. For one stratum without a zero cell the ratio and its "
+         "interval are those of ASSOC.RISKRATIO.",
+         "Beside ASSOC.IMPACT: a ratio below 0.8 (or above 1.25, which puts row 2's group below four-fifths of row "
+         "1's) is the four-fifths screen applied within strata. It is a screen, not a test; follow applicable law "
+         "and policy and seek qualified advice."],
+        "=ASSOC.STRATARISK(A1:E5)"),
+]
+
+_BEFORE_CHECK = next(i for i, f in enumerate(FUNCTIONS) if f.name == "ASSOC.CHECK")
+FUNCTIONS[_BEFORE_CHECK:_BEFORE_CHECK] = MEMO_FUNCTIONS
+
+
+# ---------------------------------------------------------------------------------------------
+# Ordered tables, association within r×c strata, repeated yes/no answers (issue 13). Placed before
+# ASSOC.CHECK, after the memo figures.
+
+ORDERED_FUNCTIONS = [
     Function(
         "ASSOC.ORDINAL", "ordinal",
         "The linear-by-linear association test for a table whose rows and columns are both ordered (tenure band "
@@ -575,3 +666,6 @@ FUNCTIONS += [
          "exactly: \"Yes\" and \"yes\" are two labels, and a third label is an error."],
         '=ASSOC.REPEATED(B2:D120; "Yes")'),
 ]
+
+_BEFORE_CHECK = next(i for i, f in enumerate(FUNCTIONS) if f.name == "ASSOC.CHECK")
+FUNCTIONS[_BEFORE_CHECK:_BEFORE_CHECK] = ORDERED_FUNCTIONS

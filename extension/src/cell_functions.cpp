@@ -4,6 +4,7 @@
 #include <string>
 
 #include "assoc/breslow_day.hpp"
+#include "assoc/common_risk_ratio.hpp"
 #include "assoc/cell_p_values.hpp"
 #include "assoc/chi_squared_distribution.hpp"
 #include "assoc/cochrans_q.hpp"
@@ -22,7 +23,9 @@
 #include "assoc/ordinal_measures.hpp"
 #include "assoc/ordinal_test.hpp"
 #include "assoc/paired_tests.hpp"
+#include "assoc/pairwise_comparisons.hpp"
 #include "assoc/power.hpp"
+#include "assoc/rates.hpp"
 #include "assoc/report.hpp"
 #include "assoc/risk_ratio.hpp"
 #include "assoc/selection_impact.hpp"
@@ -199,6 +202,50 @@ CellGrid report(const CellGrid& range, double alpha) {
         cells.at(i, 1) = lines[i].value;
     }
     return cells;
+}
+
+// --- The figures a memo needs: rates, a difference of rates, pairs of groups, a common risk ratio ---
+
+CellGrid rates(const CellGrid& range, double confidence) {
+    const RowRates result = row_rates(range, confidence);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    // A row without counts stays blank: a 0 would read as a rate of 0.
+    CellGrid cells(result.rows.size(), 4);
+    for (std::size_t r = 0; r < result.rows.size(); ++r) {
+        const RowRate& row = result.rows[r];
+        if (!row.has_counts) continue;
+        cells.at(r, 0) = Cell::number(row.total);
+        cells.at(r, 1) = Cell::number(row.rate.rate);
+        cells.at(r, 2) = Cell::number(row.rate.lower);
+        cells.at(r, 3) = Cell::number(row.rate.upper);
+    }
+    return cells;
+}
+
+std::vector<double> ratediff(const CellGrid& range, double confidence) {
+    const RateDifference result = rate_difference(range, confidence);
+    return {result.difference, result.lower, result.upper};
+}
+
+CellGrid pairwise(const CellGrid& range, PAdjustment adjust, PairwiseMethod method) {
+    const PairwiseComparisons result =
+        pairwise_comparisons(read_count_table(range), adjust, method, worksheet_exact_limits);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    CellGrid cells(result.pairs.size(), 4);
+    for (std::size_t k = 0; k < result.pairs.size(); ++k) {
+        const PairComparison& pair = result.pairs[k];
+        cells.at(k, 0) = Cell::text(pair.first_name);
+        cells.at(k, 1) = Cell::text(pair.second_name);
+        cells.at(k, 2) = Cell::number(pair.p_value);
+        cells.at(k, 3) = Cell::number(pair.adjusted_p_value);
+    }
+    return cells;
+}
+
+std::vector<double> stratarisk(const CellGrid& range, double confidence) {
+    const CommonRiskRatio result = common_risk_ratio(range, confidence);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    return {result.ratio.estimate, result.ratio.lower, result.ratio.upper};
 }
 
 // --- Ordered tables, association within r×c strata, repeated yes/no answers (issue 13) -------------

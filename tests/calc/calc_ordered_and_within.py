@@ -90,7 +90,7 @@ class Ordinal(CalcTestCase, ErrorCheckMixin):
 
 class OrderedStrength(CalcTestCase, ErrorCheckMixin):
     def test_gamma_reproduces_agrestis_job_satisfaction_example(self):
-        # published_values.md section 12: C = 1331, D = 849, γ = 0.221 (Agresti 2007, from memory).
+        # published_values.md section 14: C = 1331, D = 849, γ = 0.221 (Agresti 2007, from memory).
         job = ORDERED["job"]
         table = self.put(job["counts"])
         gamma = self.number("H1", f'=ASSOC.STRENGTH({table}; "gamma")')

@@ -178,7 +178,38 @@ class Promotions(SampleCase, unittest.TestCase):
                          self.reference["pearson"], "report")
 
 
-class HumanResources(SampleCase, unittest.TestCase):
+class DepartmentChecks:
+    """The Departments sheet of hr_review.fods (mixed into HumanResources): rates with intervals, the
+    pairwise table, Design against Assembly and the common risk ratio within offices, against
+    statsmodels, scipy and R (samples_generate.py, section hr_departments)."""
+    departments = REFERENCE["hr_departments"]
+
+    def test_department_inputs_are_those_of_the_reference(self):
+        table = self.values("DepartmentTable")[1:]
+        self.assertEqual([row[0] for row in table], self.departments["departments"])
+        self.assertEqual([row[1:] for row in table], self.departments["counts"])
+
+    def test_department_rates_have_the_wilson_intervals_of_statsmodels(self):
+        self.assertClose([self.row("DepartmentPValue")[0]], [self.departments["pearson"][2]], "Pearson p")
+        for got, want in zip(self.values("DepartmentRates"), self.departments["rates"]):
+            self.assertClose(got, want, "ASSOC.RATES")
+            self.assertTrue(got[2] <= got[1] <= got[3], "the interval holds the rate")
+
+    def test_pairwise_table_matches_scipy_with_holms_adjustment(self):
+        pairs = self.values("DepartmentPairs")
+        self.assertEqual([row[:2] for row in pairs], self.departments["pairs"])
+        self.assertClose([row[2] for row in pairs], self.departments["pair_p_values"], "pair p-values")
+        self.assertClose([row[3] for row in pairs], self.departments["pair_holm"], "Holm-adjusted")
+
+    def test_design_against_assembly_pooled_and_within_offices_matches_statsmodels(self):
+        self.assertClose(self.row("DesignAssemblyDifference"), self.departments["design_assembly_difference"],
+                         "ASSOC.RATEDIFF")
+        self.assertClose(self.row("DesignAssemblyRiskRatio"), self.departments["design_assembly_risk_ratio"],
+                         "ASSOC.RISKRATIO")
+        self.assertClose(self.row("CommonRiskRatio"), self.departments["common_risk_ratio"], "ASSOC.STRATARISK")
+
+
+class HumanResources(DepartmentChecks, SampleCase, unittest.TestCase):
     workbook = "hr_review.fods"
     reference = REFERENCE["hr"]
 

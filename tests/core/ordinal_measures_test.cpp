@@ -1,6 +1,6 @@
 // Goodman–Kruskal γ and Kendall's τ-b of ordered tables (ASSOC.STRENGTH "gamma" and "taub").
 // Published: Agresti (2007), An Introduction to Categorical Data Analysis, 2nd ed., job satisfaction
-// by income, C = 1331, D = 849, γ = 0.221 (from memory; tests/reference/published_values.md section 12).
+// by income, C = 1331, D = 849, γ = 0.221 (from memory; tests/reference/published_values.md section 14).
 // Recomputed: pairs counted over the expanded data with numpy 1.24.2, τ-b by scipy 1.10.1 kendalltau
 // on the expanded data (tests/reference/ordered_generate.py).
 #include <gtest/gtest.h>

@@ -20,7 +20,7 @@ Tools, one per quantity (never Assoc itself):
 - generalized Cochran–Mantel–Haenszel: R's mantelhaen.test on the r×c×K array;
 - Cochran's Q: statsmodels cochrans_q; p-values from scipy's chi2.sf (statsmodels forms 1 − cdf).
 The tables are invented (a fictional company's staff surveys), except the job-satisfaction table of
-Agresti (2007) (from memory; see tests/reference/published_values.md section 12).
+Agresti (2007) (from memory; see tests/reference/published_values.md section 14).
 """
 
 import json
@@ -52,7 +52,7 @@ TENURE_COLUMN_SCORES = [1, 2, 3, 4, 5]
 
 # Agresti (2007), An Introduction to Categorical Data Analysis, 2nd ed., job satisfaction by income
 # (rows: income bands, columns: very dissatisfied … very satisfied). Data, table number and the
-# printed C = 1331, D = 849, γ = 0.221 from memory (published_values.md section 12).
+# printed C = 1331, D = 849, γ = 0.221 from memory (published_values.md section 14).
 JOB = [[1, 3, 10, 6],
        [2, 3, 10, 7],
        [1, 6, 14, 12],
@@ -222,7 +222,7 @@ def main():
     lines.append("// τ-b: scipy.stats.kendalltau on the expanded data.")
     number("tenure_gamma", tenure["gamma"])
     number("tenure_tau_b", tenure["tau_b"])
-    lines.append("// Agresti (2007) job satisfaction by income (from memory, published_values.md section 12): pairs")
+    lines.append("// Agresti (2007) job satisfaction by income (from memory, published_values.md section 14): pairs")
     lines.append("// counted with numpy, τ-b by scipy kendalltau, M² by statsmodels (scores 1, 2, 3, 4).")
     array("job_counts", JOB)
     number("job_concordant", c_job)

@@ -22,7 +22,7 @@ inline constexpr double tenure_scored_r = -0.25810054141949806;
 // τ-b: scipy.stats.kendalltau on the expanded data.
 inline constexpr double tenure_gamma = -0.26637219128096795;
 inline constexpr double tenure_tau_b = -0.21134422281479973;
-// Agresti (2007) job satisfaction by income (from memory, published_values.md section 12): pairs
+// Agresti (2007) job satisfaction by income (from memory, published_values.md section 14): pairs
 // counted with numpy, τ-b by scipy kendalltau, M² by statsmodels (scores 1, 2, 3, 4).
 inline constexpr double job_counts[4][4] = {{1, 3, 10, 6}, {2, 3, 10, 7}, {1, 6, 14, 12}, {0, 1, 9, 11}};
 inline constexpr double job_concordant = 1331.0;

@@ -15,6 +15,7 @@ workbooks are recomputed here from their inputs, so that a wrong formula in a sa
 difference rather than being copied into the reference.
 """
 
+import itertools
 import json
 import math
 import pathlib
@@ -28,6 +29,7 @@ import scipy.stats as st
 import statsmodels
 from statsmodels.stats.contingency_tables import StratifiedTable, Table, Table2x2, mcnemar
 from statsmodels.stats.multitest import multipletests
+from statsmodels.stats.proportion import confint_proportions_2indep, proportion_confint
 
 ROOT = pathlib.Path(__file__).resolve().parents[2]
 SAMPLES = ROOT / "samples"
@@ -197,6 +199,55 @@ def hr():
     }
 
 
+def hr_departments():
+    """The Departments sheet of hr_review.fods: promotion rates by department with Wilson intervals
+    (statsmodels proportion_confint), every pair of departments (scipy chi2_contingency without
+    correction, Holm's adjustment by statsmodels multipletests, checked against R p.adjust), Design
+    against Assembly as a difference with Newcombe's interval (statsmodels confint_proportions_2indep) and
+    as a risk ratio (statsmodels Table2x2), and the common risk ratio within the offices of the Offices
+    sheet (statsmodels StratifiedTable.riskratio_pooled; the interval from the variance of Greenland &
+    Robins (1985), Biometrics 41:55-68, written out in numpy)."""
+    path = SAMPLES / "hr_review.fods"
+    body = []
+    for row in block(sheet_cells(path, "Departments"), "A6", 3, 12):  # the typed rows below the header
+        if row[1] is None:
+            break
+        body.append(row)
+    counts = [[int(a), int(b)] for _, a, b in body]
+    rates = []
+    for promoted, not_promoted in counts:
+        n = promoted + not_promoted
+        lower, upper = proportion_confint(promoted, n, alpha=0.05, method="wilson")
+        rates.append([float(n), promoted / n, float(lower), float(upper)])
+    pairs, p_values = [], []
+    for (i, first), (j, second) in itertools.combinations(enumerate(counts), 2):
+        pairs.append([body[i][0], body[j][0]])
+        p_values.append(pearson([first, second])[2])
+    holm = [float(p) for p in multipletests(p_values, method="holm")[1]]
+    r_holm = r_numbers(f"p.adjust(c({', '.join(repr(p) for p in p_values)}), method = 'holm')")
+    assert all(math.isclose(a, b, rel_tol=1e-12) for a, b in zip(holm, r_holm)), (holm, r_holm)
+    (x1, y1), (x2, y2) = counts[0], counts[1]
+    lower, upper = confint_proportions_2indep(x1, x1 + y1, x2, x2 + y2, method="newcomb", compare="diff",
+                                              alpha=0.05)
+
+    offices = block(sheet_cells(path, "Offices"), "A6", 5, 4)
+    strata = np.array([[float(v) for v in row[1:]] for row in offices])
+    a, b, c, d = strata.T
+    n1, n0 = a + b, c + d
+    n = n1 + n0
+    r, s = np.sum(a * n0 / n), np.sum(c * n1 / n)
+    log_se = math.sqrt(np.sum((n1 * n0 * (a + c) - a * c * n) / n ** 2) / (r * s))
+    ratio = float(StratifiedTable([np.array([[w, x], [y, z]]) for w, x, y, z in strata]).riskratio_pooled)
+    z = float(st.norm.isf(0.025))
+    return {
+        "departments": [row[0] for row in body], "counts": counts, "pearson": pearson(counts), "rates": rates,
+        "pairs": pairs, "pair_p_values": p_values, "pair_holm": holm,
+        "design_assembly_difference": [x1 / (x1 + y1) - x2 / (x2 + y2), float(lower), float(upper)],
+        "design_assembly_risk_ratio": risk_ratio(counts[:2]),
+        "common_risk_ratio": [ratio, ratio * math.exp(-z * log_se), ratio * math.exp(z * log_se)],
+    }
+
+
 def finance():
     rows = sheet_cells(SAMPLES / "invoice_exceptions.fods", "Invoices")
     records = []
@@ -288,6 +339,7 @@ def main():
         "quick_start": quick_start(), "promotions": promotions(), "hr": hr(), "finance": finance(),
         "staff_survey": staff_survey(),
     }
+    data["hr_departments"] = hr_departments()
     OUT.write_text(json.dumps(data, indent=1, ensure_ascii=False) + "\n")
     print(f"wrote {OUT}")
 
