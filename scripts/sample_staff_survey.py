@@ -74,13 +74,21 @@ def colour_answers(chart, count):
         one.Color = colour
 
 
+def analysis_sheet(book, name, title, note, first_heading, header):
+    """A sheet of the workbook: its title and note, and its first section's heading and header row."""
+    s = book.sheet(name, WIDTHS)
+    s.text("A1", f"Larkspur Components Ltd: {title}", "Assoc title")
+    s.text("A2", f"Invented data of a fictional company. {note}", "Assoc note")
+    heading(s, "A4", first_heading)
+    header_row(s, "A5", header)
+    return s
+
+
 def build_tenure_sheet(book):
-    s = book.sheet("By tenure", WIDTHS)
-    s.text("A1", "Larkspur Components Ltd: satisfaction with work by tenure, staff survey 2025", "Assoc title")
-    s.text("A2", "Invented data of a fictional company. Both the rows and the columns are ordered. Every result "
-                 "is a live ASSOC.* formula; the grey text beside it is the formula.", "Assoc note")
-    heading(s, "A4", "1. Answers by tenure band")
-    header_row(s, "A5", ["Tenure / Satisfaction", *SATISFACTION, "", "Years (band middle)"])
+    s = analysis_sheet(book, "By tenure", "satisfaction with work by tenure, staff survey 2025",
+                       "Both the rows and the columns are ordered. Every result is a live ASSOC.* formula; the grey "
+                       "text beside it is the formula.", "1. Answers by tenure band",
+                       ["Tenure / Satisfaction", *SATISFACTION, "", "Years (band middle)"])
     s.put("A6", [[band] for band in TENURE_BANDS])
     s.put("B6", TENURE_COUNTS, "Assoc count")
     s.put("H6", [[years] for years in BAND_MIDDLES], "Assoc ratio")
@@ -157,12 +165,9 @@ def tenure_notes(s):
 
 
 def build_offices_sheet(book):
-    s = book.sheet("Within offices", WIDTHS)
-    s.text("A1", "Larkspur Components Ltd: satisfaction by tenure, office by office, staff survey 2025", "Assoc title")
-    s.text("A2", "Invented data of a fictional company. The strata in the long layout: office, tenure band, one "
-                 "column of counts per answer.", "Assoc note")
-    heading(s, "A4", "1. Answers by office and tenure band")
-    header_row(s, "A5", ["Office", "Tenure band", *OFFICE_ANSWERS])
+    s = analysis_sheet(book, "Within offices", "satisfaction by tenure, office by office, staff survey 2025",
+                       "The strata in the long layout: office, tenure band, one column of counts per answer.",
+                       "1. Answers by office and tenure band", ["Office", "Tenure band", *OFFICE_ANSWERS])
     rows = []
     for office, table in OFFICE_SURVEY:
         for band, counts in zip(OFFICE_BANDS, table):
@@ -292,14 +297,10 @@ def build_answers_sheet(book):
 
 
 def build_waves_sheet(book):
-    s = book.sheet("Waves", WIDTHS)
-    s.text("A1", "Larkspur Components Ltd: \"Would you recommend Larkspur as a place to work?\", three survey waves "
-                 "of the same staff", "Assoc title")
-    s.text("A2", f"Invented data of a fictional company: the answers of {WAVE_STAFF} staff are on the sheet Wave "
-                 "answers, one row per person. Every result is a live ASSOC.* formula; the grey text beside it is "
-                 "the formula.", "Assoc note")
-    heading(s, "A4", "1. Did the share of yes change between the waves?")
-    header_row(s, "A5", ["Result", "", "", "", "", "", "Formula"])
+    s = analysis_sheet(book, "Waves", "\"Would you recommend Larkspur as a place to work?\", three survey waves "
+                       "of the same staff", f"The answers of {WAVE_STAFF} staff are on the sheet Wave answers, one row "
+                       "per person. Every result is a live ASSOC.* formula; the grey text beside it is the formula.",
+                       "1. Did the share of yes change between the waves?", ["Result", "", "", "", "", "", "Formula"])
     s.text("A6", "Cochran's Q over the three waves: p-value, Q, df", "Assoc label")
     s.array("B6:D6", '=ASSOC.REPEATED(WaveAnswers; "Yes")', "Assoc ratio", show="G6")
     s.text("A7", "What ASSOC.CHECK says about the answers", "Assoc label")
