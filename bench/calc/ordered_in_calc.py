@@ -17,7 +17,6 @@ import argparse
 import pathlib
 import random
 import sys
-import time
 
 HERE = pathlib.Path(__file__).resolve().parent
 sys.path.insert(0, str(HERE))
