@@ -18,7 +18,10 @@ adapter for you, with the C++ types that the argument and result kinds give:
   optional_range  any                          const assoc::CellGrid&   (omitted: an empty grid)
   number          any                          double                   (omitted: `default`, or an error)
   option          any                          the C++ type of its Options (omitted: `omitted`, else the first word)
-  word            any                          const assoc::Cell&       (omitted: a blank Cell)
+  word            any                          const assoc::Cell&       (omitted: a blank Cell; a function with a word
+                                                                        argument is not tried by ASSOC.CHECK)
+  value           any                          const assoc::Cell&       an optional label or number (omitted: a blank
+                                                                        Cell, which is what ASSOC.CHECK tries)
 
   result kind     adapter returns              the cell shows
   number          double                       the number
@@ -77,7 +80,7 @@ class Options:
 @dataclass
 class Argument:
     name: str
-    kind: str          # table | range | labels | optional_range | number | option | word (see the module docstring)
+    kind: str          # table | range | labels | optional_range | number | option | word | value (module docstring)
     description: str   # for the wizard; option words are appended automatically
     default: Optional[float] = None  # for number arguments: the value when omitted
     options: Optional[Options] = None  # for option arguments
@@ -130,6 +133,11 @@ MEASURES = Options("measure", "measure", "Measure", [
     Word("phi", "phi, signed (2×2 tables only)", "phi"),
     Word("contingency", "Pearson's contingency coefficient C", "contingency"),
     Word("w", "Cohen's w, as power calculations use it", "w"),
+    # Measures for ordered rows and columns (signed, from −1 to 1).
+    Word("gamma", "Goodman and Kruskal's gamma, from −1 to 1, for ordered rows and columns: the excess of pairs "
+                  "ranked alike over pairs ranked oppositely, ties left out", "gamma"),
+    Word("taub", "Kendall's tau-b, from −1 to 1, for ordered rows and columns: as gamma, with ties counted against "
+                 "the association", "tau_b"),
 ], declare=True)
 
 SIDES = Options("side", "side", "assoc::Side", [
@@ -141,10 +149,12 @@ SIDES = Options("side", "side", "assoc::Side", [
          "assoc::Side::upper"),
 ], include="assoc/exact_test.hpp")
 
-SIMULATION_METHODS = Options("simulation_method", "method", "assoc::Method", [
-    Word("pearson", "Pearson's X²", "assoc::Method::pearson"),
-    Word("g", "the likelihood-ratio statistic G²", "assoc::Method::likelihood_ratio"),
-], include="assoc/statistics.hpp", refused={
+SIMULATION_METHODS = Options("simulation_method", "method", "SimulationMethod", [
+    Word("pearson", "Pearson's X²", "pearson"),
+    Word("g", "the likelihood-ratio statistic G²", "g"),
+    Word("exact", "the tables' probability: random tables no more probable than this one count, as the exact test "
+                  "orders them, so the p-value estimates ASSOC.EXACT's (with the same margin for ties)", "exact"),
+], declare=True, refused={
     "yates": "Yates' correction adjusts the chi-squared approximation, and a simulated p-value needs no "
              "approximation; use \"pearson\" or \"g\"",
 })
@@ -258,8 +268,16 @@ FUNCTIONS = [
         "ASSOC.STRENGTH", "strength",
         "The strength of association on a scale that does not grow with the sample size.",
         [TABLE, Argument("measure", "option", "Optional. The measure of strength.", options=MEASURES)],
-        "number", "the measure; all are computed from the uncorrected Pearson X²",
-        [], '=ASSOC.STRENGTH(A1:D3; "cramer-corrected")'),
+        "number", "the measure; \"cramer\" to \"w\" are computed from the uncorrected Pearson X², \"gamma\" and "
+                  "\"taub\" from the pairs of counts that the order of the rows and the columns ranks alike or "
+                  "oppositely",
+        ["Cramér's V (corrected or not), phi, C and w ignore any order of the categories. For ordered rows and columns "
+         "(tenure bands by a satisfaction scale), \"gamma\" and \"taub\" say in which direction and how strongly the "
+         "order of the rows goes with that of the columns: positive when later rows go with later columns. Gamma "
+         "leaves out pairs tied on either variable, so it reaches ±1 as soon as one kind of pair is missing and lies "
+         "further from 0 than tau-b; tau-b counts the ties against the association and reaches ±1 only for a square table "
+         "with every count on a diagonal. ASSOC.ORDINAL tests such an association."],
+        '=ASSOC.STRENGTH(A1:D3; "cramer-corrected")'),
     Function(
         "ASSOC.EXACT", "exact",
         "The exact p-value of the test of independence, conditional on the row and column totals (Fisher's "
@@ -269,8 +287,9 @@ FUNCTIONS = [
         "number", "the p-value, between 0 and 1",
         ["Trustworthy where the chi-squared approximation is doubtful (small expected counts). For larger "
          "tables with many counts the number of possible tables grows quickly: the calculation stops with an "
-         "error after about 5 seconds, or when it would need more than about 400 MB of memory; ASSOC.SIMULATE "
-         "then gives a Monte Carlo p-value instead. ASSOC.CHECK with \"exact\" says why it fails."],
+         "error after about 5 seconds, or when it would need more than about 400 MB of memory; "
+         "ASSOC.SIMULATE(range; ; ; \"exact\") then estimates the same p-value by simulation. ASSOC.CHECK with "
+         "\"exact\" says why it fails."],
         "=ASSOC.EXACT(A1:C3)"),
     Function(
         "ASSOC.SIMULATE", "simulate",
@@ -287,7 +306,10 @@ FUNCTIONS = [
                "entry shows the p-value",
         ["The p-value is (1 + k) / (trials + 1), k the number of random tables at least as extreme, so it is "
          "never 0. The standard error √(p (1 − p) / trials) shrinks with more trials. Tables too large to "
-         "simulate within a few seconds are refused with an error that says how many trials would fit."],
+         "simulate within a few seconds are refused with an error that says how many trials would fit.",
+         "With \"pearson\" or \"g\" it estimates the exact p-value of that statistic, which can differ from "
+         "ASSOC.EXACT's: the exact test orders tables by their probability. With \"exact\" it orders them the same "
+         "way, so it estimates ASSOC.EXACT's p-value where the exact test is out of reach."],
         "=ASSOC.SIMULATE(A1:D4; 100000; 7)"),
     Function(
         "ASSOC.ODDSRATIO", "oddsratio",
@@ -578,3 +600,72 @@ MEMO_FUNCTIONS = [
 
 _BEFORE_CHECK = next(i for i, f in enumerate(FUNCTIONS) if f.name == "ASSOC.CHECK")
 FUNCTIONS[_BEFORE_CHECK:_BEFORE_CHECK] = MEMO_FUNCTIONS
+
+
+# ---------------------------------------------------------------------------------------------
+# Ordered tables, association within r×c strata, repeated yes/no answers (issue 13). Placed before
+# ASSOC.CHECK, after the memo figures.
+
+ORDERED_FUNCTIONS = [
+    Function(
+        "ASSOC.ORDINAL", "ordinal",
+        "The linear-by-linear association test for a table whose rows and columns are both ordered (tenure band "
+        "by satisfaction): does a later row go with a later column? Far more powerful than the chi-squared test "
+        "when the association follows the order.",
+        [TABLE,
+         Argument("row_scores", "optional_range",
+                  "Optional. One number per row of the table (rows of zeros included), rising or falling with the "
+                  "order of the rows, for example each tenure band's middle in years; 1, 2, 3, … when omitted."),
+         Argument("column_scores", "optional_range",
+                  "Optional. One number per column, rising or falling with the order of the columns; 1, 2, 3, … "
+                  "when omitted.")],
+        "row", "one row: the two-sided p-value, the statistic M² = (n − 1) r², the degrees of freedom (1) and the "
+               "correlation r of the row and column scores; a plain entry shows the p-value",
+        ["r is positive when later rows go with later columns, negative when with earlier ones. The scores set "
+         "the spacing of the categories (equal steps by default); M² does not change when all scores of a side are "
+         "shifted or stretched, only when their spacing changes. Scores that are not numbers, a score too few or "
+         "too many, and scores that do not rise (or fall) steadily are errors.",
+         "For a table of 2 rows, M² = (n − 1)/n × z² of ASSOC.TREND with the same column scores (ASSOC.TREND's "
+         "variance uses n, Mantel's M² uses n − 1), and r has the sign opposite to z's when the row scores rise.",
+         "ASSOC.STRENGTH with \"gamma\" or \"taub\" gives the strength of such an association."],
+        "=ASSOC.ORDINAL(A1:F6)"),
+    Function(
+        "ASSOC.WITHIN", "within",
+        "The generalized Cochran–Mantel–Haenszel test: are rows and columns associated once the strata (offices, "
+        "channels) are held apart? For tables of any size; for 2×2 strata ASSOC.STRATA also gives the common "
+        "odds ratio.",
+        [Argument("strata", "range",
+                  "The strata in the long layout: one row per stratum and row category, with the stratum's label in "
+                  "column 1, the row's label in column 2 and one column of counts per column category after them; a "
+                  "header row naming the categories is optional. A stratum's rows must be together; the strata may "
+                  "come in any order.")],
+        "row", "one row: the p-value, the statistic (chi-squared), the degrees of freedom (rows − 1) × (columns − 1); "
+               "a plain entry shows the p-value",
+        ["It tests general association: any pattern in any stratum, with no order of the categories assumed. A "
+         "stratum may leave out a row label (its counts are then 0). Strata with fewer than 2 rows or 2 columns "
+         "holding counts add nothing and are set aside, and so are rows and columns that hold counts only in such "
+         "strata; ASSOC.CHECK with \"within\" names them. With 2 rows and 2 columns in every stratum the statistic "
+         "is that of ASSOC.STRATA with \"uncorrected\"."],
+        "=ASSOC.WITHIN(A1:F10)"),
+    Function(
+        "ASSOC.REPEATED", "repeated",
+        "Cochran's Q test for the same people answering yes or no on several occasions (survey waves): does the "
+        "share of yes change from one occasion to another? For 2 occasions it is McNemar's test without the "
+        "continuity correction.",
+        [Argument("answers", "range",
+                  "One row per person and one column per occasion, each answer 1 (yes) or 0 (no), or one of two "
+                  "text labels; a header row naming the occasions is optional. A row with a blank answer is set "
+                  "aside."),
+         Argument("yes", "value",
+                  "Optional. The text label that counts as yes, in any case (for example \"Agree\"); when omitted, "
+                  "\"yes\" if it is one of the two labels, otherwise the first label in the range. Q is the same "
+                  "either way.")],
+        "row", "one row: the p-value, Q, the degrees of freedom (occasions − 1); a plain entry shows the p-value",
+        ["People who answered the same on every occasion add nothing to Q. ASSOC.CHECK with \"repeated\" says which "
+         "label was counted as yes and how many people were set aside for a blank answer. Labels are compared "
+         "exactly: \"Yes\" and \"yes\" are two labels, and a third label is an error."],
+        '=ASSOC.REPEATED(B2:D120; "Yes")'),
+]
+
+_BEFORE_CHECK = next(i for i, f in enumerate(FUNCTIONS) if f.name == "ASSOC.CHECK")
+FUNCTIONS[_BEFORE_CHECK:_BEFORE_CHECK] = ORDERED_FUNCTIONS

@@ -41,6 +41,7 @@ ARGUMENT_KINDS = {
     "number": ("any", UNO_ANY),
     "option": ("any", UNO_ANY),
     "word": ("any", UNO_ANY),
+    "value": ("any", UNO_ANY),
 }
 REQUIRED_RANGE_KINDS = ("table", "range", "labels")
 RESULT_TYPES = {"number": "double", "row": "std::vector<double>", "array": "assoc::Matrix",

@@ -1471,8 +1471,13 @@ def build_finance(office, out):
            lambda: band_notes(band, band_row, trend_cell), lambda: reaudit_notes(reaudit), tidy])
 
 
+def build_staff_survey(office, out):
+    from sample_staff_survey import build  # a module of its own; it imports this one's helpers
+    build(office, out)
+
+
 BUILDERS = {"quick_start": build_quick_start, "promotions": build_promotions, "hr_review": build_hr,
-            "invoice_exceptions": build_finance}
+            "invoice_exceptions": build_finance, "staff_survey": build_staff_survey}
 
 
 def main():

@@ -7,17 +7,21 @@
 #include "assoc/common_risk_ratio.hpp"
 #include "assoc/cell_p_values.hpp"
 #include "assoc/chi_squared_distribution.hpp"
+#include "assoc/cochrans_q.hpp"
 #include "assoc/count_table.hpp"
 #include "assoc/counts_from_records.hpp"
 #include "assoc/effect_size.hpp"
 #include "assoc/error.hpp"
 #include "assoc/exact_test.hpp"
 #include "assoc/expected_counts.hpp"
+#include "assoc/generalized_mantel_haenszel.hpp"
 #include "assoc/goodness_of_fit.hpp"
 #include "assoc/levels.hpp"
 #include "assoc/mantel_haenszel.hpp"
 #include "assoc/monte_carlo.hpp"
 #include "assoc/odds_ratio.hpp"
+#include "assoc/ordinal_measures.hpp"
+#include "assoc/ordinal_test.hpp"
 #include "assoc/paired_tests.hpp"
 #include "assoc/pairwise_comparisons.hpp"
 #include "assoc/power.hpp"
@@ -35,7 +39,7 @@ namespace {
 // A cell must not freeze the office for long, and Calc recalculates add-in cells whenever a document
 // loads: the exact test stops after 5 seconds or 400 MB of working memory (the office's peak memory
 // grows by about as much; the core's own defaults are 20 seconds and 1 GB), with an error that
-// points to ASSOC.SIMULATE.
+// points to ASSOC.SIMULATE(range; ; ; "exact").
 const ExactLimits worksheet_exact_limits{5.0, 400'000'000};
 
 std::vector<double> ratio_row(const RatioEstimate& ratio) {
@@ -85,6 +89,8 @@ double strength(const CellGrid& range, Measure measure) {
     case Measure::phi: return phi_coefficient(table);
     case Measure::contingency: return contingency_coefficient(table);
     case Measure::w: return cohens_w(table);
+    case Measure::gamma: return goodman_kruskal_gamma(table);
+    case Measure::tau_b: return kendall_tau_b(table);
     }
     throw Error("unknown measure");
 }
@@ -93,9 +99,10 @@ double exact(const CellGrid& range, Side side) {
     return exact_p_value(read_count_table(range), side, worksheet_exact_limits);
 }
 
-std::vector<double> simulate(const CellGrid& range, double trials, double seed, Method method) {
+std::vector<double> simulate(const CellGrid& range, double trials, double seed, SimulationMethod method) {
     SimulationOptions options = simulation_options(trials, seed);
-    options.statistic = method;
+    options.statistic = method == SimulationMethod::g ? Method::likelihood_ratio : Method::pearson;
+    if (method == SimulationMethod::exact) options.order = SimulationOrder::probability;
     const SimulationResult result = monte_carlo_test(read_count_table(range), options);
     return {result.p_value, result.standard_error, static_cast<double>(result.trials)};
 }
@@ -239,6 +246,25 @@ std::vector<double> stratarisk(const CellGrid& range, double confidence) {
     const CommonRiskRatio result = common_risk_ratio(range, confidence);
     for (const std::string& sentence : result.remarks) remark(sentence);
     return {result.ratio.estimate, result.ratio.lower, result.ratio.upper};
+}
+
+// --- Ordered tables, association within r×c strata, repeated yes/no answers (issue 13) -------------
+
+std::vector<double> ordinal(const CellGrid& range, const CellGrid& row_scores, const CellGrid& column_scores) {
+    const OrdinalResult result = ordinal_test(range, row_scores, column_scores);
+    return {result.p_value, result.statistic, result.df, result.correlation};
+}
+
+std::vector<double> within(const CellGrid& strata) {
+    const GeneralAssociationResult result = general_association_test(strata);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    return {result.p_value, result.statistic, result.df};
+}
+
+std::vector<double> repeated(const CellGrid& answers, const Cell& yes) {
+    const RepeatedResult result = cochrans_q_test(answers, yes);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    return {result.p_value, result.statistic, result.df};
 }
 
 }  // namespace cell_functions

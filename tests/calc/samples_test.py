@@ -320,6 +320,47 @@ class Invoices(SampleCase, unittest.TestCase):
         self.assertClose(self.row("PairedExact"), self.reference["paired_exact"], "exact binomial")
 
 
+class StaffSurvey(SampleCase, unittest.TestCase):
+    workbook = "staff_survey.fods"
+    reference = REFERENCE["staff_survey"]
+    record_sheets = ("Wave answers",)
+    without_heat_map = {"Waves": "repeated yes/no answers (Cochran's Q): no test of independence, so no residuals"}
+
+    def test_inputs_are_those_of_the_reference(self):
+        table = self.values("TenureTable")
+        self.assertEqual([row[0] for row in table[1:]], self.reference["bands"])
+        self.assertEqual([row[1:] for row in table[1:]], self.reference["counts"])
+        self.assertEqual([row[0] for row in self.values("TenureYears")], self.reference["years"])
+        self.assertEqual(len(self.values("WaveAnswers")) - 1, self.reference["staff"])
+
+    def test_ordered_tests_match_statsmodels_and_scipy(self):
+        self.assertClose(self.row("TenureOrdinal"), self.reference["ordinal"], "ASSOC.ORDINAL")
+        self.assertClose(self.row("TenureOrdinalYears"), self.reference["ordinal_years"], "ASSOC.ORDINAL with years")
+        self.assertClose(self.row("TenurePearson"), [self.reference["pearson"][2]], "ASSOC.PVALUE")
+        self.assertClose(self.row("TenureGamma"), [self.reference["gamma"]], "gamma (pairs counted with numpy)")
+        self.assertClose(self.row("TenureTauB"), [self.reference["tau_b"]], "tau-b (scipy kendalltau)")
+        # The point of the sheet: the ordered test finds what Pearson's test misses.
+        self.assertLess(self.row("TenureOrdinal")[0], 0.001)
+        self.assertGreater(self.row("TenurePearson")[0], 0.05)
+
+    def test_within_offices_matches_r_mantelhaen_test(self):
+        # R is given Harbour's one-row stratum too; it adds nothing there, as ASSOC.WITHIN sets it aside.
+        self.assertClose(self.row("WithinResult"), self.reference["within"], "ASSOC.WITHIN")
+
+    def test_the_simulation_ordered_as_the_exact_test_estimates_its_p_value(self):
+        self.assertEqual([row[1:] for row in self.values("LakeviewTable")[1:]], self.reference["lakeview"])
+        exact = self.row("LakeviewExact")[0]
+        self.assertClose([exact], [self.reference["lakeview_exact"]], "exact (R fisher.test)", 1e-7)
+        p, standard_error, trials = self.row("LakeviewSimulatedExact")
+        self.assertEqual(trials, 100000)
+        self.assertLess(abs(p - exact), 4 * standard_error)
+
+    def test_survey_waves_match_statsmodels_and_r(self):
+        self.assertClose(self.row("WaveRepeated"), self.reference["repeated"], "Cochran's Q (statsmodels)")
+        self.assertClose(self.row("TwoWaveRepeated"), self.reference["march_july_repeated"], "two waves")
+        self.assertClose(self.row("TwoWavePaired"), self.reference["march_july_mcnemar"], "McNemar (R)")
+
+
 def main():
     global office
     parser = argparse.ArgumentParser(description=__doc__, formatter_class=argparse.RawDescriptionHelpFormatter)

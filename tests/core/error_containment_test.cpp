@@ -12,6 +12,9 @@
 #include "assoc/common_risk_ratio.hpp"
 #include "assoc/effect_size.hpp"
 #include "assoc/expected_counts.hpp"
+#include "assoc/generalized_mantel_haenszel.hpp"
+#include "assoc/ordinal_measures.hpp"
+#include "assoc/ordinal_test.hpp"
 #include "assoc/pairwise_comparisons.hpp"
 #include "assoc/rates.hpp"
 #include "assoc/residuals.hpp"
@@ -135,6 +138,31 @@ TEST(ErrorContainment, TablesReadWithoutTheTwoByTwoRequirementFailWithAssocError
         returns_or_throws_error([&] { cramers_v(table); }, "V");
         returns_or_throws_error([&] { cramers_v_corrected(table); }, "corrected V");
         returns_or_throws_error([&] { check_validity(table); }, "validity");  // an empty table crashed here
+    }
+}
+
+// The tests for ordered tables and r×c strata on the same awkward tables (each table also as two
+// strata: itself and itself reversed).
+TEST(ErrorContainment, TheOrderedAndStratifiedTestsReturnANumberOrAnAssocErrorOnAwkwardTables) {
+    int table_number = 0;
+    for (const Matrix& counts : awkward_counts()) {
+        const std::string name = "table " + std::to_string(++table_number);
+        CountTable table;
+        if (!returns_or_throws_error([&] { table = CountTable::from_counts(counts); }, name)) continue;
+        auto finite = [&](double value, const std::string& what) { EXPECT_FALSE(std::isnan(value)) << what << " on " << name; };
+        returns_or_throws_error([&] { finite(ordinal_test(table).statistic, "M²"); }, name);
+        returns_or_throws_error([&] { finite(ordinal_test(table).p_value, "ordinal p"); }, name);
+        returns_or_throws_error([&] { finite(goodman_kruskal_gamma(table), "gamma"); }, name);
+        returns_or_throws_error([&] { finite(kendall_tau_b(table), "tau-b"); }, name);
+        LongStrata strata;
+        strata.row_labels.assign(counts.rows(), "");
+        strata.column_labels.assign(counts.columns(), "");
+        Matrix reversed(counts.rows(), counts.columns());
+        for (std::size_t r = 0; r < counts.rows(); ++r)
+            for (std::size_t c = 0; c < counts.columns(); ++c)
+                reversed(r, c) = counts(counts.rows() - 1 - r, c);
+        strata.strata = {{"A", counts}, {"B", reversed}};
+        returns_or_throws_error([&] { finite(general_association_test(strata).statistic, "generalized CMH"); }, name);
     }
 }
 

@@ -7,7 +7,7 @@ repository root after rebuilding the samples:
     /usr/bin/python3 tests/reference/samples_generate.py
 
 Tools: scipy 1.10.1, numpy 1.24.2, statsmodels 0.13.5 (Debian 12 python3-scipy, python3-numpy,
-python3-statsmodels) and R 4.2.2 (Rscript: fisher.test, prop.trend.test). The workbooks' data are
+python3-statsmodels) and R 4.2.2 (Rscript: fisher.test, prop.trend.test, mantelhaen.test, mcnemar.test). The workbooks' data are
 invented (Larkspur Components Ltd is a fictional company).
 
 Only typed cells are read: the pooled table, the size bands and the other formula cells of the
@@ -285,6 +285,50 @@ def finance():
     }
 
 
+def staff_survey():
+    """The staff-survey workbook (scripts/sample_staff_survey.py), with the tools and helpers of
+    ordered_generate.py: statsmodels (linear-by-linear test, Cochran's Q), scipy (Pearson, Kendall's tau-b
+    on the expanded data), numpy (pairs for gamma) and R (mantelhaen.test, fisher.test, mcnemar.test)."""
+    from ordered_generate import cochran, gamma_by_pairs, linear_by_linear, mantelhaen, tau_b
+    path = SAMPLES / "staff_survey.fods"
+    tenure_rows = sheet_cells(path, "By tenure")
+    body = block(tenure_rows, "A6", 6, 5)
+    counts = [[int(v) for v in row[1:]] for row in body]
+    years = [row[0] for row in block(tenure_rows, "H6", 1, 5)]
+
+    long = []
+    for row in sheet_cells(path, "Within offices")[5:]:
+        if not row or row[0] is None:
+            break
+        long.append(row[:5])
+    offices = list(dict.fromkeys(row[0] for row in long))
+    bands = list(dict.fromkeys(row[1] for row in long))
+    strata = [[next(([int(v) for v in r[2:5]] for r in long if r[0] == office and r[1] == band), [0, 0, 0])
+               for band in bands] for office in offices]
+    lakeview = strata[offices.index("Lakeview")]
+
+    answers = []
+    for row in sheet_cells(path, "Wave answers")[1:]:
+        if not row or row[0] is None:
+            break
+        answers.append([(row + [None] * 4)[c] or "" for c in (1, 2, 3)])
+    complete = [[1 if a == "Yes" else 0 for a in row] for row in answers if "" not in row]
+    two = [[1 if a == "Yes" else 0 for a in row[:2]] for row in answers if "" not in row[:2]]
+    pairs = [[sum(1 for a, b in two if (a, b) == (x, y)) for y in (1, 0)] for x in (1, 0)]
+    mcnemar_statistic, mcnemar_p = r_numbers(
+        f"unlist(mcnemar.test({r_matrix(pairs)}, correct = FALSE)[c('statistic', 'p.value')])")
+    return {
+        "bands": [row[0] for row in body], "counts": counts, "years": years,
+        "ordinal": linear_by_linear(counts), "ordinal_years": linear_by_linear(counts, years),
+        "pearson": pearson(counts), "gamma": gamma_by_pairs(counts)[2], "tau_b": tau_b(counts),
+        "offices": offices, "office_bands": bands, "strata": strata, "within": mantelhaen(strata),
+        "lakeview": lakeview, "lakeview_exact": r_numbers(f"fisher.test({r_matrix(lakeview)})$p.value")[0],
+        "staff": len(answers), "complete": len(complete), "repeated": cochran(complete),
+        "march_july_pairs": pairs, "march_july_repeated": cochran(two),
+        "march_july_mcnemar": [mcnemar_p, mcnemar_statistic, 1.0],
+    }
+
+
 def main():
     r_version = subprocess.run(["Rscript", "-e", "cat(R.version.string)"], check=True, capture_output=True,
                                text=True).stdout
@@ -293,6 +337,7 @@ def main():
         "tools": {"scipy": scipy.__version__, "numpy": np.__version__, "statsmodels": statsmodels.__version__,
                   "R": r_version},
         "quick_start": quick_start(), "promotions": promotions(), "hr": hr(), "finance": finance(),
+        "staff_survey": staff_survey(),
     }
     data["hr_departments"] = hr_departments()
     OUT.write_text(json.dumps(data, indent=1, ensure_ascii=False) + "\n")
