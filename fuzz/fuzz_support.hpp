@@ -94,6 +94,10 @@ bool everyday_numbers(std::initializer_list<const CellGrid*> grids);
 // A known finding that another branch is fixing (named in `what`, with where it was reported): true
 // (skip the check) outside strict mode, where it is noted once in the log; false in strict mode.
 bool known(const std::string& what);
+// Known (issue 9, item 1): Fisher's 2×2 test ignores its caps and takes seconds for totals in the
+// billions. True (skip) for a total above 1e7, outside strict mode.
+bool slow_two_by_two_exact(double total);
+
 // Known: the interval for Cramér's V calls Boost 1.74's noncentral chi-squared distribution, which
 // overflows an int (undefined behaviour) for a noncentrality near 2^32, i.e. X² of about 4.3e9, and
 // gives up with a rounding error beyond (issue 9, item 5). True (skip) when the table's X² is above

