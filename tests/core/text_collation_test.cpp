@@ -77,6 +77,7 @@ TEST(TextOrder, OrdersEquivalentSpellingsOfOneWordByCodePoints) {
 
 TEST(TextOrder, FollowsALanguagesTailoringWhenGivenItsLocale) {
     EXPECT_EQ(sorted_texts(expected::swedish_labels, UnicodeCollation("sv")), expected::swedish_sorted);
+    EXPECT_EQ(sorted_texts(expected::swedish_labels), expected::swedish_in_default_order_sorted);
 }
 
 TEST(TextOrder, GivesTheSameOrderWhateverTheOrderOfTheRecords) {

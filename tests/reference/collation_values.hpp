@@ -149,4 +149,20 @@ inline const std::vector<std::string> swedish_sorted{
     "Ärende",
     "Ökad"};
 
+// The same labels in the default order: Å and Ä with A, Ö with O.
+inline const std::vector<std::string> swedish_in_default_order_labels{
+    "Åsa",
+    "Ärende",
+    "arkiv",
+    "zon",
+    "Ökad",
+    "Oslo"};
+inline const std::vector<std::string> swedish_in_default_order_sorted{
+    "Ärende",
+    "arkiv",
+    "Åsa",
+    "Ökad",
+    "Oslo",
+    "zon"};
+
 }  // namespace assoc::reference::collation
