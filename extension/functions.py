@@ -272,8 +272,8 @@ FUNCTIONS = [
          "probable than the observed one. A table up to 1e-7 (relative) more probable than the observed one "
          "counts as no more probable: tables that are equally probable in exact arithmetic come out a few units "
          "of the 16th digit apart in floating point, and without a margin they would be counted or left out by "
-         "rounding. Tools differ here: some use the same relative margin, some a far smaller one (1e-14) or "
-         "none, and some an absolute margin, which treats every table as tied once probabilities are tiny; "
+         "rounding. Tools differ here: some use the same relative margin, some a far smaller one (1e-14), and "
+         "some an absolute margin, which treats every table as tied once probabilities are tiny; "
          "p-values then differ by the probability of the near-ties.",
          "Trustworthy where the chi-squared approximation is doubtful (small expected counts). For larger "
          "tables with many counts the number of possible tables grows quickly: the calculation stops with an "
