@@ -21,6 +21,8 @@ die "Unicode::Collate $Unicode::Collate::VERSION, expected 1.31\n" unless $Unico
 my $root = Unicode::Collate->new(variable => 'non-ignorable');
 my $swedish = Unicode::Collate::Locale->new(locale => 'sv', variable => 'non-ignorable');
 
+my @swedish_labels = ('Åsa', 'Ärende', 'arkiv', 'zon', 'Ökad', 'Oslo');
+
 # name, collator, what the set shows, labels (in the invented order of first appearance)
 my @sets = (
     ['accented_latin', $root, 'accented letters sort with their base letters, not after z',
@@ -37,10 +39,9 @@ my @sets = (
      ['ab', 'a b', 'a-b', 'a_b', 'a.b', 'a1', 'A b']],
     ['equivalent_spellings', $root, 'the same word with a precomposed and a combining accent: tied by the collation, ordered by code points',
      ["\x{e9}quipe", "e\x{301}quipe", "\x{c9}quipe", "E\x{301}quipe", 'equipe']],
-    ['swedish', $swedish, 'the Swedish tailoring: Å, Ä, Ö after Z',
-     ['Åsa', 'Ärende', 'arkiv', 'zon', 'Ökad', 'Oslo']],
+    ['swedish', $swedish, 'the Swedish tailoring: Å, Ä, Ö after Z', \@swedish_labels],
     ['swedish_in_default_order', $root, 'the same labels in the default order: Å and Ä with A, Ö with O',
-     ['Åsa', 'Ärende', 'arkiv', 'zon', 'Ökad', 'Oslo']],
+     \@swedish_labels],
 );
 
 sub literal {  # a C++ string literal: the text in UTF-8, combining marks and quotes escaped
@@ -61,7 +62,12 @@ for my $set (@sets) {
     my @sorted = sort { $collator->getSortKey($a) cmp $collator->getSortKey($b) or $a cmp $b } @$labels;
     $json{sets}{$name} = {labels => $labels, sorted => \@sorted, locale => ($collator == $swedish ? 'sv-SE' : '')};
     $out .= "\n// " . ucfirst($what) . ($collator == $swedish ? " (locale sv)" : '') . ".\n";
-    $out .= "inline const std::vector<std::string> ${name}_labels{\n    " . join(",\n    ", map { literal($_) } @$labels) . "};\n";
+    my ($same) = grep { $_->[3] == $labels && $_->[0] ne $name } @sets;  # labels shared with an earlier set
+    if ($same && $json{sets}{$same->[0]}) {
+        $out .= "inline const std::vector<std::string>& ${name}_labels = $same->[0]_labels;\n";
+    } else {
+        $out .= "inline const std::vector<std::string> ${name}_labels{\n    " . join(",\n    ", map { literal($_) } @$labels) . "};\n";
+    }
     $out .= "inline const std::vector<std::string> ${name}_sorted{\n    " . join(",\n    ", map { literal($_) } @sorted) . "};\n";
 }
 $out .= "\n}  // namespace assoc::reference::collation\n";

@@ -150,13 +150,7 @@ inline const std::vector<std::string> swedish_sorted{
     "Ökad"};
 
 // The same labels in the default order: Å and Ä with A, Ö with O.
-inline const std::vector<std::string> swedish_in_default_order_labels{
-    "Åsa",
-    "Ärende",
-    "arkiv",
-    "zon",
-    "Ökad",
-    "Oslo"};
+inline const std::vector<std::string>& swedish_in_default_order_labels = swedish_labels;
 inline const std::vector<std::string> swedish_in_default_order_sorted{
     "Ärende",
     "arkiv",
