@@ -41,6 +41,7 @@ ARGUMENT_KINDS = {
     "number": ("any", UNO_ANY),
     "option": ("any", UNO_ANY),
     "word": ("any", UNO_ANY),
+    "value": ("any", UNO_ANY),
 }
 REQUIRED_RANGE_KINDS = ("table", "range", "labels")
 RESULT_TYPES = {"number": "double", "row": "std::vector<double>", "array": "assoc::Matrix",
@@ -423,6 +424,9 @@ category of the other.
   mentioned by `ASSOC.CHECK`. Array results keep the shape of the body and show 0 there.
 - Text among the counts, negative counts, and a table with fewer than 2 rows or 2 columns holding
   counts are errors.
+- Trailing blank rows and columns are not part of a range: a whole-column reference (`A:E`), a
+  whole-row one (`1:6`) or a range drawn below a growing table reads as the table it holds, and
+  array results have the shape of that table.
 
 Functions that take other ranges (records for `ASSOC.COUNTS` and `ASSOC.LEVELS`, strata, paired or
 ordered tables, a row of counts) say below what they expect; where they read counts, headers and

@@ -96,7 +96,7 @@ TEST(ExactPValue, StopsAtTheMemoryLimitAndSuggestsASimulation) {
     expect_error([&] {
         exact_p_value(counts_table({{6, 4, 8, 8, 5, 5}, {2, 15, 6, 8, 8, 4}, {0, 3, 9, 2, 4, 3}}), Side::two_sided, limits);
     }, "the exact test for this table needs more memory than allowed (the limit is 20 seconds and 1 MB of working "
-       "memory); use ASSOC.SIMULATE for a Monte Carlo p-value instead");
+       "memory); use ASSOC.SIMULATE(range; ; ; \"exact\") for a Monte Carlo estimate of the exact p-value instead");
 }
 
 // A column of 2 beside columns of 22,000 and 23,000: the last two columns alone have about 10⁸
@@ -105,7 +105,8 @@ TEST(ExactPValue, StopsAtTheMemoryLimitAndSuggestsASimulation) {
 TEST(ExactPValue, StopsATableWithATinyColumnBesideHugeOnesAtItsLimits) {
     const ExactLimits limits{2.0, 200'000'000};
     const std::string limits_text = " than allowed (the limit is 2 seconds and 200 MB of working memory); use "
-                                    "ASSOC.SIMULATE for a Monte Carlo p-value instead";
+                                    "ASSOC.SIMULATE(range; ; ; \"exact\") for a Monte Carlo estimate of the exact "
+                                    "p-value instead";
     try {
         exact_p_value(counts_table({{1, 10000, 5000}, {1, 5000, 10000}, {0, 7000, 8000}}), Side::two_sided, limits);
         ADD_FAILURE() << "expected the work cap to stop the test";
