@@ -423,9 +423,9 @@ FUNCTIONS = [
          "the order never depends on the order of the records. Latin letters come before Greek, Cyrillic and "
          "other scripts, and a language's own rules apply where it has them (in Swedish, Ä after Z). Many "
          "programs instead sort texts by their character codes, which puts lower case after all capitals and "
-         "accented letters after Z; the office's own sort can also differ slightly, since it ignores case by "
-         "default and keeps ties in the order of the records. The order changes only how rows and columns are "
-         "listed, never a count or a test."],
+         "accented letters after Z; the office's own sort can also differ slightly, since by default it treats "
+         "texts that differ only in case as equal. The order changes only how rows and columns are listed, "
+         "never a count or a test."],
         "=ASSOC.LEVELS(B2:B200)"),
     Function(
         "ASSOC.STRATA", "strata",
