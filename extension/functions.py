@@ -167,7 +167,8 @@ ADJUSTMENTS = Options("adjustment", "adjustment", "assoc::PAdjustment", [
 ], include="assoc/p_value_adjustment.hpp")
 
 LEVEL_ORDERS = Options("level_order", "order", "assoc::LevelOrder", [
-    Word("sorted", "numbers ascending, then texts alphabetically", "assoc::LevelOrder::sorted"),
+    Word("sorted", "numbers ascending, then texts in alphabetical order as the office's language reads it "
+                   "(case and accents only break ties)", "assoc::LevelOrder::sorted"),
     Word("first", "in the order in which the labels first appear", "assoc::LevelOrder::first_seen"),
 ], include="assoc/levels.hpp")
 
@@ -285,7 +286,14 @@ FUNCTIONS = [
         [TABLE, Argument("side", "option", "Optional. Which tables count as at least as extreme as this one.",
                          options=SIDES)],
         "number", "the p-value, between 0 and 1",
-        ["Trustworthy where the chi-squared approximation is doubtful (small expected counts). For larger "
+        ["Two-sided, the p-value adds up the probabilities of all tables with the same totals that are no more "
+         "probable than the observed one. A table up to 1e-7 (relative) more probable than the observed one "
+         "counts as no more probable: tables that are equally probable in exact arithmetic come out a few units "
+         "of the 16th digit apart in floating point, and without a margin they would be counted or left out by "
+         "rounding. Tools differ here: some use the same relative margin, some a far smaller one (1e-14), and "
+         "some an absolute margin, which treats every table as tied once probabilities are tiny; "
+         "p-values then differ by the probability of the near-ties.",
+         "Trustworthy where the chi-squared approximation is doubtful (small expected counts). For larger "
          "tables with many counts the number of possible tables grows quickly: the calculation stops with an "
          "error after about 5 seconds, or when it would need more than about 400 MB of memory; "
          "ASSOC.SIMULATE(range; ; ; \"exact\") then estimates the same p-value by simulation. ASSOC.CHECK with "
@@ -397,7 +405,8 @@ FUNCTIONS = [
          "A record with a blank label is skipped. Labels are compared exactly: \"Sales\", \"sales\" and "
          "\"Sales \" are three labels (ASSOC.CHECK with \"counts\" points out labels that differ only in "
          "capitals), and the number 5 and the text \"5\" are two. A label whose records are all skipped gets a "
-         "row (or column) of zeros, which the other functions set aside."],
+         "row (or column) of zeros, which the other functions set aside.",
+         "The order of the rows and columns is that of ASSOC.LEVELS (see there for how texts are sorted)."],
         "=ASSOC.COUNTS(B2:B200; C2:C200)"),
     Function(
         "ASSOC.LEVELS", "levels",
@@ -406,7 +415,17 @@ FUNCTIONS = [
         [Argument("labels", "labels", "One row or column of labels, one per record."),
          Argument("order", "option", "Optional. The order of the labels.", options=LEVEL_ORDERS)],
         "cells", "a column of labels (numbers stay numbers)",
-        ["Use TRANSPOSE(ASSOC.LEVELS(…)) for a row."],
+        ["Use TRANSPOSE(ASSOC.LEVELS(…)) for a row.",
+         "Sorted texts follow the Unicode Collation Algorithm through LibreOffice's own collator for the locale "
+         "setting (Tools ▸ Options ▸ Language Settings ▸ Languages): letters first, without regard to case or "
+         "accents, so \"Éclair\" comes between \"apple\" and \"zeta\"; then accents (\"resume\" before "
+         "\"résumé\"), then case (lower case first), and texts still equal by their Unicode code points, so "
+         "the order never depends on the order of the records. Latin letters come before Greek, Cyrillic and "
+         "other scripts, and a language's own rules apply where it has them (in Swedish, Ä after Z). Many "
+         "programs instead sort texts by their character codes, which puts lower case after all capitals and "
+         "accented letters after Z; the office's own sort can also differ slightly, since by default it treats "
+         "texts that differ only in case as equal. The order changes only how rows and columns are listed, "
+         "never a count or a test."],
         "=ASSOC.LEVELS(B2:B200)"),
     Function(
         "ASSOC.STRATA", "strata",
@@ -420,7 +439,14 @@ FUNCTIONS = [
         ["The common odds ratio compares the odds of column 1 in row 1 with those in row 2, the same in every "
          "stratum. Strata without counts in both rows and both columns add nothing and are left out "
          "(ASSOC.CHECK with \"strata\" names them). ASSOC.HOMOGENEITY tests whether one common odds ratio fits "
-         "all strata."],
+         "all strata.",
+         "The continuity correction never exceeds the difference it corrects: the statistic is "
+         "(|D| − min(½, |D|))² / V, with D the sum over strata of observed minus expected top-left counts and V "
+         "its variance, so when |D| is below ½ the statistic is 0 and the p-value 1. The correction allows for "
+         "counts being whole; a correction larger than the difference would turn a difference smaller than "
+         "half a count into evidence. Yates' and McNemar's corrections in Assoc follow the same rule. Other "
+         "tools differ only when |D| < ½: some then drop the correction (statistic D² / V), some subtract ½ "
+         "regardless ((½ − |D|)² / V)."],
         "=ASSOC.STRATA(A1:E7)"),
     Function(
         "ASSOC.HOMOGENEITY", "homogeneity",
@@ -441,7 +467,12 @@ FUNCTIONS = [
         "row", "one row: the p-value, the statistic, the degrees of freedom; a plain entry shows the p-value",
         ["With \"exact\" the statistic is the smaller of the two counts of changes and the degrees of freedom "
          "are 0 (a binomial test has none). Rows and columns of zeros are kept, since row i and column i must "
-         "stay the same category."],
+         "stay the same category.",
+         "Bowker's test adds (n_ij − n_ji)² / (n_ij + n_ji) over the pairs of categories, and a pair in which "
+         "nobody changed either way (n_ij = n_ji = 0) is left out with its degree of freedom: it says nothing "
+         "about symmetry, and its term would be 0 / 0. The degrees of freedom are the number of pairs with "
+         "changes, at most k(k − 1)/2. Other tools give no result for such a table, or keep k(k − 1)/2 degrees "
+         "of freedom, which makes the p-value larger (the test more cautious) than the changes justify."],
         "=ASSOC.PAIRED(A1:C3)"),
     Function(
         "ASSOC.TREND", "trend",
@@ -507,7 +538,14 @@ FUNCTIONS = [
          "100 MB of memory; otherwise its line says why not (ASSOC.EXACT allows 5 seconds and 400 MB, "
          "ASSOC.SIMULATE estimates the p-value). The cells "
          "that stand out are the (at most 3) cells with the largest adjusted residuals beyond ±2, named by "
-         "their labels."],
+         "their labels.",
+         "The 95% interval of Cramér's V inverts the noncentral chi-squared distribution of X²: the limits "
+         "λ_L and λ_U of its noncentrality are those with P(X² ≥ observed | λ) = 2.5% and 97.5%, and each "
+         "becomes V = √(λ / (n (min(r, c) − 1))), at most 1; a limit is 0 when even λ = 0 makes the observed "
+         "X² likely enough. λ = n·w² is the same model as ASSOC.POWER's, so the interval is one for the "
+         "population V. Published methods differ: some use √((λ + df) / (n (min(r, c) − 1))), which describes "
+         "the expected sample V instead and gives higher limits. The interval is rough for small or sparse "
+         "tables, and it can lie below the sample V, which overstates the population V on average."],
         "=ASSOC.REPORT(A1:D3; 0.05)"),
 ]
 

@@ -8,7 +8,7 @@ set -euo pipefail
 # window under a virtual X server (xvfb) for the visible test of the menu command.
 # clang-14 and libclang-rt-14-dev (its sanitizer and libFuzzer runtimes): the second compiler and the
 # fuzz targets of the test command (build-clang/); gcc's sanitizer runtimes come with g++.
-packages=(cmake g++ make libboost-math-dev libgtest-dev clang-14 libclang-rt-14-dev
+packages=(cmake g++ make libboost-math-dev libgtest-dev libicu-dev clang-14 libclang-rt-14-dev
           libreoffice-dev libreoffice-calc python3 python3-uno poppler-utils xvfb xauth)
 for arg in "$@"; do
   case "$arg" in

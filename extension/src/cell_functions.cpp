@@ -32,6 +32,7 @@
 #include "assoc/trend_test.hpp"
 #include "assoc_functions.hpp"
 #include "check.hpp"
+#include "office_collation.hpp"
 
 namespace assoc::calc {
 namespace {
@@ -141,13 +142,13 @@ Matrix counts(const CodedLabels& row_labels, const CodedLabels& column_labels, c
               LevelOrder order) {
     // The core gives a row and a column to every label of the ranges, also to one whose records were
     // all skipped (the other label blank), so the table lines up with ASSOC.LEVELS.
-    const RecordCounts counted = counts_from_records(row_labels, column_labels, weights, order);
+    const RecordCounts counted = counts_from_records(row_labels, column_labels, weights, order, office_collation());
     remark(counted.feedback());
     return counted.counts;
 }
 
 CellGrid levels(const CodedLabels& labels, LevelOrder order) {
-    const std::vector<Cell> distinct = distinct_levels(labels, order);
+    const std::vector<Cell> distinct = distinct_levels(labels, order, office_collation());
     CellGrid column(distinct.size(), 1);
     for (std::size_t i = 0; i < distinct.size(); ++i) column.at(i, 0) = distinct[i];
     return column;

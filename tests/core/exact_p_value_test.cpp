@@ -144,3 +144,22 @@ TEST(ExactPValue, StopsAtTheTimeLimitAndSuggestsASimulation) {
         EXPECT_NE(std::string(error.what()).find("more time than allowed"), std::string::npos) << error.what();
     }
 }
+
+// The tie margin (docs/guide.md, "Ties in the exact test"): a table up to 1e-7 (relative) more probable
+// than the observed one counts as no more probable. In [[9999, 10001], [10001, 10001]] the only more
+// probable table, a = 10000, is more probable by 10001² / (10000 · 10002) − 1 ≈ 1e-8 (exact ratio of
+// hypergeometric probabilities), so every table counts: p = 1, the sum of all probabilities (identity).
+TEST(ExactPValue, CountsATableUpTo1e7MoreProbableAsNoMoreProbable) {
+    EXPECT_NEAR_REL(exact_p_value(counts_table({{9999, 10001}, {10001, 10001}})), 1.0, 1e-12);
+}
+
+// Beyond the margin: in [[999, 1001], [1001, 1001]] the table a = 1000 is more probable by
+// 1001² / (1000 · 1002) − 1 ≈ 1e-6, so it alone is left out, and the two-sided p is the two tails
+// around it: P(a ≤ 999) + P(a ≥ 1001) (definition), the lower p of this table plus the upper p of
+// [[1001, 999], [999, 1003]] (checked against scipy and R by the tests above).
+TEST(ExactPValue, LeavesOutATableMoreProbableByMoreThanTheMargin) {
+    const double lower = exact_p_value(counts_table({{999, 1001}, {1001, 1001}}), Side::lower);
+    const double upper = exact_p_value(counts_table({{1001, 999}, {999, 1003}}), Side::upper);
+    EXPECT_NEAR_REL(exact_p_value(counts_table({{999, 1001}, {1001, 1001}})), lower + upper, 1e-12);
+    EXPECT_LT(lower + upper, 0.98);
+}

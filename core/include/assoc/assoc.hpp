@@ -37,5 +37,6 @@
 #include "assoc/selection_impact.hpp"
 #include "assoc/statistics.hpp"
 #include "assoc/strata.hpp"
+#include "assoc/text_collation.hpp"
 #include "assoc/trend_test.hpp"
 #include "assoc/validity.hpp"
