@@ -39,6 +39,11 @@ DATA = {
     "F14": [[18, 22, 20, 25, 15]], "F15": [[0.2, 0.2, 0.2, 0.2, 0.2]],
     # Selection impact: selected and considered per group.
     "F17": [[48, 30, 12]], "F18": [[80, 60, 40]],
+    # Strata in long form: branch, grade, yes, no.
+    "A25": [["Branch", "Grade", "Yes", "No"], ["North", "A", 12, 5], ["North", "B", 7, 9], ["South", "A", 8, 6],
+            ["South", "B", 3, 10]],
+    # Repeated answers: six people, three surveys (1 yes, 0 no).
+    "F21": [[1, 1, 0], [1, 0, 0], [1, 1, 1], [0, 0, 0], [1, 1, 0], [0, 1, 1]],
 }
 
 # One formula per function (and a few option words); "single" cells hold plain entries, "arrays" the
@@ -52,6 +57,7 @@ SINGLE = {
     "M13": '=ASSOC.STRATA(F1:J4; "uncorrected")', "M14": "=ASSOC.HOMOGENEITY(F1:J4)",
     "M15": "=ASSOC.PAIRED(F6:G7)", "M16": "=ASSOC.TREND(F9:I10; F12:I12)", "M17": "=ASSOC.RATEDIFF(A7:C9)",
     "M18": "=ASSOC.STRATARISK(F1:J4)", "M19": '=ASSOC.CHECK(A1:D4; "exact")', "M20": "=ASSOC.STATISTIC(A1:D4)",
+    "M21": "=ASSOC.ORDINAL(A1:D4)", "M22": "=ASSOC.WITHIN(A25:D29)", "M23": "=ASSOC.REPEATED(F21:H26)",
 }
 ARRAYS = {
     "O1:Q3": "=ASSOC.EXPECTED(A1:D4)", "O5:Q7": '=ASSOC.RESIDUALS(A1:D4; "adjusted")',
