@@ -94,8 +94,8 @@ bool everyday_numbers(std::initializer_list<const CellGrid*> grids);
 // A known finding that another branch is fixing (named in `what`, with where it was reported): true
 // (skip the check) outside strict mode, where it is noted once in the log; false in strict mode.
 bool known(const std::string& what);
-// Known (issue 9, item 1): Fisher's 2×2 test ignores its caps and takes seconds for totals in the
-// billions. True (skip) for a total above 1e7, outside strict mode.
+// Known (issue 9, item 1): Fisher's 2×2 test ignores its caps, and its cost grows with the total
+// (seconds for totals in the billions). True (skip) for a total above 1e6, outside strict mode.
 bool slow_two_by_two_exact(double total);
 
 // Known: the interval for Cramér's V calls Boost 1.74's noncentral chi-squared distribution, which
