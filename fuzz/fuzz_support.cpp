@@ -12,20 +12,21 @@
 namespace assoc::fuzz {
 namespace {
 
-// Every text of the current input: messages quote them, so a word or a number in a message is
-// only held against the core when the input did not supply it.
+// Every text of the current input: messages quote them (see check_message).
 std::vector<std::string> input_texts;
 
-bool input_has(const std::string& word) {
-    for (const std::string& text : input_texts)
-        if (text.find(word) != std::string::npos) return true;
-    return false;
-}
-
-bool input_has_digits() {
-    for (const std::string& text : input_texts)
-        if (text.find_first_of("0123456789") != std::string::npos) return true;
-    return false;
+// A text as messages may show it: as it is, without surrounding blanks, and with a first capital in
+// small letters (the report names "Department" "department" inside a sentence).
+void remember_text(const std::string& text) {
+    input_texts.push_back(text);
+    const std::size_t first = text.find_first_not_of(" \t");
+    if (first == std::string::npos) return;
+    std::string trimmed = text.substr(first, text.find_last_not_of(" \t") - first + 1);
+    if (trimmed[0] >= 'A' && trimmed[0] <= 'Z') {
+        input_texts.push_back(trimmed);
+        trimmed[0] = static_cast<char>(trimmed[0] - 'A' + 'a');
+    }
+    input_texts.push_back(trimmed);
 }
 
 Cell read_cell(const std::string& token) {
@@ -60,7 +61,7 @@ std::vector<CellGrid> read_sections(const std::uint8_t* data, std::size_t size) 
             for (;;) {
                 const std::size_t to = line.find(';', from);
                 row.push_back(read_cell(line.substr(from, to == std::string::npos ? std::string::npos : to - from)));
-                if (row.back().is_text()) input_texts.push_back(row.back().as_text());
+                if (row.back().is_text()) remember_text(row.back().as_text());
                 if (++cells >= max_input_cells || to == std::string::npos) break;
                 from = to + 1;
             }
@@ -139,16 +140,27 @@ void check_finite(const Matrix& values, const std::string& what) {
 
 void check_message(const std::string& message, const std::string& what) {
     if (message.empty()) finding(what + " gave an empty message");
-    // Words a library or the C++ runtime would write, never Assoc (unless the input's texts hold them).
-    for (const char* word : {"boost", "Boost", "Error in function", "%1%", "std::", "basic_string", "vector::",
-                             "bad_alloc", "stod", "out_of_range", "_M_"})
-        if (message.find(word) != std::string::npos && !input_has(word))
-            finding(what + " gave a library's message: " + message);
+    // Messages quote the input's texts and join them to words of their own, so only what lies outside
+    // every copy of an input text is held against the core.
+    std::vector<bool> quoted(message.size(), false);
+    for (const std::string& text : input_texts)
+        for (std::size_t at = text.empty() ? std::string::npos : message.find(text); at != std::string::npos;
+             at = message.find(text, at + 1))
+            std::fill(quoted.begin() + static_cast<std::ptrdiff_t>(at),
+                      quoted.begin() + static_cast<std::ptrdiff_t>(at + text.size()), true);
+    const auto own = [&](std::size_t at, std::size_t length) {
+        return std::none_of(quoted.begin() + static_cast<std::ptrdiff_t>(at),
+                            quoted.begin() + static_cast<std::ptrdiff_t>(at + length), [](bool q) { return q; });
+    };
+    // Words a library or the C++ runtime would write, never Assoc.
+    for (const std::string word : {"boost", "Boost", "Error in function", "%1%", "std::", "basic_string", "vector::",
+                                   "bad_alloc", "stod", "out_of_range", "_M_"})
+        for (std::size_t at = message.find(word); at != std::string::npos; at = message.find(word, at + 1))
+            if (own(at, word.size())) finding(what + " gave a library's message: " + message);
     // A number printed with all its digits is not formatted for reading.
-    if (input_has_digits()) return;
     std::size_t digits = 0;
-    for (char c : message) {
-        digits = (c >= '0' && c <= '9') ? digits + 1 : 0;
+    for (std::size_t i = 0; i < message.size(); ++i) {
+        digits = (message[i] >= '0' && message[i] <= '9' && !quoted[i]) ? digits + 1 : 0;
         if (digits > 17) finding(what + " gave a number with more than 17 digits: " + message);
     }
 }

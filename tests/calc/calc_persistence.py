@@ -174,7 +174,8 @@ class SavedWorkbooks(unittest.TestCase):
         run_scenario()
 
     def test_the_workbook_computes_every_function_without_an_error(self):
-        used = {name for row in Scenario.before[1] for formula in row for name in re.findall(r"FUNCTIONS\.(\w+)\(", formula)}
+        used = {name for row in Scenario.before[1] for formula in row
+                for name in re.findall(r"FUNCTIONS\.(\w+)\(", formula)}
         self.assertEqual(used, {f.name.split(".")[1] for f in generate.spec.FUNCTIONS})
         self.assertEqual({where: code for where, code in Scenario.before_errors.items() if code}, {})
 
@@ -188,7 +189,8 @@ class SavedWorkbooks(unittest.TestCase):
         # A fact of the host (LibreOffice 7.4), stated in the README: the cells show #MACRO?, with the
         # extension installed; saved again as .ods from there, the workbook computes again.
         formulas, codes, via_ods = Scenario.xls
-        self.assertEqual(upper(formulas, spaces=False), upper(Scenario.before[1], spaces=False))  # .xls drops the spaces
+        # .xls drops the spaces after the separators.
+        self.assertEqual(upper(formulas, spaces=False), upper(Scenario.before[1], spaces=False))
         self.assertEqual(set(codes.values()), {MACRO_ERROR})
         self.assertEqual(via_ods[0], Scenario.before[0])
         self.assertEqual(upper(via_ods[1], spaces=False), upper(Scenario.before[1], spaces=False))
