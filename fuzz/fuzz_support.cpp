@@ -18,9 +18,9 @@ std::vector<std::string> input_texts;
 // A text as messages may show it: as it is (up to a NUL), without surrounding blanks, and with a
 // first capital in small letters (the report names "Department" "department" inside a sentence).
 void remember_text(const std::string& text) {
-    // what() of an exception ends at a NUL: a message quotes a text only up to its first one.
+    // what() of an exception ends at a NUL: an error message quotes a text only up to its first one.
     const std::size_t nul = text.find('\0');
-    if (nul != std::string::npos) return remember_text(text.substr(0, nul));
+    if (nul != std::string::npos) remember_text(text.substr(0, nul));
     input_texts.push_back(text);
     const std::size_t first = text.find_first_not_of(" \t");
     if (first == std::string::npos) return;

@@ -27,6 +27,17 @@ double check_trend(const CellGrid& range, const CellGrid& scores) {
     return z;
 }
 
+// Known (issue 9; fixed on another branch): with a count far above the others (4e11 beside 5 and 10),
+// z loses digits to the mean score (relative error 3e-6), so rescaled scores move it. Skip the
+// identities for counts above 1e8, outside strict mode.
+bool digits_lost(const CellGrid& range) {
+    for (std::size_t r = 0; r < range.rows(); ++r)
+        for (std::size_t c = 0; c < range.columns(); ++c)
+            if (range.at(r, c).is_number() && range.at(r, c).as_number() > 1e8)
+                return known("the trend test's digits for a count far above the others");
+    return false;
+}
+
 }  // namespace
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
@@ -35,7 +46,7 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const CellGrid& scores = section(sections, 1);
     if (!everyday_numbers({&range, &scores})) return 0;
     const double z = check_trend(range, scores);
-    if (!std::isfinite(z)) return 0;
+    if (!std::isfinite(z) || digits_lost(range)) return 0;
 
     CellGrid stretched = scores;
     for (std::size_t r = 0; r < scores.rows(); ++r)
@@ -47,7 +58,7 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     }
     const double k = scale_factor(data, size);
     const CellGrid bigger = scaled(range, k);
-    if (!everyday_numbers({&bigger})) return 0;
+    if (!everyday_numbers({&bigger}) || digits_lost(bigger)) return 0;
     const double scaled_z = check_trend(bigger, scores);
     if (std::isfinite(scaled_z) && !close(scaled_z * scaled_z, k * z * z, 1e-7))
         finding("the trend statistic of the table times " + std::to_string(k) + " is not the statistic times that");
