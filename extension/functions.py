@@ -72,6 +72,9 @@ class Options:
     # Words of other functions that these arguments refuse with a specific message (not just
     # "unknown"), so that a mix-up explains itself.
     refused: Dict[str, str] = field(default_factory=dict)
+    # A C++ function that turns a range (an assoc::CellGrid) given instead of a word into cpp_type; ""
+    # when the argument takes words only.
+    from_range: str = ""
 
 
 @dataclass
@@ -156,10 +159,11 @@ ADJUSTMENTS = Options("adjustment", "adjustment", "assoc::PAdjustment", [
     Word("none", "no adjustment: each cell on its own", "assoc::PAdjustment::none"),
 ], include="assoc/p_value_adjustment.hpp")
 
-LEVEL_ORDERS = Options("level_order", "order", "assoc::LevelOrder", [
-    Word("sorted", "numbers ascending, then texts alphabetically", "assoc::LevelOrder::sorted"),
-    Word("first", "in the order in which the labels first appear", "assoc::LevelOrder::first_seen"),
-], include="assoc/levels.hpp")
+LEVEL_ORDERS = Options("level_order", "order", "assoc::LevelOrdering", [
+    Word("sorted", "numbers ascending, then texts alphabetically", "assoc::LevelOrdering(assoc::LevelOrder::sorted)"),
+    Word("first", "in the order in which the labels first appear",
+         "assoc::LevelOrdering(assoc::LevelOrder::first_seen)"),
+], include="assoc/levels.hpp", from_range="assoc::LevelOrdering::from_range")
 
 CONTINUITY = Options("continuity", "correction", "assoc::Continuity", [
     Word("corrected", "with the continuity correction of ½", "assoc::Continuity::corrected"),
@@ -363,28 +367,40 @@ FUNCTIONS = [
          Argument("column_labels", "labels",
                   "One row or column of labels, as long as row_labels: the columns of the table."),
          Argument("weights", "optional_range",
-                  "Optional. One number of 0 or more per record, as long as the labels; each record counts once "
-                  "when omitted."),
-         Argument("order", "option", "Optional. The order of the rows and columns.", options=LEVEL_ORDERS)],
+                  "Optional. One number of 0 or more per record, as long as the labels: how many people or items "
+                  "the record stands for (a frequency weight, never an amount such as pay); a record with a blank "
+                  "weight is skipped. Each record counts once when omitted."),
+         Argument("order", "option", "Optional. The order of the rows and columns: a range that lists the labels "
+                                     "in the wanted order (an answer scale: Poor, Fair, Good, Excellent), or a word.",
+                  options=LEVEL_ORDERS)],
         "array", "the counts only, one row per label of ASSOC.LEVELS(row_labels) and one column per label of "
                  "ASSOC.LEVELS(column_labels), in the same order",
         ["The result holds no labels, so it can go straight into the other ASSOC functions. For a table with "
          "headers, put ASSOC.LEVELS(row_labels) in the column to its left and "
          "TRANSPOSE(ASSOC.LEVELS(column_labels)) in the row above it (both with the same order), and give the "
          "whole block to ASSOC.REPORT.",
-         "A record with a blank label is skipped. Labels are compared exactly: \"Sales\", \"sales\" and "
-         "\"Sales \" are three labels (ASSOC.CHECK with \"counts\" points out labels that differ only in "
-         "capitals), and the number 5 and the text \"5\" are two. A label whose records are all skipped gets a "
-         "row (or column) of zeros, which the other functions set aside."],
+         "A record with a blank label (or a blank weight) is skipped. Labels that differ only by spaces at "
+         "their start or end are one label (\"No\" and \"No \"); otherwise labels are compared exactly: "
+         "\"Sales\" and \"sales\" are two labels, and the number 5 and the text \"5\" are two (ASSOC.CHECK "
+         "with \"counts\" points out both). A label whose records are all skipped gets a row (or column) of "
+         "zeros, which the other functions set aside.",
+         "Whole columns (B:B) may be given: the blank cells below the last record are no records, and a first "
+         "cell that holds a text found nowhere else in the column is its header and is left out (ASSOC.CHECK "
+         "says so). A weight that is negative, or text, is an error that names its row."],
         "=ASSOC.COUNTS(B2:B200; C2:C200)"),
     Function(
         "ASSOC.LEVELS", "levels",
         "The distinct labels of a row or column of records, blanks left out: the row or column headers of "
         "ASSOC.COUNTS.",
         [Argument("labels", "labels", "One row or column of labels, one per record."),
-         Argument("order", "option", "Optional. The order of the labels.", options=LEVEL_ORDERS)],
+         Argument("order", "option", "Optional. The order of the labels: a range that lists them in the wanted "
+                                     "order (an answer scale: Poor, Fair, Good, Excellent), or a word.",
+                  options=LEVEL_ORDERS)],
         "cells", "a column of labels (numbers stay numbers)",
-        ["Use TRANSPOSE(ASSOC.LEVELS(…)) for a row."],
+        ["Use TRANSPOSE(ASSOC.LEVELS(…)) for a row, and ROWS(ASSOC.LEVELS(…)) for the number of labels (the "
+         "size of the range to select for the array). With an order range, every label it lists is a level, "
+         "also one that no record holds, and a label it lacks is an error that names it. Labels are read as "
+         "ASSOC.COUNTS reads them (spaces at the ends left out, a whole column's header left out)."],
         "=ASSOC.LEVELS(B2:B200)"),
     Function(
         "ASSOC.STRATA", "strata",

@@ -286,6 +286,8 @@ def read_argument(argument):
     if argument.kind == "number":
         fallback = "std::nullopt" if argument.default is None else repr(float(argument.default))
         return f'read_number({argument.name}, "{argument.name}", {fallback})'
+    if argument.kind == "option" and argument.options.from_range:
+        return f"{words_variable(argument.options)}.read({argument.name}, {argument.options.from_range})"
     if argument.kind == "option":
         return f"{words_variable(argument.options)}.read({argument.name})"
     return f"to_cell({argument.name})"
@@ -296,11 +298,13 @@ def trial_body(function, option_argument=None, word=None):
     whole range, one with several gets a column each, one without ranges reads its numbers from the
     cells; everything else takes its default (or `word` for `option_argument`)."""
     ranges = ranges_of(function)
+    optional = [a for a in function.arguments if a.kind == "optional_range"]
     numbers = [a for a in function.arguments if a.kind == "number"]
     name = cpp_string(function.name)
     statements = []
     if len(ranges) > 1:
-        statements.append(f"const auto parts = split_columns(range, {len(ranges)}, {name});")
+        # Side by side: one column per range, then (when given) one per optional range (COUNTS' weights).
+        statements.append(f"const auto parts = split_columns(range, {len(ranges)}, {len(optional)}, {name});")
     if not ranges:
         required = sum(1 for a in numbers if a.default is None)
         names = ", ".join(cpp_string(a.name) for a in numbers)
@@ -310,6 +314,8 @@ def trial_body(function, option_argument=None, word=None):
         if argument.kind in REQUIRED_RANGE_KINDS:
             part = "range" if len(ranges) == 1 else f"parts[{ranges.index(argument)}]"
             values.append(f"assoc::code_labels({part})" if argument.kind == "labels" else part)
+        elif argument.kind == "optional_range" and len(ranges) > 1:
+            values.append(f"parts[{len(ranges) + optional.index(argument)}]")
         elif argument.kind == "optional_range":
             values.append("assoc::CellGrid()")
         elif argument.kind == "number" and ranges:

@@ -136,6 +136,7 @@ CellGrid to_cell_grid(const AnyTable& range) {
                 " cells up to its last value; Assoc reads tables of at most " + format_count(static_cast<double>(cap)) +
                 " counts");
     CellGrid grid(rows, used.columns);
+    grid.set_given_shape(all_rows, columns);  // a whole column keeps its height here (see CellGrid)
     TextCells texts;
     for (std::size_t r = 0; r < rows; ++r) {
         const Sequence<Any>& row = range[static_cast<sal_Int32>(r)];
@@ -212,6 +213,7 @@ CodedLabels to_coded_labels(const AnyTable& range) {
         for (const Any& value : row) coded.codes.push_back(coder.code(value));
     }
     coded.spellings = coder.take_spellings();
+    coded.whole_line = is_whole_line(coded.rows, coded.columns);
     return coded;
 }
 
@@ -256,6 +258,17 @@ Any to_any(const Matrix& values) {
 Any to_any(const std::string& text) { return Any(to_ou_string(text)); }
 
 Any to_any(const CellGrid& cells) {
+    bool all_text = true;
+    for (std::size_t r = 0; r < cells.rows() && all_text; ++r)
+        for (std::size_t c = 0; c < cells.columns(); ++c) all_text = all_text && !cells.at(r, c).is_number();
+    if (all_text) {
+        Sequence<Sequence<OUString>> texts(static_cast<sal_Int32>(cells.rows()));
+        for (std::size_t r = 0; r < cells.rows(); ++r) {
+            texts.getArray()[r].realloc(static_cast<sal_Int32>(cells.columns()));
+            for (std::size_t c = 0; c < cells.columns(); ++c) texts.getArray()[r].getArray()[c] = to_ou_string(cells.at(r, c).as_text());
+        }
+        return Any(texts);
+    }
     Sequence<Sequence<Any>> result(static_cast<sal_Int32>(cells.rows()));
     Sequence<Any>* rows = result.getArray();
     for (std::size_t r = 0; r < cells.rows(); ++r) {

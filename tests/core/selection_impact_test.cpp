@@ -60,9 +60,21 @@ TEST(SelectionImpact, ComesWithACaution) {
     EXPECT_NE(selection_impact_caution().find("not proof of discrimination"), std::string::npos);
 }
 
-TEST(SelectionImpact, RejectsAGroupWithNobodyConsidered) {
+TEST(SelectionImpact, LeavesAGroupWithNobodyConsideredEmptyAndComparesTheOthers) {
+    const SelectionImpact impact = selection_impact(grid({{5}, {0}, {3}}), grid({{10}, {0}, {12}}));
+    ASSERT_EQ(impact.groups.size(), 3u);
+    EXPECT_FALSE(impact.groups[1].has_rate);
+    EXPECT_EQ(impact.groups[1].flag, "no one considered: no selection rate");
+    EXPECT_EQ(impact.groups[0].impact_ratio, 1.0);
+    EXPECT_EQ(impact.groups[2].impact_ratio, 0.5);  // (3/12) / (5/10), exact
+    EXPECT_EQ(impact.remarks, (std::vector<std::string>{
+                                  "No one is considered in the group in row 2, so its row of the result is left empty "
+                                  "(no selection rate); the other groups were compared."}));
+}
+
+TEST(SelectionImpact, RejectsFewerThanTwoGroupsWithPeopleConsidered) {
     expect_error([] { selection_impact(grid({{5}, {0}}), grid({{10}, {0}})); },
-                 "group 2 has 0 people considered, so it has no selection rate; leave it out");
+                 "comparing selection rates needs at least 2 groups with people considered; only 1 group has any");
 }
 
 TEST(SelectionImpact, RejectsAllRatesZero) {
@@ -72,7 +84,7 @@ TEST(SelectionImpact, RejectsAllRatesZero) {
 
 TEST(SelectionImpact, RejectsMoreSelectedThanConsidered) {
     expect_error([] { selection_impact(grid({{5}, {13}}), grid({{10}, {12}})); },
-                 "group 2 has more selected (13) than considered (12)");
+                 "the group in row 2 has more selected (13) than considered (12)");
 }
 
 TEST(SelectionImpact, RejectsRangesOfDifferentLengths) {
@@ -82,7 +94,8 @@ TEST(SelectionImpact, RejectsRangesOfDifferentLengths) {
 
 TEST(SelectionImpact, RejectsTextWhereACountIsNeeded) {
     expect_error([] { selection_impact(grid({{5}, {"few"}}), grid({{10}, {12}})); },
-                 "the selected count of group 2 is the text \"few\"; give a number of 0 or more");
+                 "the selected count of the group in row 2 is the text \"few\"; give a number of 0 or more (leave "
+                 "both cells blank for a group without counts)");
 }
 
 TEST(SelectionImpact, RejectsAThresholdAboveOne) {
