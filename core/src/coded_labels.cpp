@@ -12,7 +12,14 @@ CodedLabels code_labels(const CellGrid& range) {
     coded.rows = range.rows();
     coded.columns = range.columns();
     coded.whole_line = is_whole_line(range.given_rows(), range.given_columns());
-    coded.codes.reserve(range.rows() * range.columns());
+    // A single row or column that lost its trailing blanks is coded at its given length, the blanks
+    // restored, so that it stays as long as the other ranges of its call.
+    const bool single_line = range.given_rows() == 1 || range.given_columns() == 1;
+    if (single_line && !range.empty()) {
+        coded.rows = range.given_rows();
+        coded.columns = range.given_columns();
+    }
+    coded.codes.reserve(coded.rows * coded.columns);
     // Equal cells share one spelling (exactly equal: "No" and "No " are two spellings of one level,
     // which the readers merge and point out). Texts are keyed by views into `range`, which outlives
     // the maps.
@@ -32,6 +39,7 @@ CodedLabels code_labels(const CellGrid& range) {
             if (code == next) coded.spellings.push_back(cell);
             coded.codes.push_back(code);
         }
+    coded.codes.resize(coded.rows * coded.columns, CodedLabels::blank);
     return coded;
 }
 

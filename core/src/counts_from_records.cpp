@@ -101,8 +101,23 @@ RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabel
         }
     }
     require(result.skipped_blank < result.records, "every record has a blank label, so there is nothing to count");
-    const std::string row_unused = rows.index().add_listed(order, "row labels");
-    const std::string column_unused = columns.index().add_listed(order, "column labels");
+    // A listed order orders the side(s) whose labels it lists; a side of which it lists none is sorted.
+    std::vector<std::string> order_remarks;
+    const auto side_order = [&](detail::LevelIndex& index, const char* what) {
+        if (order.order != LevelOrder::listed) return order;
+        if (!index.any_listed(order)) {
+            order_remarks.push_back(std::string("The order lists none of the ") + what + ", so they were sorted.");
+            return LevelOrdering(LevelOrder::sorted);
+        }
+        const std::string unused = index.add_listed(order, what);
+        if (!unused.empty()) order_remarks.push_back(unused);
+        return order;
+    };
+    const LevelOrdering row_order = side_order(rows.index(), "row labels");
+    const LevelOrdering column_order = side_order(columns.index(), "column labels");
+    require(row_order.order == order.order || column_order.order == order.order,
+            "the order lists none of the row labels and none of the column labels; list the labels of the rows or "
+            "of the columns in the wanted order");
     const detail::LevelIndex& row_index = rows.index();
     const detail::LevelIndex& column_index = columns.index();
 
@@ -113,8 +128,8 @@ RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabel
                 " cells; Assoc builds tables of at most " + count_text(max_cells) + " cells");
 
     // Second, allocation-free pass: add each record to its cell at the listed position.
-    const std::vector<std::uint32_t> row_position = row_index.positions(order);
-    const std::vector<std::uint32_t> column_position = column_index.positions(order);
+    const std::vector<std::uint32_t> row_position = row_index.positions(row_order);
+    const std::vector<std::uint32_t> column_position = column_index.positions(column_order);
     result.counts = Matrix(row_index.size(), column_index.size());
     for (std::size_t i = span.first; i < span.end; ++i) {
         if (row_of[i] == skipped) continue;
@@ -139,11 +154,10 @@ RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabel
         result.whole_counts = result.whole_counts && count == std::floor(count);
     }
     require(std::isfinite(result.total), "the weights add up to more than a spreadsheet number can hold");
-    result.row_levels = row_index.listed(order);
-    result.column_levels = column_index.listed(order);
+    result.row_levels = row_index.listed(row_order);
+    result.column_levels = column_index.listed(column_order);
     result.remarks = span.remarks;
-    for (const std::string* unused : {&row_unused, &column_unused})
-        if (!unused->empty()) result.remarks.push_back(*unused);
+    for (std::string& remark : order_remarks) result.remarks.push_back(std::move(remark));
     for (std::string& remark : row_index.lookalike_remarks("row labels")) result.remarks.push_back(std::move(remark));
     for (std::string& remark : column_index.lookalike_remarks("column labels")) result.remarks.push_back(std::move(remark));
     return result;

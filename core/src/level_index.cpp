@@ -20,6 +20,12 @@ std::uint32_t LevelIndex::find(const Cell& label) const {
     return where == numbers_.end() ? none : where->second;
 }
 
+bool LevelIndex::any_listed(const LevelOrdering& order) const {
+    for (const Cell& label : order.listed)
+        if (find(label) != none) return true;
+    return false;
+}
+
 std::string LevelIndex::add_listed(const LevelOrdering& order, const std::string& what) {
     if (order.order != LevelOrder::listed) return "";
     LevelIndex list;
@@ -80,12 +86,14 @@ std::vector<std::string> LevelIndex::lookalike_remarks(const std::string& what) 
 
     // Texts merged because they differ only by spaces at their ends.
     if (space_merges_ > 0) {
-        // The spaces are what the reader must see, so the second spelling is shown as typed (when short).
-        const std::string& typed = first_space_merge_.second;
-        const std::string shown = typed.size() <= 40 ? "\"" + typed + "\"" : quoted_label(typed);
-        std::string remark = "The " + what + " " + quoted_label(first_space_merge_.first) + " and " + shown +
-                             " differ only by spaces at the start or end and were "
-                             "counted as one label, " + quoted_label(first_space_merge_.first);
+        // The spaces are what the reader must see, so both spellings are shown as typed (when short).
+        const auto as_typed = [](const std::string& typed) {
+            return typed.size() <= 40 ? "\"" + typed + "\"" : quoted_label(typed);
+        };
+        std::string remark = "The " + what + " " + as_typed(first_space_merge_.first) + " and " +
+                             as_typed(first_space_merge_.second) +
+                             " differ only by spaces at the start or end and were counted as one label, " +
+                             quoted_label(first_space_merge_.first);
         if (space_merges_ > 1)
             remark += "; so were " + format_count(static_cast<double>(space_merges_ - 1)) +
                       (space_merges_ == 2 ? " other spelling" : " other spellings") + " with spaces at the start or end";

@@ -51,6 +51,8 @@ public:
 
     std::size_t size() const { return levels_.size(); }
 
+    // Whether any level is among the labels of a listed order.
+    bool any_listed(const LevelOrdering& order) const;
     // For a listed order: refuses the levels the list lacks (an Error naming them), then adds the listed
     // labels that no record holds as levels of their own. Returns a sentence naming those (or "").
     // `order` must outlive the index. `what` is e.g. "row labels".

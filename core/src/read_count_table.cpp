@@ -92,7 +92,15 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
             }
             // The message is built only on failure: tables can have a million cells.
             auto fail = [&](const char* reason) {
-                throw Error(cell_name(range_row, range_column) + " holds " + cell.describe() + reason);
+                // Rows and columns of the range as selected, with their labels where the range has them.
+                const auto label = [](const Cell& header) {
+                    return header.is_text() && !trimmed_label(header.as_text()).empty()
+                               ? " (" + quoted_label(header.as_text()) + ")"
+                               : std::string();
+                };
+                const std::string row = "row " + std::to_string(range_row + 1) + (header_column ? label(range.at(range_row, 0)) : "");
+                const std::string column = "column " + std::to_string(range_column + 1) + (header_row ? label(range.at(0, range_column)) : "");
+                throw Error(row + ", " + column + " holds " + cell.describe() + reason);
             };
             if (!cell.is_number()) fail("; counts must be numbers");
             const double value = cell.as_number();

@@ -181,9 +181,11 @@ std::string describe_side(const char* side, bool has_labels, const std::vector<s
     return text + " (" + names + ")";
 }
 
-std::string two_decimals(double value) {
+// Cramér's V as a memo writes it: 0.10, 0.35; below 0.1 with two significant digits (0.0017).
+std::string v_in_words(double value) {
     char buffer[32];
-    std::snprintf(buffer, sizeof buffer, "%.2f", value);
+    if (value >= 0.1 || value == 0) std::snprintf(buffer, sizeof buffer, "%.2f", value);
+    else std::snprintf(buffer, sizeof buffer, "%.2g", value);
     return buffer;
 }
 
@@ -206,7 +208,7 @@ void add_conclusion(const Findings& f, Lines& lines) {
         const std::string strength = strength_in_words(v, f.table);
         const bool small = strength == "very weak" || strength == "weak";
         text += std::string(small ? ", but the association is " : ", and the association is ") + strength +
-                ": Cramér's V is " + two_decimals(v) + " (" + strength_bands() + ").";
+                ": Cramér's V is " + v_in_words(v) + " (" + strength_bands() + ").";
     }
     if (f.v_interval.value && f.v_interval.value->upper == 0)
         text += " Cramér's V's 95% interval is 0 to 0 because X² is smaller than independence itself gives in 97.5% of "

@@ -58,6 +58,9 @@ public:
         given_columns_ = columns;
     }
     Cell& at(std::size_t row, std::size_t column) { return cells_[row * columns_ + column]; }
+    // The cells row by row.
+    std::vector<Cell>::const_iterator begin() const { return cells_.begin(); }
+    std::vector<Cell>::const_iterator end() const { return cells_.end(); }
     const Cell& at(std::size_t row, std::size_t column) const { return cells_[row * columns_ + column]; }
 
 private:
