@@ -86,8 +86,10 @@ std::vector<std::size_t> columns_matching_rows(const CountTable& read, std::vect
         if (!rows_only.empty()) parts.push_back("the rows have " + name_list(rows_only, 4) + ", which no column has");
         if (!columns_only.empty())
             parts.push_back("the columns have " + name_list(columns_only, 4) + ", which no row has");
-        throw Error("a paired table needs the same categories as rows and as columns, matched by their labels; " +
-                    name_list(parts) + ". Give the rows and the columns the same labels");
+        std::string found;
+        for (const std::string& part : parts) found += "; " + part;
+        throw Error("a paired table needs the same categories as rows and as columns, matched by their labels" + found +
+                    ". Give the rows and the columns the same labels");
     }
     if (column_of_row != same_place) {
         std::vector<std::string> order;

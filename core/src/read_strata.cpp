@@ -186,7 +186,12 @@ Strata read_strata(const CellGrid& given) {
         } else if (all_labelled) {
             const std::vector<Block> runs = blocks_from_runs(labels);
             const std::size_t repeat = period(labels);
-            if (runs.size() < rows) {
+            // Runs of one name name the strata when no name comes back in a later run.
+            std::vector<std::string> run_names;
+            for (const Block& run : runs) run_names.push_back(folded_label(run.name));
+            std::sort(run_names.begin(), run_names.end());
+            const bool names_strata = std::adjacent_find(run_names.begin(), run_names.end()) == run_names.end();
+            if (runs.size() < rows && names_strata) {
                 blocks = runs;
                 require_pairs(blocks, labels, numbers, "the strata are told apart by their names in the label column");
             } else if (repeat > 0) {

@@ -102,3 +102,24 @@ TEST(SelectionImpact, RejectsAThresholdAboveOne) {
     expect_error([] { selection_impact(grid({{5}, {3}}), grid({{10}, {12}}), 80); },
                  "the threshold must be above 0 and at most 1 (0.8 for four-fifths), not 80");
 }
+
+// Workbook ranges: a header in row 1, whole columns ending in blanks, a group without counts.
+TEST(SelectionImpact, ReadsHeadersAndLeavesOutTheBlanksAfterTheLastGroup) {
+    CellGrid selected = grid({{"Selected"}, {12}, {nullptr}, {5}, {9}});
+    CellGrid considered = grid({{"Considered"}, {40}, {nullptr}, {30}, {20}});
+    selected.set_given_shape(1'048'576, 1);
+    considered.set_given_shape(1'048'576, 1);
+    const SelectionImpact impact = selection_impact(selected, considered);
+    ASSERT_EQ(impact.groups.size(), 4u);
+    EXPECT_FALSE(impact.groups[1].has_rate);
+    EXPECT_EQ(impact.groups[1].flag, "no counts: no selection rate");
+    EXPECT_EQ(impact.highest_group, 3u);  // 9/20 = 0.45 is the highest rate
+    EXPECT_EQ(impact.remarks.front(), "Row 1 holds text and was read as a header; the result has one row per group "
+                                      "below it.");
+}
+
+TEST(SelectionImpact, RefusesAGroupWithOnlyOneOfItsCountsNamingItsRow) {
+    expect_error([] { selection_impact(grid({{"Selected"}, {12}, {nullptr}}), grid({{"Considered"}, {40}, {30}})); },
+                 "the selected count of the group in row 3 is blank; give a number of 0 or more (leave both cells "
+                 "blank for a group without counts)");
+}
