@@ -95,8 +95,9 @@ std::vector<std::string> LevelIndex::lookalike_remarks(const std::string& what) 
                              " differ only by spaces at the start or end and were counted as one label, " +
                              quoted_label(first_space_merge_.first);
         if (space_merges_ > 1)
-            remark += "; so were " + format_count(static_cast<double>(space_merges_ - 1)) +
-                      (space_merges_ == 2 ? " other spelling" : " other spellings") + " with spaces at the start or end";
+            remark += space_merges_ == 2 ? "; so was 1 other spelling with spaces at the start or end"
+                                         : "; so were " + format_count(static_cast<double>(space_merges_ - 1)) +
+                                               " other spellings with spaces at the start or end";
         remarks.push_back(remark + ".");
     }
 
