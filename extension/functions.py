@@ -189,7 +189,7 @@ TABLE = Argument(
     "table", "table",
     "The range of counts: one row per category of one variable, one column per category of the other. "
     "A first row and a first column of text labels are read as headers. Blank cells count as 0; "
-    "rows and columns of zeros are set aside.")
+    "rows and columns of zeros, and rows and columns labelled as totals, are set aside.")
 
 TWO_BY_TWO = Argument(
     "table", "table",
@@ -207,7 +207,8 @@ STRATA_RANGE = Argument(
     "strata", "range",
     "The 2×2 tables of the strata (for example one per department): either one row per stratum with its "
     "four counts a, b, c, d (row 1: a, b; row 2: c, d), or the 2×2 tables stacked in two columns. A first "
-    "row and a first column of text labels are read as headers.")
+    "row and a first column of text labels are read as headers; stacked tables may name their strata in a "
+    "label column before the group labels.")
 
 
 FUNCTIONS = [
@@ -396,7 +397,8 @@ FUNCTIONS = [
          Argument("order", "option", "Optional. The order of the labels: a range that lists them in the wanted "
                                      "order (an answer scale: Poor, Fair, Good, Excellent), or a word.",
                   options=LEVEL_ORDERS)],
-        "cells", "a column of labels (numbers stay numbers)",
+        "cells", "a column of labels (numbers stay numbers); labels that are all texts compare equal to typed "
+                 "text in `=`, MATCH, VLOOKUP, COUNTIF and EXACT",
         ["Use TRANSPOSE(ASSOC.LEVELS(…)) for a row, and ROWS(ASSOC.LEVELS(…)) for the number of labels (the "
          "size of the range to select for the array). With an order range, every label it lists is a level, "
          "also one that no record holds, and a label it lacks is an error that names it. Labels are read as "
@@ -414,7 +416,13 @@ FUNCTIONS = [
         ["The common odds ratio compares the odds of column 1 in row 1 with those in row 2, the same in every "
          "stratum. Strata without counts in both rows and both columns add nothing and are left out "
          "(ASSOC.CHECK with \"strata\" names them). ASSOC.HOMOGENEITY tests whether one common odds ratio fits "
-         "all strata."],
+         "all strata.",
+         "In stacked tables the labels tell which rows form a stratum: a first label column that names the "
+         "strata (blank meaning \"as above\"), a stratum's name on its first row, its name on each of its rows, "
+         "or group labels that repeat (Women, Men, Women, Men). A stratum that does not have exactly 2 rows is "
+         "an error that names it and its rows; a stratum whose groups come in the other order is matched by "
+         "their labels. Without labels (or with labels that are all different) the rows are taken two by two, "
+         "and ASSOC.CHECK says so when there are labels. Rows labelled as totals are left out."],
         "=ASSOC.STRATA(A1:E7)"),
     Function(
         "ASSOC.HOMOGENEITY", "homogeneity",
@@ -435,7 +443,10 @@ FUNCTIONS = [
         "row", "one row: the p-value, the statistic, the degrees of freedom; a plain entry shows the p-value",
         ["With \"exact\" the statistic is the smaller of the two counts of changes and the degrees of freedom "
          "are 0 (a binomial test has none). Rows and columns of zeros are kept, since row i and column i must "
-         "stay the same category."],
+         "stay the same category; rows and columns labelled as totals are left out.",
+         "When both the rows and the columns carry labels, the columns are matched to the rows by their labels "
+         "(spaces at the ends and capitals aside), whatever their order; labels that do not match are an error "
+         "that names them. With labels on one side only, the columns must come in the rows' order."],
         "=ASSOC.PAIRED(A1:C3)"),
     Function(
         "ASSOC.TREND", "trend",
@@ -455,14 +466,21 @@ FUNCTIONS = [
         "ASSOC.IMPACT", "impact",
         "Selection rates by group and their ratio to the highest group's rate, flagging groups below a "
         "threshold (four-fifths by default).",
-        [Argument("selected", "range", "One row or column: the number selected in each group."),
+        [Argument("selected", "range", "One row or column: the number selected in each group; a text header "
+                                       "at its start is allowed."),
          Argument("considered", "range", "One row or column as long as selected: the number considered "
-                                         "(applicants, candidates) in each group."),
+                                         "(applicants, candidates) in each group; a text header at its start is "
+                                         "allowed."),
          Argument("threshold", "number", "Optional. The ratio below which a group is flagged, above 0 and at "
                                          "most 1; 0.8 (four-fifths) when omitted.", default=0.8)],
         "cells", "one row per group: the selection rate, the ratio to the highest rate, and a flag text when the "
-                 "ratio is below the threshold (empty otherwise); enter it over 3 columns and one row per group",
-        ["The four-fifths rule of thumb comes from the US Uniform Guidelines on Employee Selection Procedures, "
+                 "ratio is below the threshold (empty otherwise); a group with no one considered has an empty rate "
+                 "and ratio and its reason as the text; enter it over 3 columns and one row per group",
+        ["A header in the first cells is left out, and so are the blank cells after the last group (whole columns "
+         "such as B:B may be given); the result has one row per group below the header. A group whose two cells "
+         "are blank, or with 0 considered, has no selection rate: its row is left empty with its reason, and the "
+         "other groups are compared.",
+         "The four-fifths rule of thumb comes from the US Uniform Guidelines on Employee Selection Procedures, "
          "29 CFR 1607.4(D). It is a screening rule, not a test: with few people a large difference can be "
          "chance, and with many a small one can matter. Follow applicable law and policy and seek qualified "
          "advice."],
@@ -484,8 +502,14 @@ FUNCTIONS = [
          "with its defaults is left out when another one can). The verdict on the chi-squared test is given "
          "for functions that take a table of counts for the test of independence.",
          "For a function that takes two ranges (ASSOC.COUNTS, ASSOC.IMPACT), give ASSOC.CHECK one range with "
-         "the two side by side as columns, in the order of the arguments; for one that takes only numbers "
-         "(ASSOC.POWER), give its numbers in one row or column."],
+         "the two side by side as columns, in the order of the arguments (for ASSOC.COUNTS a third column of "
+         "weights may follow); for one that takes only numbers (ASSOC.POWER), give its numbers in one row or "
+         "column.",
+         "The verdict is \"Doubtful\" whenever the table itself is ambiguous, whatever its expected counts: "
+         "counts that are not whole numbers (weighted data), a line labelled as data that holds the sum of the "
+         "others, rows that each add up to exactly 100. It names the rows and columns set aside (empty ones and "
+         "totals) in a short summary, and points to ASSOC.PAIRED when the rows and the columns carry the same "
+         "labels. An unknown word gets the nearest words Assoc knows."],
         '=ASSOC.CHECK(A1:D3; "exact")'),
     Function(
         "ASSOC.REPORT", "report",
@@ -496,11 +520,21 @@ FUNCTIONS = [
         "cells", "a two-column array of labels and values, one row per line of the report (22 lines); enter it "
                  "as an array formula over 2 columns and 22 rows",
         ["When the corner cell of a table with both headers names the variables as \"rows / columns\" "
-         "(for example \"Department / Outcome\"), the conclusion uses those names.",
+         "(for example \"Department / Outcome\"), the conclusion uses those names; a corner without \"/\" is "
+         "a title and is not used.",
+         "When independence is rejected, the conclusion says how strong the association is, in words, from "
+         "Cramér's V turned into Cohen's w = V·√(min(rows, columns) − 1): below 0.1 very weak, from 0.1 weak, "
+         "from 0.3 moderate, from 0.5 strong (Cohen's conventions for w, 1988; \"very weak\" for less than "
+         "small is common practice). So a tiny p-value from a very large table can read \"very weak\". When "
+         "the interval of V is 0 to 0 (X² below the 2.5% point of its distribution under independence), the "
+         "conclusion explains it.",
          "The exact p-value is computed when the counts are whole and the test finishes within 2 seconds and "
          "100 MB of memory; otherwise its line says why not (ASSOC.EXACT allows 5 seconds and 400 MB, "
          "ASSOC.SIMULATE estimates the p-value). The cells "
          "that stand out are the (at most 3) cells with the largest adjusted residuals beyond ±2, named by "
-         "their labels."],
+         "their labels (or by their row and column in the range); in a table of two columns (rows) only the "
+         "first column's (row's) cells are named, since the other's only repeat them with the sign turned.",
+         "In LibreOffice 7.4 the texts of the report compare unequal to typed text (it also holds numbers; see "
+         "the guide's workbook habits): use G5&\"\" to compare a line's label or text."],
         "=ASSOC.REPORT(A1:D3; 0.05)"),
 ]

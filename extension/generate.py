@@ -427,6 +427,17 @@ category of the other.
   a header column. Labels are used in messages and in the conclusion of `ASSOC.REPORT`.
 - Blank cells count as 0. A row or column of zeros is set aside: it takes no part in the test and is
   mentioned by `ASSOC.CHECK`. Array results keep the shape of the body and show 0 there.
+- Totals are never tested as counts. A row or column labelled as a total ("Total", "Grand total",
+  "Subtotal", "Sum", "All", "Summe", "Gesamt", "Somme", "Totale", "Totaal", "Totalt", … in any case) is
+  set aside like an empty one. A first or last row or column without a label that holds the sum of the
+  others is refused (label it "Total", or leave it out); one labelled as data is kept and makes the
+  verdict of `ASSOC.CHECK` "Doubtful".
+- Percentages and shares are not counts: rows (or columns) that each add up to 100 or to 1, or a table
+  that adds up to 100 or 1, with entries that are not whole numbers, are refused. Counts that are not
+  whole numbers (weighted data) are never called "Sound".
+- Labels are read without the spaces at their start and end. Messages count rows and columns of the
+  range as selected, a header row or column being number 1, and name them by their labels where the
+  range has labels.
 - Text among the counts, negative counts, and a table with fewer than 2 rows or 2 columns holding
   counts are errors.
 - Trailing blank rows and columns are not part of a range: a whole-column reference (`A:E`), a
@@ -443,7 +454,7 @@ Option words may be written in upper or lower case; an omitted option takes the 
 (where the choice depends on the table, the function says so).
 When a function cannot compute a result for its input it shows **Err:502**. `ASSOC.CHECK` with the
 same table (and the same option word) explains why in plain words. An unknown option word is such an
-error; its message lists the accepted words.
+error; its message names the nearest accepted words.
 
 Functions that return several values (arrays, or one row of parts with the headline value first) are
 entered as array formulas (Ctrl+Shift+Enter) over a range of the right size; entered in a single
