@@ -65,7 +65,8 @@ double checked_weight(const Cell& cell, const CodedLabels& shape, std::size_t i)
 }  // namespace
 
 RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabels& column_labels,
-                                 const CellGrid& weights, const LevelOrdering& order, std::size_t max_cells) {
+                                 const CellGrid& weights, const LevelOrdering& order, const TextCollation& collation,
+                                 std::size_t max_cells) {
     detail::CodedLevels rows(row_labels, "row labels");
     detail::CodedLevels columns(column_labels, "column labels");
     require(rows.records() == columns.records(),
@@ -128,8 +129,8 @@ RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabel
                 " cells; Assoc builds tables of at most " + count_text(max_cells) + " cells");
 
     // Second, allocation-free pass: add each record to its cell at the listed position.
-    const std::vector<std::uint32_t> row_position = row_index.positions(row_order);
-    const std::vector<std::uint32_t> column_position = column_index.positions(column_order);
+    const std::vector<std::uint32_t> row_position = row_index.positions(row_order, collation);
+    const std::vector<std::uint32_t> column_position = column_index.positions(column_order, collation);
     result.counts = Matrix(row_index.size(), column_index.size());
     for (std::size_t i = span.first; i < span.end; ++i) {
         if (row_of[i] == skipped) continue;
@@ -154,8 +155,8 @@ RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabel
         result.whole_counts = result.whole_counts && count == std::floor(count);
     }
     require(std::isfinite(result.total), "the weights add up to more than a spreadsheet number can hold");
-    result.row_levels = row_index.listed(row_order);
-    result.column_levels = column_index.listed(column_order);
+    result.row_levels = row_index.listed(row_order, collation);
+    result.column_levels = column_index.listed(column_order, collation);
     result.remarks = span.remarks;
     for (std::string& remark : order_remarks) result.remarks.push_back(std::move(remark));
     for (std::string& remark : row_index.lookalike_remarks("row labels")) result.remarks.push_back(std::move(remark));
@@ -164,8 +165,9 @@ RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabel
 }
 
 RecordCounts counts_from_records(const CellGrid& row_labels, const CellGrid& column_labels, const CellGrid& weights,
-                                 const LevelOrdering& order, std::size_t max_cells) {
-    return counts_from_records(code_labels(row_labels), code_labels(column_labels), weights, order, max_cells);
+                                 const LevelOrdering& order, const TextCollation& collation, std::size_t max_cells) {
+    return counts_from_records(code_labels(row_labels), code_labels(column_labels), weights, order, collation,
+                               max_cells);
 }
 
 std::string RecordCounts::feedback() const {

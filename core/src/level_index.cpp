@@ -1,6 +1,5 @@
 #include "level_index.hpp"
 
-#include <algorithm>
 #include <numeric>
 
 #include "ascii_case.hpp"
@@ -54,12 +53,14 @@ std::string LevelIndex::add_listed(const LevelOrdering& order, const std::string
            (unused.size() == 1 ? "its line holds" : "their lines hold") + " zeros.";
 }
 
-std::vector<std::uint32_t> LevelIndex::positions(const LevelOrdering& order) const {
-    std::vector<std::uint32_t> by_position(levels_.size());
-    std::iota(by_position.begin(), by_position.end(), 0u);
-    if (order.order == LevelOrder::sorted)
-        std::sort(by_position.begin(), by_position.end(),
-                  [this](std::uint32_t a, std::uint32_t b) { return level_before(levels_[a], levels_[b]); });
+std::vector<std::uint32_t> LevelIndex::positions(const LevelOrdering& order, const TextCollation& collation) const {
+    std::vector<std::size_t> by_position(levels_.size());
+    std::iota(by_position.begin(), by_position.end(), std::size_t{0});
+    if (order.order == LevelOrder::sorted) {
+        std::vector<const Cell*> levels;
+        for (const Cell& level : levels_) levels.push_back(&level);
+        by_position = sorted_order(levels, collation);
+    }
     std::vector<std::uint32_t> position_of(levels_.size());
     if (order.order == LevelOrder::listed) {
         // add_listed made the levels and the list the same set.
@@ -74,8 +75,8 @@ std::vector<std::uint32_t> LevelIndex::positions(const LevelOrdering& order) con
     return position_of;
 }
 
-std::vector<Cell> LevelIndex::listed(const LevelOrdering& order) const {
-    const std::vector<std::uint32_t> position_of = positions(order);
+std::vector<Cell> LevelIndex::listed(const LevelOrdering& order, const TextCollation& collation) const {
+    const std::vector<std::uint32_t> position_of = positions(order, collation);
     std::vector<Cell> levels(levels_.size());
     for (std::size_t i = 0; i < levels_.size(); ++i) levels[position_of[i]] = levels_[i];
     return levels;

@@ -17,6 +17,7 @@
 #include "assoc/error.hpp"
 #include "assoc/levels.hpp"
 #include "assoc/wording.hpp"
+#include "assoc/text_collation.hpp"
 
 namespace assoc::detail {
 
@@ -58,10 +59,11 @@ public:
     // `order` must outlive the index. `what` is e.g. "row labels".
     std::string add_listed(const LevelOrdering& order, const std::string& what);
 
-    // For each index, the level's position when the levels are listed in `order`.
-    std::vector<std::uint32_t> positions(const LevelOrdering& order) const;
+    // For each index, the level's position when the levels are listed in `order` (texts in the
+    // order of `collation` when sorted).
+    std::vector<std::uint32_t> positions(const LevelOrdering& order, const TextCollation& collation) const;
     // The levels, listed in `order`.
-    std::vector<Cell> listed(const LevelOrdering& order) const;
+    std::vector<Cell> listed(const LevelOrdering& order, const TextCollation& collation) const;
     // Sentences about labels that look alike: texts merged because they differ only by spaces at
     // their ends, texts that differ only in capitals (counted apart), and a text that reads like one
     // of the numbers. `what` is e.g. "row labels".

@@ -1,6 +1,8 @@
 #include "assoc/levels.hpp"
 
+#include <algorithm>
 #include <cstdio>
+#include <string_view>
 
 #include "ascii_case.hpp"
 #include "assoc/error.hpp"
@@ -17,12 +19,22 @@ LevelOrder parse_level_order(const std::string& word) {
     throw Error("the order must be \"sorted\" or \"first\", not \"" + word + "\"");
 }
 
-bool level_before(const Cell& a, const Cell& b) {
-    if (a.is_number() != b.is_number()) return a.is_number();
-    if (a.is_number()) return a.as_number() < b.as_number();
-    const int folded = detail::compare_ignoring_case(a.as_text(), b.as_text());
-    if (folded != 0) return folded < 0;
-    return a.as_text() < b.as_text();
+std::vector<std::size_t> sorted_order(const std::vector<const Cell*>& levels, const TextCollation& collation) {
+    std::vector<std::size_t> order;
+    std::vector<std::size_t> text_positions;
+    std::vector<std::string_view> texts;
+    for (std::size_t i = 0; i < levels.size(); ++i) {
+        if (levels[i]->is_text()) {
+            text_positions.push_back(i);
+            texts.emplace_back(levels[i]->as_text());
+        } else {
+            order.push_back(i);
+        }
+    }
+    std::sort(order.begin(), order.end(),
+              [&](std::size_t a, std::size_t b) { return levels[a]->as_number() < levels[b]->as_number(); });
+    for (std::size_t t : collated_order(texts, collation)) order.push_back(text_positions[t]);
+    return order;
 }
 
 std::string level_text(const Cell& level) {
@@ -53,7 +65,7 @@ LevelOrdering LevelOrdering::from_range(const CellGrid& labels) {
     return ordering;
 }
 
-LevelList level_list(const CodedLabels& labels, const LevelOrdering& order) {
+LevelList level_list(const CodedLabels& labels, const LevelOrdering& order, const TextCollation& collation) {
     detail::CodedLevels levels(labels, "labels");
     const detail::RecordSpan span = detail::record_span({&labels});
     for (std::size_t i = span.first; i < span.end; ++i) levels.level(i);
@@ -63,16 +75,16 @@ LevelList level_list(const CodedLabels& labels, const LevelOrdering& order) {
     const std::string unused = levels.index().add_listed(order, "labels");
     if (!unused.empty()) list.remarks.push_back(unused);
     for (std::string& remark : levels.index().lookalike_remarks("labels")) list.remarks.push_back(std::move(remark));
-    list.levels = levels.index().listed(order);
+    list.levels = levels.index().listed(order, collation);
     return list;
 }
 
-std::vector<Cell> distinct_levels(const CodedLabels& labels, const LevelOrdering& order) {
-    return level_list(labels, order).levels;
+std::vector<Cell> distinct_levels(const CodedLabels& labels, const LevelOrdering& order, const TextCollation& collation) {
+    return level_list(labels, order, collation).levels;
 }
 
-std::vector<Cell> distinct_levels(const CellGrid& labels, const LevelOrdering& order) {
-    return distinct_levels(code_labels(labels), order);
+std::vector<Cell> distinct_levels(const CellGrid& labels, const LevelOrdering& order, const TextCollation& collation) {
+    return distinct_levels(code_labels(labels), order, collation);
 }
 
 }  // namespace assoc

@@ -10,6 +10,7 @@
 #include "assoc/count_table.hpp"
 #include "assoc/levels.hpp"
 #include "assoc/matrix.hpp"
+#include "assoc/text_collation.hpp"
 
 namespace assoc {
 
@@ -50,18 +51,22 @@ struct RecordCounts {
 // records were all skipped gets zeros). A record whose weight is blank is skipped too (counted in
 // skipped_weight; the feedback names its rows); a negative weight, or one that is not a number, is an
 // Error naming its row. Trailing blank positions and a header in the first cell are no records (see
-// record_span.hpp). Levels are identified as described in levels.hpp and listed in `order`. Throws
-// Error when the table would have more than `max_cells` cells.
+// record_span.hpp). Levels are identified as described in levels.hpp and listed in `order` (texts in
+// the order of `collation` when sorted, as distinct_levels lists them; a listed order orders the side
+// whose labels it lists, and the other side is sorted). Throws Error when the table would have more
+// than `max_cells` cells.
 //
 // Cost: one array lookup per label and record, plus one hash lookup per distinct spelling:
 // independent of the number of levels.
 RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabels& column_labels,
                                  const CellGrid& weights = CellGrid(), const LevelOrdering& order = LevelOrder::sorted,
+                                 const TextCollation& collation = unicode_collation(),
                                  std::size_t max_cells = 1'000'000);
 
 // The same, from ranges of cells (coded first with code_labels: one hash lookup per label).
 RecordCounts counts_from_records(const CellGrid& row_labels, const CellGrid& column_labels,
                                  const CellGrid& weights = CellGrid(), const LevelOrdering& order = LevelOrder::sorted,
+                                 const TextCollation& collation = unicode_collation(),
                                  std::size_t max_cells = 1'000'000);
 
 }  // namespace assoc
