@@ -231,7 +231,11 @@ class ReportBlock(CalcTestCase):
         self.assertClose(lines["Critical X² at 5%"], 5.991464547107983, 1e-12, "critical (NIST, scipy)")
         self.assertTrue(lines["Decision at 5%"].startswith("Independence rejected"))
         self.assertClose(lines["Cramér's V"], 0.10443580236, 1e-10, "V (published_values.md section 3)")
-        self.assertEqual(lines["Conclusion"], "At the 5% level, gender and party appear associated (p = 3.0e-07).")
+        # V = 0.104 (published_values.md section 3) is w = 0.104 for two rows: weak by Cohen's bands.
+        self.assertEqual(lines["Conclusion"], "At the 5% level, gender and party appear associated (p = 3.0e-07), but "
+                                              "the association is weak: Cramér's V is 0.10 (Cohen's bands for w = "
+                                              "V·√(min(rows, columns) − 1): below 0.1 very weak, from 0.1 weak, from "
+                                              "0.3 moderate, from 0.5 strong).")
         self.assertIn("not proof of cause, nor of discrimination", lines["Caution"])
         self.assertEqual(block[-1][0], "Caution")
 
