@@ -557,7 +557,8 @@ FUNCTIONS = [
          "For a function that takes two ranges (ASSOC.COUNTS, ASSOC.IMPACT), give ASSOC.CHECK one range with "
          "the two side by side as columns, in the order of the arguments (for ASSOC.COUNTS a third column of "
          "weights may follow); for one that takes only numbers (ASSOC.POWER), give its numbers in one row or "
-         "column.",
+         "column. An order given as a range (ASSOC.LEVELS, ASSOC.COUNTS) goes in one more column after them "
+         "(for ASSOC.COUNTS after the weights' column, blank when there are no weights).",
          "The verdict is \"Doubtful\" whenever the table itself is ambiguous, whatever its expected counts: "
          "counts that are not whole numbers (weighted data), a line labelled as data that holds the sum of the "
          "others, rows that each add up to exactly 100. It names the rows and columns set aside (empty ones and "

@@ -301,11 +301,16 @@ def trial_body(function, option_argument=None, word=None):
     ranges = ranges_of(function)
     optional = [a for a in function.arguments if a.kind == "optional_range"]
     numbers = [a for a in function.arguments if a.kind == "number"]
+    # An option that also takes a range (the order of ASSOC.LEVELS): its list may come as the last column.
+    listed = next((a for a in function.arguments if a.kind == "option" and a.options.from_range), None)
     name = cpp_string(function.name)
     statements = []
-    if len(ranges) > 1:
-        # Side by side: one column per range, then (when given) one per optional range (COUNTS' weights).
-        statements.append(f"const auto parts = split_columns(range, {len(ranges)}, {len(optional)}, {name});")
+    split = len(ranges) > 1 or (ranges and listed is not None)
+    if split:
+        # Side by side: one column per range, then (when given) one per optional range (COUNTS' weights),
+        # then the list of an option that takes one.
+        extra = len(optional) + (1 if listed is not None else 0)
+        statements.append(f"const auto parts = split_columns(range, {len(ranges)}, {extra}, {name});")
     if not ranges:
         required = sum(1 for a in numbers if a.default is None)
         names = ", ".join(cpp_string(a.name) for a in numbers)
@@ -313,9 +318,9 @@ def trial_body(function, option_argument=None, word=None):
     values = []
     for argument in function.arguments:
         if argument.kind in REQUIRED_RANGE_KINDS:
-            part = "range" if len(ranges) == 1 else f"parts[{ranges.index(argument)}]"
+            part = f"parts[{ranges.index(argument)}]" if split else "range"
             values.append(f"assoc::code_labels({part})" if argument.kind == "labels" else part)
-        elif argument.kind == "optional_range" and len(ranges) > 1:
+        elif argument.kind == "optional_range" and split:
             values.append(f"parts[{len(ranges) + optional.index(argument)}]")
         elif argument.kind == "optional_range":
             values.append("assoc::CellGrid()")
@@ -325,9 +330,14 @@ def trial_body(function, option_argument=None, word=None):
             i = numbers.index(argument)
             values.append(f"numbers[{i}]" if argument.default is None
                           else f"(numbers.size() > {i} ? numbers[{i}] : {float(argument.default)!r})")
+        elif argument.kind == "option" and argument is option_argument:
+            values.append(word_value(argument.options, word))
+        elif argument.kind == "option" and argument is listed and split:
+            order = f"parts[{len(ranges) + len(optional)}]"
+            values.append(f"({order}.empty() ? {omitted_value(argument.options)} : "
+                          f"{argument.options.from_range}({order}))")
         elif argument.kind == "option":
-            values.append(word_value(argument.options, word) if argument is option_argument
-                          else omitted_value(argument.options))
+            values.append(omitted_value(argument.options))
         else:
             values.append("assoc::Cell::blank()")
     # Through to_any, as the UNO method does, so that a result that is not a finite number fails here too.

@@ -94,6 +94,12 @@ RemarkCollector::RemarkCollector() : outer_(collecting) { collecting = &remarks_
 RemarkCollector::~RemarkCollector() { collecting = outer_; }
 
 std::vector<CellGrid> split_columns(const CellGrid& range, std::size_t count, std::size_t optional, const char* function) {
+    // A single range given as one row (the labels of ASSOC.LEVELS along a row) is that range, whole.
+    if (count == 1 && range.rows() == 1 && range.columns() > 1) {
+        std::vector<CellGrid> parts{range};
+        parts.resize(1 + optional);
+        return parts;
+    }
     // Fewer columns are blank ones: the range lost its trailing blank columns when it was read.
     const std::size_t given = std::max(range.columns(), std::min(range.given_columns(), count + optional));
     require(range.columns() <= count + optional,
@@ -108,9 +114,17 @@ std::vector<CellGrid> split_columns(const CellGrid& range, std::size_t count, st
         columns.push_back(c < given ? CellGrid(range.rows(), 1) : CellGrid());
     for (std::size_t c = 0; c < range.columns(); ++c)
         for (std::size_t r = 0; r < range.rows(); ++r) columns[c].at(r, 0) = range.at(r, c);
-    // Each column keeps the range's given height, so that a whole column is read as one.
-    for (CellGrid& column : columns)
-        if (!column.empty()) column.set_given_shape(range.given_rows(), 1);
+    // Each column keeps the range's given height, so that a whole column is read as one; an optional
+    // column left blank is not given (the order after a blank column of weights).
+    for (std::size_t c = 0; c < columns.size(); ++c) {
+        CellGrid& column = columns[c];
+        if (column.empty()) continue;
+        if (c >= count && std::all_of(column.begin(), column.end(), [](const Cell& cell) { return cell.is_blank(); })) {
+            column = CellGrid();
+            continue;
+        }
+        column.set_given_shape(range.given_rows(), 1);
+    }
     return columns;
 }
 

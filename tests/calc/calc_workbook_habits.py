@@ -224,9 +224,17 @@ class OrdersAndSpellings(HabitCase):
 
     def test_labels_missing_from_the_order_are_refused_naming_them(self):
         self.put(column(["Good", "Poor", "Excellent"]), column=0)
-        self.put(column(["Poor", "Good"]), column=3)
-        cell = self.formula("H1", "=ASSOC.LEVELS(A1:A3; D1:D2)")
-        self.assertEqual(cell.getError(), ERR_ILLEGAL_ARGUMENT)
+        self.put(column(["Poor", "Good"]), column=1)
+        # ASSOC.CHECK takes the order as the column after the labels (for COUNTS: after the weights).
+        self.refused("=ASSOC.LEVELS(A1:A3; B1:B2)", '=ASSOC.CHECK(A1:B3; "levels")',
+                     'ASSOC.LEVELS cannot be used here: the order lists 2 labels but not "Excellent", found in the '
+                     "labels; list every label in the order's range.")
+        # Answers, offices, no weights (a blank column), the scale: ASSOC.COUNTS tried with the scale.
+        self.put([["Good", "North", None, "Poor"], ["Poor", "South", None, "Good"], ["Excellent", "North", None,
+                                                                                   "Excellent"]], column=3)
+        text = self.words("H3", '=ASSOC.CHECK(D1:G3; "counts")')
+        self.assertIn("ASSOC.COUNTS can be used on this range.", text)
+        self.assertIn("The order lists none of the column labels, so they were sorted.", text)
 
     def test_an_order_of_a_hundred_labels_works(self):
         labels = [f"Band {i:03d}" for i in range(100)]

@@ -105,22 +105,19 @@ TEST(StrataLabels, LeaveOutATotalRowAndATotalStratum) {
                                                     {"South", 5, 6, 7, 8},
                                                     {"Total", 6, 8, 10, 12}}));
     EXPECT_EQ(with_total_row.tables.size(), 2u);
-    const Strata with_total_stratum = read_strata(grid({{"Office", "Group", "Promoted", "Not"},
-                                                        {"North", "Women", 5, 10},
-                                                        {nullptr, "Men", 7, 9},
-                                                        {"South", "Women", 4, 11},
-                                                        {nullptr, "Men", 6, 8},
-                                                        {"All offices", "Women", 9, 21},
-                                                        {nullptr, "Men", 13, 17}}));
+    // Two offices and a third stratum of their sums, named `name`.
+    const auto with_sums_named = [](const char* name) {
+        return read_strata(grid({{"Office", "Group", "Promoted", "Not"},
+                                 {"North", "Women", 5, 10},
+                                 {nullptr, "Men", 7, 9},
+                                 {"South", "Women", 4, 11},
+                                 {nullptr, "Men", 6, 8},
+                                 {name, "Women", 9, 21},
+                                 {nullptr, "Men", 13, 17}}));
+    };
     // "All offices" is no total word: read as a stratum, though its rows hold sums (each row is a sum of two).
-    EXPECT_EQ(with_total_stratum.tables.size(), 3u);
-    const Strata with_total_word = read_strata(grid({{"Office", "Group", "Promoted", "Not"},
-                                                     {"North", "Women", 5, 10},
-                                                     {nullptr, "Men", 7, 9},
-                                                     {"South", "Women", 4, 11},
-                                                     {nullptr, "Men", 6, 8},
-                                                     {"Total", "Women", 9, 21},
-                                                     {nullptr, "Men", 13, 17}}));
+    EXPECT_EQ(with_sums_named("All offices").tables.size(), 3u);
+    const Strata with_total_word = with_sums_named("Total");
     EXPECT_EQ(with_total_word.tables.size(), 2u);
     EXPECT_EQ(with_total_word.remarks, (std::vector<std::string>{"The rows of \"Total\" were set aside as totals."}));
 }
