@@ -15,21 +15,21 @@ namespace {
 // Every text of the current input: messages quote them (see check_message).
 std::vector<std::string> input_texts;
 
-// A text as messages may show it: as it is (up to a NUL), without surrounding blanks, and with a
-// first capital in small letters (the report names "Department" "department" inside a sentence).
+// A text in the ways messages show it (core/src/wording.cpp): as it is; trimmed; with its first
+// capital, or every capital, in small letters; and, in error messages, only up to its first NUL
+// (what() ends there). Texts cut short with "…" are found by check_message.
 void remember_text(const std::string& text) {
-    // what() of an exception ends at a NUL: an error message quotes a text only up to its first one.
     const std::size_t nul = text.find('\0');
     if (nul != std::string::npos) remember_text(text.substr(0, nul));
-    input_texts.push_back(text);
-    const std::size_t first = text.find_first_not_of(" \t");
-    if (first == std::string::npos) return;
-    std::string trimmed = text.substr(first, text.find_last_not_of(" \t") - first + 1);
-    if (trimmed[0] >= 'A' && trimmed[0] <= 'Z') {
-        input_texts.push_back(trimmed);
-        trimmed[0] = static_cast<char>(trimmed[0] - 'A' + 'a');
-    }
-    input_texts.push_back(trimmed);
+    const std::size_t first = text.find_first_not_of(" \t\r\n");
+    const std::string trimmed =
+        first == std::string::npos ? std::string() : text.substr(first, text.find_last_not_of(" \t\r\n") - first + 1);
+    std::string first_small = trimmed, all_small = trimmed;
+    if (!first_small.empty() && first_small[0] >= 'A' && first_small[0] <= 'Z') first_small[0] = static_cast<char>(first_small[0] + 32);
+    for (char& c : all_small)
+        if (c >= 'A' && c <= 'Z') c = static_cast<char>(c + 32);
+    for (const std::string& form : {text, trimmed, first_small, all_small})
+        if (!form.empty()) input_texts.push_back(form);
 }
 
 Cell read_cell(const std::string& token) {
@@ -151,6 +151,20 @@ void check_message(const std::string& message, const std::string& what) {
              at = message.find(text, at + 1))
             std::fill(quoted.begin() + static_cast<std::ptrdiff_t>(at),
                       quoted.begin() + static_cast<std::ptrdiff_t>(at + text.size()), true);
+    // A label cut short: the longest start of an input text just before the "…" (wording.cpp cuts at
+    // 24 or 40 bytes, or earlier at a character boundary).
+    const std::string ellipsis = "…";
+    for (std::size_t at = message.find(ellipsis); at != std::string::npos; at = message.find(ellipsis, at + 1)) {
+        std::size_t longest = 0;
+        for (const std::string& text : input_texts)
+            for (std::size_t length = std::min({text.size(), at, std::size_t{40}}); length > longest; --length)
+                if (message.compare(at - length, length, text, 0, length) == 0) {
+                    longest = length;
+                    break;
+                }
+        std::fill(quoted.begin() + static_cast<std::ptrdiff_t>(at - longest), quoted.begin() + static_cast<std::ptrdiff_t>(at),
+                  true);
+    }
     const auto own = [&](std::size_t at, std::size_t length) {
         return std::none_of(quoted.begin() + static_cast<std::ptrdiff_t>(at),
                             quoted.begin() + static_cast<std::ptrdiff_t>(at + length), [](bool q) { return q; });

@@ -2,7 +2,8 @@
 // Input: section 1, the selected counts; section 2, the counts considered; section 3 may give the
 // threshold.
 // Checks: only assoc::Error leaves the core; rates and ratios in [0, 1]; the highest group has ratio
-// 1; a group is flagged exactly when its ratio is below the threshold, with a flag in Assoc's words.
+// 1; a group is flagged exactly when its ratio is below the threshold, with a flag in Assoc's words;
+// a group without a rate says why.
 #include <cmath>
 
 #include "assoc/selection_impact.hpp"
@@ -23,6 +24,12 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
         if (result.highest_group >= result.groups.size()) finding("the highest group is not a group");
         check_probability(result.highest_rate, "highest rate");
         for (const GroupImpact& group : result.groups) {
+            // A group without a rate (nobody considered) has a flag that says why, and nothing else.
+            if (!group.has_rate) {
+                if (group.below_threshold || group.flag.empty()) finding("a group without a rate is flagged wrongly");
+                check_message(group.flag, "flag of a group without a rate");
+                continue;
+            }
             check_probability(group.selection_rate, "selection rate");
             check_between(group.impact_ratio, 0, 1 + 1e-12, "impact ratio");
             if (group.selection_rate > result.highest_rate) finding("a group's rate is above the highest rate");
@@ -33,6 +40,7 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
             if (!group.flag.empty()) check_message(group.flag, "impact flag");
         }
         if (result.groups[result.highest_group].impact_ratio != 1) finding("the highest group's ratio is not 1");
+        for (const std::string& remark : result.remarks) check_message(remark, "impact remark");
     });
     return 0;
 }
