@@ -43,7 +43,7 @@ void check_probability(double p, const std::string& what);      // finite, in [0
 void check_nonnegative(double x, const std::string& what);      // finite, ≥ 0
 bool check_finite(double x, const std::string& what);           // finite
 void check_between(double x, double low, double high, const std::string& what);  // finite, in [low, high]
-// A message for the user: not empty, no library's words, no number printed with all its digits.
+// A message for the user: not empty, no library's words, no number with more than 17 significant digits.
 void check_message(const std::string& message, const std::string& what);
 void check_finite(const Matrix& values, const std::string& what);
 
