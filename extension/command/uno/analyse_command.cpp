@@ -332,7 +332,9 @@ private:
         const Arguments arguments = read_arguments(dispatch_arguments);
         gui = !arguments.no_dialog && has_visible_window(frame);
 
+        Stopwatch stopwatch;
         const SelectionContent content = read_selection_content(view);
+        stopwatch.lap("read");
         CommandOptions options = remembered_options(model, DialogFacts{});
         apply(arguments, options);
         std::optional<Reading> reading;
@@ -367,10 +369,18 @@ private:
         check_options(options);
         if (!reading->table.is_two_by_two()) options.outcome_column = options.group_row = 0;
 
-        const SheetPlan plan = plan_analysis_sheet(*reading, options, exact_test_is_quick(reading->table));
+        stopwatch.lap("dialog");
+        const bool exact_live = exact_test_is_quick(reading->table);
+        stopwatch.lap("exact_probe");
+        const SheetPlan plan = plan_analysis_sheet(*reading, options, exact_live);
+        stopwatch.lap("plan");
         const std::string source_sheet =
             reading->table_source ? reading->table_source->range.sheet : reading->record_source->row_labels.sheet;
-        return write_sheet(context_, view, plan, SheetPlacement{sheet_base_name(*reading), options.placement, source_sheet});
+        const std::string name =
+            write_sheet(context_, view, plan, SheetPlacement{sheet_base_name(*reading), options.placement, source_sheet},
+                        stopwatch);
+        stopwatch.print();
+        return name;
     }
 
     Reference<css::uno::XComponentContext> context_;

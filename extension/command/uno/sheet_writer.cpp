@@ -6,6 +6,7 @@
 #include <com/sun/star/awt/Rectangle.hpp>
 #include <com/sun/star/awt/Size.hpp>
 #include <com/sun/star/beans/PropertyValue.hpp>
+#include <com/sun/star/beans/XMultiPropertySet.hpp>
 #include <com/sun/star/beans/XPropertySet.hpp>
 #include <com/sun/star/chart/XAxisYSupplier.hpp>
 #include <com/sun/star/chart/XChartDocument.hpp>
@@ -22,7 +23,9 @@
 #include <com/sun/star/io/SequenceInputStream.hpp>
 #include <com/sun/star/lang/Locale.hpp>
 #include <com/sun/star/lang/XMultiServiceFactory.hpp>
+#include <com/sun/star/document/XActionLockable.hpp>
 #include <com/sun/star/sheet/XArrayFormulaRange.hpp>
+#include <com/sun/star/sheet/XSheetCellRangeContainer.hpp>
 #include <com/sun/star/sheet/XSheetOutline.hpp>
 #include <com/sun/star/sheet/XSpreadsheet.hpp>
 #include <com/sun/star/table/TableOrientation.hpp>
@@ -77,6 +80,16 @@ Reference<css::table::XCellRange> cells(const Reference<css::sheet::XSpreadsheet
                                          static_cast<sal_Int32>(area.last_column()), static_cast<sal_Int32>(area.last_row()));
 }
 
+css::table::CellRangeAddress address_of(const Area& area, sal_Int16 sheet_index) {
+    css::table::CellRangeAddress address;
+    address.Sheet = sheet_index;
+    address.StartColumn = static_cast<sal_Int32>(area.column);
+    address.StartRow = static_cast<sal_Int32>(area.row);
+    address.EndColumn = static_cast<sal_Int32>(area.last_column());
+    address.EndRow = static_cast<sal_Int32>(area.last_row());
+    return address;
+}
+
 std::string hex_colour(std::uint32_t colour) {
     char text[8];
     std::snprintf(text, sizeof text, "#%06x", static_cast<unsigned>(colour));
@@ -107,57 +120,58 @@ void set(const Reference<css::beans::XPropertySet>& properties, const char* name
     properties->setPropertyValue(OUString::createFromAscii(name), value);
 }
 
-void apply_look(const Reference<css::table::XCellRange>& range, Look look, NumberFormats& formats) {
-    Reference<css::beans::XPropertySet> p(range, UNO_QUERY_THROW);
-    const float bold = css::awt::FontWeight::BOLD;
-    auto wrap_top = [&] {
-        set(p, "IsTextWrapped", Any(true));
-        set(p, "VertJustify", Any(css::table::CellVertJustify2::TOP));
+// The cell properties of a look, set in one call (one pass over the cells' row heights).
+void apply_look(const Reference<css::beans::XPropertySet>& target, Look look, NumberFormats& formats) {
+    std::vector<OUString> names;
+    std::vector<Any> values;
+    auto set_ = [&](const char* name, const Any& value) {
+        names.push_back(OUString::createFromAscii(name));
+        values.push_back(value);
     };
+    const float bold = css::awt::FontWeight::BOLD;
+    auto wrap = [&] { set_("IsTextWrapped", Any(true)); };
     auto number = [&](const char* code) {
-        set(p, "NumberFormat", Any(formats.key(code)));
-        set(p, "HoriJustify", Any(css::table::CellHoriJustify_RIGHT));
+        set_("NumberFormat", Any(formats.key(code)));
+        set_("HoriJustify", Any(css::table::CellHoriJustify_RIGHT));
     };
     switch (look) {
     case Look::title:
-        set(p, "CharHeight", Any(14.0f));
-        set(p, "CharWeight", Any(bold));
+        set_("CharHeight", Any(14.0f));
+        set_("CharWeight", Any(bold));
         break;
     case Look::note:
-        set(p, "CharColor", Any(static_cast<sal_Int32>(palette::note_text)));
-        set(p, "CharPosture", Any(css::awt::FontSlant_ITALIC));
-        wrap_top();
+        set_("CharColor", Any(static_cast<sal_Int32>(palette::note_text)));
+        set_("CharPosture", Any(css::awt::FontSlant_ITALIC));
+        wrap();
         break;
     case Look::section:
-        set(p, "CharHeight", Any(11.0f));
-        set(p, "CharWeight", Any(bold));
+        set_("CharHeight", Any(11.0f));
+        set_("CharWeight", Any(bold));
         break;
     case Look::header: {
         css::table::BorderLine2 rule;
         rule.Color = static_cast<sal_Int32>(palette::heading_rule);
         rule.OuterLineWidth = 18;
         rule.LineWidth = 18;
-        set(p, "CharWeight", Any(bold));
-        set(p, "BottomBorder", Any(rule));
-        set(p, "HoriJustify", Any(css::table::CellHoriJustify_CENTER));
-        wrap_top();
+        set_("CharWeight", Any(bold));
+        set_("BottomBorder", Any(rule));
+        set_("HoriJustify", Any(css::table::CellHoriJustify_CENTER));
+        wrap();
         break;
     }
-    case Look::label:
-        set(p, "VertJustify", Any(css::table::CellVertJustify2::TOP));
-        break;
+    case Look::label: break;
     case Look::text:
-        set(p, "HoriJustify", Any(css::table::CellHoriJustify_LEFT));
-        wrap_top();
+        set_("HoriJustify", Any(css::table::CellHoriJustify_LEFT));
+        wrap();
         break;
     case Look::caution:
-        set(p, "CharColor", Any(static_cast<sal_Int32>(palette::caution_text)));
-        set(p, "HoriJustify", Any(css::table::CellHoriJustify_LEFT));
-        wrap_top();
+        set_("CharColor", Any(static_cast<sal_Int32>(palette::caution_text)));
+        set_("HoriJustify", Any(css::table::CellHoriJustify_LEFT));
+        wrap();
         break;
     case Look::input:
-        set(p, "CellBackColor", Any(static_cast<sal_Int32>(palette::input_fill)));
-        set(p, "CharWeight", Any(bold));
+        set_("CellBackColor", Any(static_cast<sal_Int32>(palette::input_fill)));
+        set_("CharWeight", Any(bold));
         number("0.0##");
         break;
     case Look::count: number("General"); break;
@@ -171,11 +185,15 @@ void apply_look(const Reference<css::table::XCellRange>& range, Look look, Numbe
     case Look::key_middle:
     case Look::key_high: {
         const std::size_t point = look == Look::key_low ? 0 : look == Look::key_middle ? 1 : 2;
-        set(p, "CellBackColor", Any(static_cast<sal_Int32>(palette::heat_map[point].colour)));
-        set(p, "HoriJustify", Any(css::table::CellHoriJustify_CENTER));
+        set_("CellBackColor", Any(static_cast<sal_Int32>(palette::heat_map[point].colour)));
+        set_("HoriJustify", Any(css::table::CellHoriJustify_CENTER));
         break;
     }
     }
+    if (names.empty()) return;
+    Reference<css::beans::XMultiPropertySet>(target, UNO_QUERY_THROW)
+        ->setPropertyValues(Sequence<OUString>(names.data(), static_cast<sal_Int32>(names.size())),
+                            Sequence<Any>(values.data(), static_cast<sal_Int32>(values.size())));
 }
 
 // A colour scale cannot be made through the API of LibreOffice 7.4 (its entries cannot be set),
@@ -257,14 +275,8 @@ void add_chart(const Reference<css::sheet::XSpreadsheets>& sheets, const Referen
     css::awt::Size size;
     anchor->getPropertyValue("Position") >>= position;
     anchor->getPropertyValue("Size") >>= size;
-    css::table::CellRangeAddress data;
-    data.Sheet = sheet_index;
-    data.StartColumn = static_cast<sal_Int32>(plan.data.column);
-    data.StartRow = static_cast<sal_Int32>(plan.data.row);
-    data.EndColumn = static_cast<sal_Int32>(plan.data.last_column());
-    data.EndRow = static_cast<sal_Int32>(plan.data.last_row());
     Sequence<css::table::CellRangeAddress> ranges(1);
-    ranges.getArray()[0] = data;
+    ranges.getArray()[0] = address_of(plan.data, sheet_index);
 
     const OUString name = to_ou_string(unique_chart_name(sheets));
     Reference<css::table::XTableCharts> charts =
@@ -312,8 +324,9 @@ void use_page_style(const Reference<css::frame::XModel>& model, const Reference<
 
 void write_plan(const Reference<css::uno::XComponentContext>& context, const Reference<css::frame::XController>& controller,
                 const Reference<css::sheet::XSpreadsheets>& sheets, const Reference<css::sheet::XSpreadsheet>& sheet,
-                sal_Int16 sheet_index, const SheetPlan& plan) {
+                sal_Int16 sheet_index, const SheetPlan& plan, Stopwatch& stopwatch) {
     for (const Area& area : plan.colour_scales()) paste_colour_scale(context, controller, sheet, area);
+    stopwatch.lap("colour_scale");
 
     Reference<css::table::XColumnRowRange> lines(sheet, UNO_QUERY_THROW);
     Reference<css::container::XIndexAccess> columns(lines->getColumns(), UNO_QUERY_THROW);
@@ -336,12 +349,25 @@ void write_plan(const Reference<css::uno::XComponentContext>& context, const Ref
         }
     }
 
+    stopwatch.lap("cells");
     // Every cell aligned at the top, for rows that a wrapped text makes taller.
     set(Reference<css::beans::XPropertySet>(cells(sheet, Area{0, 0, plan.rows_used(), plan.columns_used()}), UNO_QUERY_THROW),
         "VertJustify", Any(css::table::CellVertJustify2::TOP));
+    // Each look once, over all its cells (a call per property and cell block would cost far more).
     NumberFormats formats(controller->getModel());
-    for (const auto& [area, look] : plan.looks()) apply_look(cells(sheet, area), look, formats);
+    std::map<Look, std::vector<css::table::CellRangeAddress>> by_look;
+    for (const auto& [area, look] : plan.looks()) by_look[look].push_back(address_of(area, sheet_index));
+    Reference<css::lang::XMultiServiceFactory> factory(controller->getModel(), UNO_QUERY_THROW);
+    for (const auto& [look, addresses] : by_look) {
+        Reference<css::sheet::XSheetCellRangeContainer> group(
+            factory->createInstance("com.sun.star.sheet.SheetCellRanges"), UNO_QUERY_THROW);
+        group->addRangeAddresses(Sequence<css::table::CellRangeAddress>(addresses.data(),
+                                                                        static_cast<sal_Int32>(addresses.size())),
+                                 false);
+        apply_look(Reference<css::beans::XPropertySet>(group, UNO_QUERY_THROW), look, formats);
+    }
 
+    stopwatch.lap("looks");
     Reference<css::container::XIndexAccess> rows(lines->getRows(), UNO_QUERY_THROW);
     for (const auto& [area, line_count] : plan.merges()) {
         Reference<css::util::XMergeable>(cells(sheet, area), UNO_QUERY_THROW)->merge(true);
@@ -352,15 +378,14 @@ void write_plan(const Reference<css::uno::XComponentContext>& context, const Ref
     }
 
     for (const Area& rows : plan.collapsed_rows()) {
-        css::table::CellRangeAddress address;
-        address.Sheet = sheet_index;
-        address.StartRow = static_cast<sal_Int32>(rows.row);
-        address.EndRow = static_cast<sal_Int32>(rows.last_row());
+        const css::table::CellRangeAddress address = address_of(rows, sheet_index);
         Reference<css::sheet::XSheetOutline> outline(sheet, UNO_QUERY_THROW);
         outline->group(address, css::table::TableOrientation_ROWS);
         outline->hideDetail(address);
     }
+    stopwatch.lap("merges");
     if (plan.chart()) add_chart(sheets, sheet, *plan.chart(), sheet_index);
+    stopwatch.lap("chart");
     use_page_style(controller->getModel(), sheet);
 }
 
@@ -382,7 +407,7 @@ std::string unique_sheet_name(const Reference<css::frame::XController>& controll
 
 std::string write_sheet(const Reference<css::uno::XComponentContext>& context,
                         const Reference<css::frame::XController>& controller, const SheetPlan& plan,
-                        const SheetPlacement& placement) {
+                        const SheetPlacement& placement, Stopwatch& stopwatch) {
     const Reference<css::sheet::XSpreadsheets> sheets = sheets_of(controller);
     const std::string name = unique_sheet_name(controller, placement.base_name);
     const OUString sheet_name = to_ou_string(name);
@@ -396,12 +421,25 @@ std::string write_sheet(const Reference<css::uno::XComponentContext>& context,
     Reference<css::document::XUndoManagerSupplier> undo_supplier(controller->getModel(), UNO_QUERY);
     if (undo_supplier.is()) undo = undo_supplier->getUndoManager();
     if (undo.is()) undo->enterUndoContext(to_ou_string(undo_title));
+    // While the sheet is written, the document neither repaints nor adjusts row heights cell by cell.
+    Reference<css::document::XActionLockable> lock(controller->getModel(), UNO_QUERY);
+    struct Unlock {
+        Reference<css::document::XActionLockable> lock;
+        ~Unlock() {
+            try {
+                if (lock.is()) lock->removeActionLock();
+            } catch (...) {
+            }
+        }
+    } unlock{lock};
+    if (lock.is()) lock->addActionLock();
     bool inserted = false;
     try {
         sheets->insertNewByName(sheet_name, std::min(position, count));
         inserted = true;
         Reference<css::sheet::XSpreadsheet> sheet(sheets->getByName(sheet_name), UNO_QUERY_THROW);
-        write_plan(context, controller, sheets, sheet, index_of(sheets, sheet_name), plan);
+        stopwatch.lap("insert");
+        write_plan(context, controller, sheets, sheet, index_of(sheets, sheet_name), plan, stopwatch);
         Reference<css::sheet::XSpreadsheetView>(controller, UNO_QUERY_THROW)->setActiveSheet(sheet);
         Reference<css::view::XSelectionSupplier>(controller, UNO_QUERY_THROW)->select(Any(cells(sheet, Area{0, 0})));
     } catch (...) {
@@ -420,6 +458,7 @@ std::string write_sheet(const Reference<css::uno::XComponentContext>& context,
         throw;
     }
     if (undo.is()) undo->leaveUndoContext();
+    stopwatch.lap("finish");
     return name;
 }
 

@@ -9,6 +9,7 @@
 
 #include "analysis_sheet.hpp"
 #include "sheet_plan.hpp"
+#include "uno/stopwatch.hpp"
 
 namespace assoc::command {
 
@@ -23,7 +24,7 @@ struct SheetPlacement {
 // Inserts the sheet, writes the plan, shows the sheet in the view; returns the sheet's name.
 std::string write_sheet(const css::uno::Reference<css::uno::XComponentContext>& context,
                         const css::uno::Reference<css::frame::XController>& controller, const SheetPlan& plan,
-                        const SheetPlacement& placement);
+                        const SheetPlacement& placement, Stopwatch& stopwatch);
 
 // A name not yet used by a sheet of the document: base, "base (2)", "base (3)", …
 std::string unique_sheet_name(const css::uno::Reference<css::frame::XController>& controller, const std::string& base);
