@@ -57,6 +57,7 @@ struct Arguments {
     std::optional<Placement> placement;
     std::optional<std::size_t> outcome_column;  // 1 or 2 in the argument
     std::optional<std::size_t> group_row;
+    std::string fail_after;  // FailAfter: for the tests of the rollback only (see SheetPlacement)
 };
 
 std::string text_argument(const css::beans::PropertyValue& argument) {
@@ -102,6 +103,8 @@ Arguments read_arguments(const Sequence<css::beans::PropertyValue>& arguments) {
             out.outcome_column = first_or_second(argument);
         } else if (name == "GroupRow") {
             out.group_row = first_or_second(argument);
+        } else if (name == "FailAfter") {
+            out.fail_after = text_argument(argument);
         }
         // Other arguments (the framework adds some, such as Referer) are not ours.
     }
@@ -377,7 +380,7 @@ private:
         const std::string source_sheet =
             reading->table_source ? reading->table_source->range.sheet : reading->record_source->row_labels.sheet;
         const std::string name =
-            write_sheet(context_, view, plan, SheetPlacement{sheet_base_name(*reading), options.placement, source_sheet},
+            write_sheet(context_, view, plan, SheetPlacement{sheet_base_name(*reading), options.placement, source_sheet, arguments.fail_after},
                         stopwatch);
         stopwatch.print();
         return name;

@@ -324,9 +324,15 @@ void use_page_style(const Reference<css::frame::XModel>& model, const Reference<
 
 void write_plan(const Reference<css::uno::XComponentContext>& context, const Reference<css::frame::XController>& controller,
                 const Reference<css::sheet::XSpreadsheets>& sheets, const Reference<css::sheet::XSpreadsheet>& sheet,
-                sal_Int16 sheet_index, const SheetPlan& plan, Stopwatch& stopwatch) {
+                sal_Int16 sheet_index, const SheetPlan& plan, Stopwatch& stopwatch, const std::string& fail_after) {
+    // Phases as the stopwatch names them; the tests make one fail to see the sheet removed again.
+    auto phase = [&](const char* name) {
+        stopwatch.lap(name);
+        if (fail_after == name)
+            throw css::uno::RuntimeException(to_ou_string(std::string("a failure on purpose after ") + name));
+    };
     for (const Area& area : plan.colour_scales()) paste_colour_scale(context, controller, sheet, area);
-    stopwatch.lap("colour_scale");
+    phase("colour_scale");
 
     Reference<css::table::XColumnRowRange> lines(sheet, UNO_QUERY_THROW);
     Reference<css::container::XIndexAccess> columns(lines->getColumns(), UNO_QUERY_THROW);
@@ -349,7 +355,7 @@ void write_plan(const Reference<css::uno::XComponentContext>& context, const Ref
         }
     }
 
-    stopwatch.lap("cells");
+    phase("cells");
     // Every cell aligned at the top, for rows that a wrapped text makes taller.
     set(Reference<css::beans::XPropertySet>(cells(sheet, Area{0, 0, plan.rows_used(), plan.columns_used()}), UNO_QUERY_THROW),
         "VertJustify", Any(css::table::CellVertJustify2::TOP));
@@ -367,7 +373,7 @@ void write_plan(const Reference<css::uno::XComponentContext>& context, const Ref
         apply_look(Reference<css::beans::XPropertySet>(group, UNO_QUERY_THROW), look, formats);
     }
 
-    stopwatch.lap("looks");
+    phase("looks");
     Reference<css::container::XIndexAccess> rows(lines->getRows(), UNO_QUERY_THROW);
     for (const auto& [area, line_count] : plan.merges()) {
         Reference<css::util::XMergeable>(cells(sheet, area), UNO_QUERY_THROW)->merge(true);
@@ -383,9 +389,9 @@ void write_plan(const Reference<css::uno::XComponentContext>& context, const Ref
         outline->group(address, css::table::TableOrientation_ROWS);
         outline->hideDetail(address);
     }
-    stopwatch.lap("merges");
+    phase("merges");
     if (plan.chart()) add_chart(sheets, sheet, *plan.chart(), sheet_index);
-    stopwatch.lap("chart");
+    phase("chart");
     use_page_style(controller->getModel(), sheet);
 }
 
@@ -439,7 +445,8 @@ std::string write_sheet(const Reference<css::uno::XComponentContext>& context,
         inserted = true;
         Reference<css::sheet::XSpreadsheet> sheet(sheets->getByName(sheet_name), UNO_QUERY_THROW);
         stopwatch.lap("insert");
-        write_plan(context, controller, sheets, sheet, index_of(sheets, sheet_name), plan, stopwatch);
+        write_plan(context, controller, sheets, sheet, index_of(sheets, sheet_name), plan, stopwatch,
+                   placement.fail_after);
         Reference<css::sheet::XSpreadsheetView>(controller, UNO_QUERY_THROW)->setActiveSheet(sheet);
         Reference<css::view::XSelectionSupplier>(controller, UNO_QUERY_THROW)->select(Any(cells(sheet, Area{0, 0})));
     } catch (...) {

@@ -19,6 +19,8 @@ struct SheetPlacement {
     std::string base_name;     // made unique: "Name", "Name (2)", …
     Placement where = Placement::after_source;
     std::string source_sheet;  // the sheet of the data
+    // For the tests of the rollback: fail on purpose after this phase of the writing ("" never).
+    std::string fail_after;
 };
 
 // Inserts the sheet, writes the plan, shows the sheet in the view; returns the sheet's name.
