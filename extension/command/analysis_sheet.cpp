@@ -76,18 +76,18 @@ struct Layout {
         return static_cast<std::size_t>(std::ceil(static_cast<double>(characters) / per_line));
     }
 
-    // A header row: a corner text, the column labels (references to the observed header), and
-    // optionally more headers after them.
-    void header_row(const std::string& corner, const std::vector<std::string>& extra = {}) {
-        if (!corner.empty()) plan.text(row, 0, corner, Look::header);
-        else plan.look(Area{row, 0}, Look::header);
-        for (std::size_t c = 0; c < body_columns; ++c) plan.formula(row, 1 + c, "=" + column_label[c], Look::header);
-        for (std::size_t i = 0; i < extra.size(); ++i) plan.text(row, 1 + body_columns + i, extra[i], Look::header);
+    // A header row: the corner cell ruled, then the column labels (references to the observed header).
+    void header_row() {
+        plan.look(Area{row, 0}, Look::header);
+        plan.formulas(Area{row, 1, 1, body_columns}, references(column_label), Look::header);
         ++row;
     }
     // Row labels (references to the observed labels) for `body_rows` rows from the current row.
-    void row_labels() {
-        for (std::size_t r = 0; r < body_rows; ++r) plan.formula(row + r, 0, "=" + row_label[r], Look::label);
+    void row_labels() { plan.formulas(Area{row, 0, body_rows, 1}, references(row_label), Look::label); }
+    static std::vector<std::string> references(const std::vector<std::string>& cells) {
+        std::vector<std::string> formulas;
+        for (const std::string& cell : cells) formulas.push_back("=" + cell);
+        return formulas;
     }
     Area body_here() const { return Area{row, 1, body_rows, body_columns}; }
 };
@@ -176,32 +176,44 @@ void counts_block(Layout& s) {
         auto source_cell = [&](std::size_t row, std::size_t column) {
             return absolute_reference(RangeRef{table.range.sheet, row, column, 1, 1});
         };
-        for (std::size_t c = 0; c < s.body_columns; ++c) {
-            if (table.header_row) s.plan.formula(header, 1 + c, "=T(" + source_cell(table.range.row, left + c) + ")", Look::header);
-            else s.plan.text(header, 1 + c, reading.column_names[c], Look::header);
-        }
-        for (std::size_t r = 0; r < s.body_rows; ++r) {
-            if (table.header_column)
-                s.plan.formula(header + 1 + r, 0, "=T(" + source_cell(top + r, table.range.column) + ")", Look::label);
-            else s.plan.text(header + 1 + r, 0, reading.row_names[r], Look::label);
+        // Labels as T(…) of the source's label cells (a blank label shows blank, not 0); without
+        // labels, our own "Row 1", "Column 1".
+        if (table.header_row) {
+            std::vector<std::string> labels;
             for (std::size_t c = 0; c < s.body_columns; ++c)
-                s.plan.formula(header + 1 + r, 1 + c, "=" + source_cell(top + r, left + c), Look::count);
+                labels.push_back("=T(" + source_cell(table.range.row, left + c) + ")");
+            s.plan.formulas(Area{header, 1, 1, s.body_columns}, std::move(labels), Look::header);
+        } else {
+            for (std::size_t c = 0; c < s.body_columns; ++c) s.plan.text(header, 1 + c, reading.column_names[c], Look::header);
         }
+        if (table.header_column) {
+            std::vector<std::string> labels;
+            for (std::size_t r = 0; r < s.body_rows; ++r) labels.push_back("=T(" + source_cell(top + r, table.range.column) + ")");
+            s.plan.formulas(Area{header + 1, 0, s.body_rows, 1}, std::move(labels), Look::label);
+        } else {
+            for (std::size_t r = 0; r < s.body_rows; ++r) s.plan.text(header + 1 + r, 0, reading.row_names[r], Look::label);
+        }
+        std::vector<std::string> counts;
+        for (std::size_t r = 0; r < s.body_rows; ++r)
+            for (std::size_t c = 0; c < s.body_columns; ++c) counts.push_back("=" + source_cell(top + r, left + c));
+        s.plan.formulas(s.observed, std::move(counts), Look::count);
         s.table = absolute_reference(table.range);
         s.table_shown = qualified_address(table.range);
     }
     // Totals.
     const std::size_t total_column = 1 + s.body_columns, total_row = header + 1 + s.body_rows;
     s.plan.text(header, total_column, "Total", Look::header);
+    std::vector<std::string> row_sums, column_sums;
     for (std::size_t r = 0; r < s.body_rows; ++r) {
         const std::size_t row = header + 1 + r;
-        s.plan.formula(row, total_column, "=SUM(" + absolute_area(Area{row, 1, 1, s.body_columns}) + ")", Look::count);
+        row_sums.push_back("=SUM(" + absolute_area(Area{row, 1, 1, s.body_columns}) + ")");
         s.row_total.push_back(absolute_cell(row, total_column));
     }
+    s.plan.formulas(Area{header + 1, total_column, s.body_rows, 1}, std::move(row_sums), Look::count);
     s.plan.text(total_row, 0, "Total", Look::label);
     for (std::size_t c = 0; c <= s.body_columns; ++c)
-        s.plan.formula(total_row, 1 + c, "=SUM(" + absolute_area(Area{header + 1, 1 + c, s.body_rows, 1}) + ")",
-                       Look::count);
+        column_sums.push_back("=SUM(" + absolute_area(Area{header + 1, 1 + c, s.body_rows, 1}) + ")");
+    s.plan.formulas(Area{total_row, 1, 1, s.body_columns + 1}, std::move(column_sums), Look::count);
     s.plan.name("total", absolute_cell(total_row, total_column));
     s.row = total_row + 1;
 
@@ -225,7 +237,7 @@ void counts_block(Layout& s) {
 
 void expected_block(Layout& s) {
     s.heading("Expected counts if the two were independent (ASSOC.EXPECTED)");
-    s.header_row("");
+    s.header_row();
     s.row_labels();
     s.plan.array_formula(s.body_here(), "=ASSOC.EXPECTED(" + s.table + ")", Look::decimal);
     s.row += s.body_rows;
@@ -248,7 +260,7 @@ std::string standouts_formula(const Area& residuals, const std::string& row_labe
 
 void residuals_block(Layout& s) {
     s.heading("Adjusted residuals: where the counts depart from independence (ASSOC.RESIDUALS)");
-    s.header_row("");
+    s.header_row();
     s.row_labels();
     const Area body = s.body_here();
     s.plan.array_formula(body, "=ASSOC.RESIDUALS(" + s.table + ";\"adjusted\")", Look::residual);
@@ -468,14 +480,15 @@ void two_by_two_block(Layout& s) {
 void row_percent_block(Layout& s) {
     s.heading("Row percentages: each row's counts as shares of its total");
     const std::size_t header = s.row;
-    s.header_row("");
+    s.header_row();
     s.row_labels();
+    std::vector<std::string> shares;
     for (std::size_t r = 0; r < s.body_rows; ++r)
         for (std::size_t c = 0; c < s.body_columns; ++c) {
             const std::string observed = absolute_cell(s.observed.row + r, s.observed.column + c);
-            s.plan.formula(s.row + r, 1 + c, "=IF(" + s.row_total[r] + "=0;\"\";" + observed + "/" + s.row_total[r] + ")",
-                           Look::percent);
+            shares.push_back("=IF(" + s.row_total[r] + "=0;\"\";" + observed + "/" + s.row_total[r] + ")");
         }
+    s.plan.formulas(s.body_here(), std::move(shares), Look::percent);
     s.row += s.body_rows;
     const std::size_t chart_rows = 6 + 2 * s.body_rows;
     ChartPlan chart;

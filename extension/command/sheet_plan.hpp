@@ -45,11 +45,16 @@ enum class Look {
 };
 
 struct Entry {
-    enum class Kind { text, number, formula, array_formula };
+    enum class Kind { text, number, formula, array_formula, formula_block };
     Kind kind = Kind::text;
-    Area area;            // one cell, or the block of an array formula
+    Area area;            // one cell, or the block of an array formula or a formula block
     std::string content;  // a text, or a formula in English names with ";" separators
     double number = 0.0;  // the value of a number entry
+    std::vector<std::string> block;  // a formula block: one formula per cell, row by row
+
+    // The formula or text of the cell (row, column) of this entry ("" outside it; an array
+    // formula's for its first cell only).
+    std::string at(std::size_t row, std::size_t column) const;
 };
 
 struct ChartPlan {
@@ -65,6 +70,9 @@ public:
     void number(std::size_t row, std::size_t column, double value, Look look);
     void formula(std::size_t row, std::size_t column, std::string formula, Look look);
     void array_formula(const Area& area, std::string formula, Look look);
+    // A block of ordinary formulas, one per cell (row by row), written in one go: one step of
+    // Calc's undo list instead of one per cell (see uno/sheet_writer.cpp on undo).
+    void formulas(const Area& area, std::vector<std::string> formulas, Look look);
     void look(const Area& area, Look look);
     // Merges the area and wraps its text over `lines` lines of height.
     void merge(const Area& area, std::size_t lines = 1);
@@ -91,10 +99,14 @@ public:
     const std::map<std::size_t, double>& column_widths() const { return column_widths_; }
     // The entry whose area starts at (row, column), or nullptr.
     const Entry* entry_at(std::size_t row, std::size_t column) const;
+    // The formula or text written into the cell (row, column), "" for none.
+    std::string content_at(std::size_t row, std::size_t column) const;
     std::size_t rows_used() const;
     std::size_t columns_used() const;
 
 private:
+    void resolve_in(std::string& text) const;
+
     std::vector<Entry> entries_;
     std::vector<std::pair<Area, Look>> looks_;
     std::vector<std::pair<Area, std::size_t>> merges_;

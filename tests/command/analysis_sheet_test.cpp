@@ -35,9 +35,13 @@ const Entry* value_of(const SheetPlan& plan, const std::string& label) {
     return nullptr;
 }
 
+// The entry with `text` in its formula (or in one of a block's formulas), or nullptr.
 const Entry* containing(const SheetPlan& plan, const std::string& text) {
-    for (const Entry& entry : plan.entries())
+    for (const Entry& entry : plan.entries()) {
         if (entry.content.find(text) != std::string::npos) return &entry;
+        for (const std::string& formula : entry.block)
+            if (formula.find(text) != std::string::npos) return &entry;
+    }
     return nullptr;
 }
 
@@ -68,6 +72,16 @@ TEST(AnalysisSheet, MirrorsTheSourceCountsAndLabelsWithAbsoluteReferences) {
     ASSERT_NE(containing(plan, "=T($'HR data'.$C$4)"), nullptr);
 }
 
+TEST(AnalysisSheet, WritesTheCountsOfATableAsOneBlockOfReferences) {
+    const SheetPlan plan = plan_analysis_sheet(reading_of(branches), {}, true);
+    const Entry* counts = containing(plan, "=$'HR data'.$B$5");
+    ASSERT_NE(counts, nullptr);
+    EXPECT_EQ(counts->kind, Entry::Kind::formula_block);
+    EXPECT_EQ(counts->area.rows, 3u);
+    EXPECT_EQ(counts->area.columns, 3u);
+    EXPECT_EQ(counts->at(counts->area.row + 2, counts->area.column + 2), "=$'HR data'.$D$7");
+}
+
 TEST(AnalysisSheet, ResolvesEveryReferenceBetweenBlocks) {
     for (bool exact_live : {true, false}) {
         const SheetPlan plan = plan_analysis_sheet(reading_of(teams), {}, exact_live);
@@ -92,9 +106,7 @@ TEST(AnalysisSheet, ChartsTheRowPercentagesWithTheirLabels) {
     const Area data = plan.chart()->data;
     EXPECT_EQ(data.rows, 4u);
     EXPECT_EQ(data.columns, 4u);
-    const Entry* first_share = plan.entry_at(data.row + 1, 1);
-    ASSERT_NE(first_share, nullptr);
-    EXPECT_EQ(first_share->content.rfind("=IF(", 0), 0u);
+    EXPECT_EQ(plan.content_at(data.row + 1, 1).rfind("=IF(", 0), 0u);
 }
 
 TEST(AnalysisSheet, TakesTheExactPValueAndTheIntervalOfVFromTheReportWhenTheExactTestIsQuick) {
@@ -127,10 +139,8 @@ TEST(AnalysisSheet, ArrangesA2x2TableWithTheChosenOutcomeFirstAndTheChosenGroupF
     // The arranged block is the one ASSOC.ODDSRATIO reads; its first cell is Team B × Not promoted.
     const std::string block = odds->content.substr(17, odds->content.find(';') - 17);
     const std::size_t row = std::stoul(block.substr(block.find('$', 1) + 1)) - 1;
-    const Entry* first = plan.entry_at(row, 1);
-    ASSERT_NE(first, nullptr);
     // The observed block: its header in row 8, Team B in row 10, Not promoted in column C.
-    EXPECT_EQ(first->content, "=$C$10");
+    EXPECT_EQ(plan.content_at(row, 1), "=$C$10");
     EXPECT_NE(containing(plan, "=ASSOC.RISKRATIO("), nullptr);
 }
 

@@ -12,7 +12,11 @@
 #include <com/sun/star/chart/XChartDocument.hpp>
 #include <com/sun/star/chart/XDiagram.hpp>
 #include <com/sun/star/container/XIndexAccess.hpp>
+#include <com/sun/star/beans/NamedValue.hpp>
+#include <com/sun/star/configuration/theDefaultProvider.hpp>
 #include <com/sun/star/container/XNameAccess.hpp>
+#include <com/sun/star/container/XNameReplace.hpp>
+#include <com/sun/star/util/XChangesBatch.hpp>
 #include <com/sun/star/datatransfer/XTransferableSupplier.hpp>
 #include <com/sun/star/document/XEmbeddedObjectSupplier.hpp>
 #include <com/sun/star/document/XUndoManager.hpp>
@@ -25,6 +29,7 @@
 #include <com/sun/star/lang/XMultiServiceFactory.hpp>
 #include <com/sun/star/document/XActionLockable.hpp>
 #include <com/sun/star/sheet/XArrayFormulaRange.hpp>
+#include <com/sun/star/sheet/XCellRangeFormula.hpp>
 #include <com/sun/star/sheet/XSheetCellRangeContainer.hpp>
 #include <com/sun/star/sheet/XSheetOutline.hpp>
 #include <com/sun/star/sheet/XSpreadsheet.hpp>
@@ -51,6 +56,7 @@
 #include <com/sun/star/view/XSelectionSupplier.hpp>
 #include <cstdio>
 #include <map>
+#include <optional>
 
 #include "palette.hpp"
 #include "uno_values.hpp"
@@ -335,10 +341,18 @@ void write_plan(const Reference<css::uno::XComponentContext>& context, const Ref
     phase("colour_scale");
 
     Reference<css::table::XColumnRowRange> lines(sheet, UNO_QUERY_THROW);
-    Reference<css::container::XIndexAccess> columns(lines->getColumns(), UNO_QUERY_THROW);
-    for (const auto& [column, millimetres] : plan.column_widths())
-        set(Reference<css::beans::XPropertySet>(columns->getByIndex(static_cast<sal_Int32>(column)), UNO_QUERY_THROW),
-            "Width", Any(static_cast<sal_Int32>(millimetres * 100)));
+    // Column widths, one call for each run of neighbouring columns of one width.
+    const auto& widths = plan.column_widths();
+    for (auto run = widths.begin(); run != widths.end();) {
+        auto end = std::next(run);
+        while (end != widths.end() && end->first == std::prev(end)->first + 1 && end->second == run->second) ++end;
+        const Area columns{0, run->first, 1, std::prev(end)->first - run->first + 1};
+        set(Reference<css::beans::XPropertySet>(
+                Reference<css::table::XColumnRowRange>(cells(sheet, columns), UNO_QUERY_THROW)->getColumns(),
+                UNO_QUERY_THROW),
+            "Width", Any(static_cast<sal_Int32>(run->second * 100)));
+        run = end;
+    }
 
     for (const Entry& entry : plan.entries()) {
         const Reference<css::table::XCellRange> range = cells(sheet, entry.area);
@@ -352,6 +366,17 @@ void write_plan(const Reference<css::uno::XComponentContext>& context, const Ref
         case Entry::Kind::array_formula:
             Reference<css::sheet::XArrayFormulaRange>(range, UNO_QUERY_THROW)->setArrayFormula(to_ou_string(entry.content));
             break;
+        case Entry::Kind::formula_block: {
+            Sequence<Sequence<OUString>> rows(static_cast<sal_Int32>(entry.area.rows));
+            for (std::size_t r = 0; r < entry.area.rows; ++r) {
+                Sequence<OUString> row(static_cast<sal_Int32>(entry.area.columns));
+                for (std::size_t c = 0; c < entry.area.columns; ++c)
+                    row.getArray()[c] = to_ou_string(entry.block[r * entry.area.columns + c]);
+                rows.getArray()[r] = row;
+            }
+            Reference<css::sheet::XCellRangeFormula>(range, UNO_QUERY_THROW)->setFormulaArray(rows);
+            break;
+        }
         }
     }
 
@@ -395,6 +420,58 @@ void write_plan(const Reference<css::uno::XComponentContext>& context, const Ref
     use_page_style(controller->getModel(), sheet);
 }
 
+// Calc keeps at most "Undo steps" actions (Tools ▸ Options ▸ LibreOffice ▸ Advanced ▸ Expert
+// Configuration: org.openoffice.Office.Common/Undo/Steps, 100 by default), and in LibreOffice 7.4
+// that limit also cuts the actions inside one undo context, oldest first: measured in a visible
+// window, Undo of a sheet built with more recorded actions than that left the sheet and its first
+// rows behind (and with 1,000 steps removed it whole). So while the sheet is written, the limit is
+// raised to cover its actions, and set back afterwards (the document's undo list follows the
+// setting at once; the setting is the user's and ends as it was).
+class UndoRoom {
+public:
+    UndoRoom(const Reference<css::uno::XComponentContext>& context, sal_Int32 actions) {
+        try {
+            Sequence<Any> arguments(1);
+            arguments.getArray()[0] <<= css::beans::NamedValue("nodepath", Any(OUString("/org.openoffice.Office.Common/Undo")));
+            Reference<css::lang::XMultiServiceFactory> provider =
+                css::configuration::theDefaultProvider::get(context);
+            access_.set(provider->createInstanceWithArguments("com.sun.star.configuration.ConfigurationUpdateAccess",
+                                                              arguments),
+                        UNO_QUERY_THROW);
+            access_->getByName("Steps") >>= previous_;
+            if (previous_ >= actions) return;
+            change(actions);
+            raised_ = true;
+        } catch (const css::uno::Exception&) {
+            // Without the setting the sheet is still made; Undo may then leave part of it behind.
+        }
+    }
+    ~UndoRoom() {
+        try {
+            if (raised_) change(previous_);
+        } catch (...) {
+        }
+    }
+    UndoRoom(const UndoRoom&) = delete;
+    UndoRoom& operator=(const UndoRoom&) = delete;
+
+private:
+    void change(sal_Int32 steps) {
+        Reference<css::container::XNameReplace>(access_, UNO_QUERY_THROW)->replaceByName("Steps", Any(steps));
+        Reference<css::util::XChangesBatch>(access_, UNO_QUERY_THROW)->commitChanges();
+    }
+
+    Reference<css::container::XNameAccess> access_;
+    sal_Int32 previous_ = 0;
+    bool raised_ = false;
+};
+
+// About how many actions Calc records while the plan is written, with room to spare.
+sal_Int32 recorded_actions(const SheetPlan& plan) {
+    return static_cast<sal_Int32>(plan.entries().size() + 18 + 2 * plan.merges().size() + plan.column_widths().size() +
+                                  2 * plan.collapsed_rows().size() + 20);
+}
+
 sal_Int16 index_of(const Reference<css::sheet::XSpreadsheets>& sheets, const OUString& name) {
     const Sequence<OUString> names = sheets->getElementNames();
     for (sal_Int32 i = 0; i < names.getLength(); ++i)
@@ -426,7 +503,11 @@ std::string write_sheet(const Reference<css::uno::XComponentContext>& context,
     Reference<css::document::XUndoManager> undo;
     Reference<css::document::XUndoManagerSupplier> undo_supplier(controller->getModel(), UNO_QUERY);
     if (undo_supplier.is()) undo = undo_supplier->getUndoManager();
-    if (undo.is()) undo->enterUndoContext(to_ou_string(undo_title));
+    std::optional<UndoRoom> room;
+    if (undo.is()) {
+        room.emplace(context, recorded_actions(plan));
+        undo->enterUndoContext(to_ou_string(undo_title));
+    }
     // While the sheet is written, the document neither repaints nor adjusts row heights cell by cell.
     Reference<css::document::XActionLockable> lock(controller->getModel(), UNO_QUERY);
     struct Unlock {
