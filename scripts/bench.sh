@@ -3,7 +3,8 @@
 #   1. the exact test against R's fisher.test on bench/exact_suite.txt (R is only a yardstick);
 #   2. counting raw records in the core (ns per record, growth with the number of levels);
 #   3. ASSOC.COUNTS in real Calc against the cost of handing the ranges to any add-in, and
-#      against a COUNTIFS grid.
+#      against a COUNTIFS grid;
+#   4. the menu command: how long it takes to build its analysis sheet (goal: under 0.5 s for 10×10).
 # Installs what it needs (R for step 1), builds in build/, prints everything to the terminal.
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -25,3 +26,8 @@ if [ -x bench/calc/run.sh ]; then
   echo "== 3. ASSOC.COUNTS in headless Calc"
   bench/calc/run.sh build
 fi
+
+echo
+echo "== 4. The menu command: building the analysis sheet in headless Calc"
+cmake --build build -j2 --target assoc_oxt
+/usr/bin/python3 bench/calc/command_bench.py --oxt build/extension/assoc.oxt

@@ -54,6 +54,7 @@
 #include <com/sun/star/util/XNumberFormats.hpp>
 #include <com/sun/star/util/XNumberFormatsSupplier.hpp>
 #include <com/sun/star/view/XSelectionSupplier.hpp>
+#include <atomic>
 #include <cstdio>
 #include <map>
 #include <optional>
@@ -261,9 +262,13 @@ void paste_colour_scale(const Reference<css::uno::XComponentContext>& context,
     if (closer.is()) closer->close(true);
 }
 
+// A chart name not used in the document, nor earlier in this session: Calc keeps a listener per
+// chart name after a sheet with a chart is removed (by Undo, the rollback, or the user), and
+// a new chart of the same name then crashed the office (7.4.7, ScChartListener::StartListeningTo).
 std::string unique_chart_name(const Reference<css::sheet::XSpreadsheets>& sheets) {
+    static std::atomic<int> last{0};
     Reference<css::container::XIndexAccess> all(sheets, UNO_QUERY_THROW);
-    for (int n = 1;; ++n) {
+    for (int n = ++last;; n = ++last) {
         const OUString name = to_ou_string("Assoc chart " + std::to_string(n));
         bool used = false;
         for (sal_Int32 i = 0; i < all->getCount() && !used; ++i) {
