@@ -285,12 +285,17 @@ void residuals_block(Layout& s) {
     for (const std::string& name : s.reading.row_names) label_length = std::max(label_length, name.size());
     for (const std::string& name : s.reading.column_names) label_length = std::max(label_length, name.size());
     const std::size_t length = 50 + std::min<std::size_t>(beyond, 6) * (2 * label_length + 35);
-    const Area labels_column{body.row, 0, s.body_rows, 1};
-    const Area labels_row{body.row - 1, 1, 1, s.body_columns};
+    // In a table with two columns the second column's residuals only mirror the first's (the same
+    // size, the other sign), and so with two rows: the sentence names the first only.
+    Area named = body;
+    if (s.body_columns == 2 && s.reading.table.columns() == 2) named.columns = 1;
+    if (s.body_rows == 2 && s.reading.table.rows() == 2) named.rows = 1;
+    const Area labels_column{named.row, 0, named.rows, 1};
+    const Area labels_row{named.row - 1, 1, 1, named.columns};
     s.plan.text(s.row, 0, "Cells that stand out", Look::label);
     const Area sentence{s.row, 1, 1, s.last_column};
-    s.plan.array_formula(Area{s.row, 1}, standouts_formula(body, absolute_area(labels_column), absolute_area(labels_row)),
-                         Look::text);
+    s.plan.array_formula(Area{s.row, 1},
+                         standouts_formula(named, absolute_area(labels_column), absolute_area(labels_row)), Look::text);
     s.plan.merge(sentence, s.lines_for(length, sentence));
     ++s.row;
     s.gap();

@@ -269,6 +269,9 @@ class TwoByTwoCommand(CommandCase):
                             [ratios["odds"]], 1e-10, "odds ratio")
         self.assertAllClose([[self.figure(sheet, "Risk ratio (ASSOC.RISKRATIO)", c) for c in (1, 2, 3)]],
                             [ratios["risk"]], 1e-10, "risk ratio")
+        # In a 2×2 table the other three residuals mirror the first: only it is named.
+        self.assertEqual(self.cell_right_of(sheet, "Cells that stand out").getString(),
+                         "Team A × Promoted: more than expected (+2.6).")
 
     def test_the_outcome_and_the_group_of_interest_can_be_the_second_ones(self):
         sheet = self.analyse(self.put(TEAMS), OutcomeColumn=2, GroupRow=2)

@@ -144,6 +144,16 @@ TEST(AnalysisSheet, ArrangesA2x2TableWithTheChosenOutcomeFirstAndTheChosenGroupF
     EXPECT_NE(containing(plan, "=ASSOC.RISKRATIO("), nullptr);
 }
 
+TEST(AnalysisSheet, NamesTheCellsThatStandOutInTheFirstColumnOnlyWhenTheSecondMirrorsIt) {
+    const SheetPlan plan = plan_analysis_sheet(reading_of(teams), {}, true);
+    const Entry* residuals = containing(plan, "=ASSOC.RESIDUALS(");
+    const Entry* standouts = containing(plan, "TEXTJOIN(");
+    ASSERT_NE(residuals, nullptr);
+    ASSERT_NE(standouts, nullptr);
+    const std::string first_cell = absolute_cell(residuals->area.row, residuals->area.column);
+    EXPECT_NE(standouts->content.find("SUMPRODUCT(ABS(" + first_cell + ")>2)"), std::string::npos);
+}
+
 TEST(AnalysisSheet, HasNoRatiosForTablesLargerThan2x2) {
     const SheetPlan plan = plan_analysis_sheet(reading_of(branches), {}, true);
     EXPECT_EQ(containing(plan, "ASSOC.ODDSRATIO"), nullptr);
