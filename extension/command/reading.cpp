@@ -200,16 +200,7 @@ Reading read_block(const RangeRef& range, const CellGrid& grid, ReadAs read_as, 
     return read_table(range, grid);
 }
 
-}  // namespace
-
-ReadAs parse_read_as(const std::string& word) {
-    if (word.empty() || word == "automatic") return ReadAs::automatic;
-    if (word == "table") return ReadAs::table;
-    if (word == "records") return ReadAs::records;
-    throw Error("ReadAs must be \"table\", \"records\" or \"automatic\", not \"" + word + "\".");
-}
-
-Reading read_selection(const SelectionContent& content, ReadAs read_as) {
+Reading read_any(const SelectionContent& content, ReadAs read_as) {
     require(content.ranges.size() == content.values.size(), "The selection could not be read.");
     if (content.ranges.empty()) throw Error("Nothing is selected. " + select_hint);
     if (content.ranges.size() > 2)
@@ -231,6 +222,28 @@ Reading read_selection(const SelectionContent& content, ReadAs read_as) {
     const CellGrid& grid = content.values[0];
     if (grid.empty()) throw Error("Nothing is selected. " + select_hint);
     return read_block(content.ranges[0], grid, read_as, content.whole_columns);
+}
+
+}  // namespace
+
+ReadAs parse_read_as(const std::string& word) {
+    if (word.empty() || word == "automatic") return ReadAs::automatic;
+    if (word == "table") return ReadAs::table;
+    if (word == "records") return ReadAs::records;
+    throw Error("ReadAs must be \"table\", \"records\" or \"automatic\", not \"" + word + "\".");
+}
+
+Reading read_selection(const SelectionContent& content, ReadAs read_as) {
+    Reading reading = read_any(content, read_as);
+    // The sheet shows each row and column of the table in several blocks and in the chart.
+    const std::size_t rows = reading.table.body_rows(), columns = reading.table.body_columns();
+    if (rows > max_sheet_rows || columns > max_sheet_columns)
+        throw Error("The selection gives a table of " + format_count(static_cast<double>(rows)) + " rows × " +
+                    format_count(static_cast<double>(columns)) + " columns; the command lays out at most " +
+                    std::to_string(max_sheet_rows) + " rows and " + std::to_string(max_sheet_columns) +
+                    " columns. For a table this large, use the worksheet functions on it directly (ASSOC.PVALUE, "
+                    "ASSOC.RESIDUALS, ASSOC.CELLTEST, …).");
+    return reading;
 }
 
 std::string cell_address(std::size_t row, std::size_t column) {

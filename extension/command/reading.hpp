@@ -78,6 +78,11 @@ Reading read_selection(const SelectionContent& content, ReadAs read_as = ReadAs:
 // table of counts that long is rare, numeric codes of records are not) unless ReadAs says which.
 inline constexpr std::size_t max_two_column_table_rows = 30;
 
+// The largest table the analysis sheet lays out (each row and column of it appears in several blocks
+// and in the chart); larger ones are refused with a pointer to the worksheet functions.
+inline constexpr std::size_t max_sheet_rows = 200;
+inline constexpr std::size_t max_sheet_columns = 50;
+
 // The cell address as people write it: "A1", "AB12".
 std::string cell_address(std::size_t row, std::size_t column);
 // "A4:C9", or "A4" for one cell.

@@ -2,9 +2,9 @@
 """The menu command in a visible Calc window: a virtual X server (Xvfb), a throwaway office with the
 extension installed, the sample workbook samples/promotions.fods (a copy) open in a window, its
 count table selected, and the command run as a user runs it: the Data menu opened with the keyboard
-(Alt+D), Statistics ▸ "Analyse Selection with Assoc..." chosen, its "Make the Sheet" button pressed; then
-the new sheet is checked, undone with Ctrl+Z in one step, and the toolbar button run and cancelled.
-Keys go through the office's own event queue (the toolkit's XToolkitRobot); menus, dialogs and
+(Alt+D), Statistics ▸ "Analyse Selection with Assoc..." chosen, and the dialog's "Make the Sheet"
+button pressed; then the new sheet is checked, undone with Ctrl+Z in one step, the toolbar button run
+and cancelled, and a single selected column answered with a message box. Keys go through the office's own event queue (the toolkit's XToolkitRobot); menus, dialogs and
 buttons are found through the accessibility API. Screenshots of the menu, the dialog and the sheet
 are taken from the X server.
 
@@ -289,6 +289,18 @@ class VisibleSession:
         wait_until(lambda: self.top_window(TITLE) is None, 20, "Cancel to close the dialog")
         assert doc.Sheets.ElementNames == ("Promotions",), doc.Sheets.ElementNames
         print("the toolbar button opened the dialog; Cancel made no sheet", flush=True)
+
+        # A selection the command cannot read gets a message box, and no sheet.
+        controller.select(doc.Sheets.getByName("Promotions").getCellRangeByName("D5:D9"))
+        wait_until(lambda: button.getAccessibleStateSet().contains(ENABLED), 10, "the button for a column")
+        button.doAccessibleAction(0)
+        message = wait_until(lambda: self.top_window("Assoc: analyse selection"), 20, "the message box")
+        text = find(message, lambda c: c.getAccessibleName().startswith("Only one column is selected."), 4)
+        assert text is not None, "the message box does not say why"
+        self.press_button(message, "OK")
+        wait_until(lambda: self.top_window("Assoc: analyse selection") is None, 20, "OK to close the message")
+        assert doc.Sheets.ElementNames == ("Promotions",), doc.Sheets.ElementNames
+        print("a single column got the message box and no sheet", flush=True)
         doc.close(True)
 
 

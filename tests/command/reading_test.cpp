@@ -190,6 +190,18 @@ TEST(ReadSelection, RefusesTwoPartsReadAsATable) {
                  "Two separate columns cannot be read as a table of counts; select the table as one block.");
 }
 
+TEST(ReadSelection, RefusesRecordsWithMoreLabelsThanTheSheetLaysOut) {
+    CellGrid cells(400, 2);
+    for (std::size_t r = 0; r < 400; ++r) {
+        cells.at(r, 0) = Cell::text("Employee " + std::to_string(r % 250));
+        cells.at(r, 1) = Cell::text(r % 3 == 0 ? "Yes" : "No");
+    }
+    expect_error([&] { read_selection(block(cells, 0, 1)); },
+                 "The selection gives a table of 250 rows × 2 columns; the command lays out at most 200 rows and 50 "
+                 "columns. For a table this large, use the worksheet functions on it directly (ASSOC.PVALUE, "
+                 "ASSOC.RESIDUALS, ASSOC.CELLTEST, …).");
+}
+
 TEST(ParseReadAs, RefusesAnUnknownWord) {
     expect_error([] { parse_read_as("list"); },
                  "ReadAs must be \"table\", \"records\" or \"automatic\", not \"list\".");
