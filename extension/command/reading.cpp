@@ -66,7 +66,7 @@ std::string count_phrase(std::size_t n, const char* word) {
 }
 
 Reading read_records(RangeRef rows_range, const CellGrid& rows_column, RangeRef columns_range,
-                     const CellGrid& columns_column, bool whole_columns) {
+                     const CellGrid& columns_column, bool whole_columns, const TextCollation& collation) {
     if (rows_range.row != columns_range.row || rows_range.rows != columns_range.rows)
         throw Error("The two columns of records must cover the same rows: one covers " + rows_phrase(rows_range) +
                     ", the other " + rows_phrase(columns_range) + ".");
@@ -89,7 +89,8 @@ Reading read_records(RangeRef rows_range, const CellGrid& rows_column, RangeRef 
 
     Reading reading;
     try {
-        const RecordCounts counts = counts_from_records(column_of(rows_column, 0, first), column_of(columns_column, 0, first));
+        const RecordCounts counts = counts_from_records(column_of(rows_column, 0, first), column_of(columns_column, 0, first),
+                                                        CellGrid(), LevelOrder::sorted, collation);
         source.row_levels = counts.row_levels;
         source.column_levels = counts.column_levels;
         source.records = counts.records;
@@ -164,7 +165,8 @@ Reading read_table(const RangeRef& range, const CellGrid& grid) {
     return reading;
 }
 
-Reading read_block(const RangeRef& range, const CellGrid& grid, ReadAs read_as, bool whole_columns) {
+Reading read_block(const RangeRef& range, const CellGrid& grid, ReadAs read_as, bool whole_columns,
+                   const TextCollation& collation) {
     if (grid.rows() * grid.columns() <= 1) throw Error("Only one cell is selected. " + select_hint);
     if (grid.columns() == 1)
         throw Error("Only one column is selected. " + select_hint +
@@ -180,12 +182,12 @@ Reading read_block(const RangeRef& range, const CellGrid& grid, ReadAs read_as, 
         left.columns = right.columns = 1;
         right.column += 1;
         const CellGrid a = column_of(grid, 0), b = column_of(grid, 1);
-        if (read_as == ReadAs::records) return read_records(left, a, right, b, whole_columns);
+        if (read_as == ReadAs::records) return read_records(left, a, right, b, whole_columns, collation);
         const std::size_t start = a.rows() > 1 && a.at(0, 0).is_text() && b.at(0, 0).is_text() ? 1 : 0;
         const bool text_a = any_text(a, start), text_b = any_text(b, start);
-        if (text_a && text_b) return read_records(left, a, right, b, whole_columns);
+        if (text_a && text_b) return read_records(left, a, right, b, whole_columns, collation);
         if (text_a || text_b) {
-            if (has_repeated_label(text_a ? a : b, start)) return read_records(left, a, right, b, whole_columns);
+            if (has_repeated_label(text_a ? a : b, start)) return read_records(left, a, right, b, whole_columns, collation);
             throw Error("The selection holds one column of labels and one column of numbers, like a list of counts "
                         "by one category. A test of association needs a table with at least two columns of counts, "
                         "or two columns of records. To read the two columns as records anyway, choose \"two columns "
@@ -200,7 +202,7 @@ Reading read_block(const RangeRef& range, const CellGrid& grid, ReadAs read_as, 
     return read_table(range, grid);
 }
 
-Reading read_any(const SelectionContent& content, ReadAs read_as) {
+Reading read_any(const SelectionContent& content, ReadAs read_as, const TextCollation& collation) {
     require(content.ranges.size() == content.values.size(), "The selection could not be read.");
     if (content.ranges.empty()) throw Error("Nothing is selected. " + select_hint);
     if (content.ranges.size() > 2)
@@ -216,12 +218,12 @@ Reading read_any(const SelectionContent& content, ReadAs read_as) {
                         "single column. " + select_hint);
         // Left to right, whatever the order of selecting.
         const bool swap = content.ranges[1].column < content.ranges[0].column;
-        return swap ? read_records(content.ranges[1], b, content.ranges[0], a, content.whole_columns)
-                    : read_records(content.ranges[0], a, content.ranges[1], b, content.whole_columns);
+        return swap ? read_records(content.ranges[1], b, content.ranges[0], a, content.whole_columns, collation)
+                    : read_records(content.ranges[0], a, content.ranges[1], b, content.whole_columns, collation);
     }
     const CellGrid& grid = content.values[0];
     if (grid.empty()) throw Error("Nothing is selected. " + select_hint);
-    return read_block(content.ranges[0], grid, read_as, content.whole_columns);
+    return read_block(content.ranges[0], grid, read_as, content.whole_columns, collation);
 }
 
 }  // namespace
@@ -233,8 +235,8 @@ ReadAs parse_read_as(const std::string& word) {
     throw Error("ReadAs must be \"table\", \"records\" or \"automatic\", not \"" + word + "\".");
 }
 
-Reading read_selection(const SelectionContent& content, ReadAs read_as) {
-    Reading reading = read_any(content, read_as);
+Reading read_selection(const SelectionContent& content, const TextCollation& collation, ReadAs read_as) {
+    Reading reading = read_any(content, read_as, collation);
     // The sheet shows each row and column of the table in several blocks and in the chart.
     const std::size_t rows = reading.table.body_rows(), columns = reading.table.body_columns();
     if (rows > max_sheet_rows || columns > max_sheet_columns)

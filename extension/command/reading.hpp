@@ -12,6 +12,7 @@
 #include "assoc/cell.hpp"
 #include "assoc/count_table.hpp"
 #include "assoc/report.hpp"
+#include "assoc/text_collation.hpp"
 
 namespace assoc::command {
 
@@ -70,9 +71,11 @@ struct Reading {
     bool is_records() const { return record_source.has_value(); }
 };
 
-// Reads the selection. Throws assoc::Error with a message for the user when the selection is not
-// a table of counts or two columns of records, or is ambiguous.
-Reading read_selection(const SelectionContent& content, ReadAs read_as = ReadAs::automatic);
+// Reads the selection. Records' labels are put in the order of `collation` (the office's, in the
+// extension: the order ASSOC.LEVELS lists them in). Throws assoc::Error with a message for the user
+// when the selection is not a table of counts or two columns of records, or is ambiguous.
+Reading read_selection(const SelectionContent& content, const TextCollation& collation,
+                       ReadAs read_as = ReadAs::automatic);
 
 // An all-number block of two columns with more body rows than this is refused as ambiguous (a
 // table of counts that long is rare, numeric codes of records are not) unless ReadAs says which.

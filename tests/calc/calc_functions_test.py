@@ -231,7 +231,11 @@ class ReportBlock(CalcTestCase):
         self.assertClose(lines["Critical X² at 5%"], 5.991464547107983, 1e-12, "critical (NIST, scipy)")
         self.assertTrue(lines["Decision at 5%"].startswith("Independence rejected"))
         self.assertClose(lines["Cramér's V"], 0.10443580236, 1e-10, "V (published_values.md section 3)")
-        self.assertEqual(lines["Conclusion"], "At the 5% level, gender and party appear associated (p = 3.0e-07).")
+        # V = 0.104 (published_values.md section 3) is w = 0.104 for two rows: weak by Cohen's bands.
+        self.assertEqual(lines["Conclusion"], "At the 5% level, gender and party appear associated (p = 3.0e-07), but "
+                                              "the association is weak: Cramér's V is 0.10 (Cohen's bands for w = "
+                                              "V·√(min(rows, columns) − 1): below 0.1 very weak, from 0.1 weak, from "
+                                              "0.3 moderate, from 0.5 strong).")
         self.assertIn("not proof of cause, nor of discrimination", lines["Caution"])
         self.assertEqual(block[-1][0], "Caution")
 
@@ -275,14 +279,14 @@ class BadInput(CalcTestCase):
     CASES = [
         ("text among the counts", [["", "Yes", "No"], ["North", 3, 7], ["South", 2, "n/a"]],
          "=ASSOC.STATISTIC({t})", None,
-         'Cannot use this table: row 3, column 3 holds the text "n/a"; counts must be numbers.'),
+         'Cannot use this table: row 3 ("South"), column 3 ("No") holds the text "n/a"; counts must be numbers.'),
         ("a negative count", [[4, 7], [2, -1]], "=ASSOC.PVALUE({t})", None,
          "Cannot use this table: row 2, column 2 holds the number -1; counts cannot be negative."),
         ("a table of one row", [[4, 5, 6]], "=ASSOC.DF({t})", None,
          "Cannot use this table: the table has only 1 row with counts; a test of association needs at least "
          "2 rows and 2 columns with counts."),
         ("an unknown method", THREE_BY_THREE, '=ASSOC.STATISTIC({t}; "chi")', '"chi"',
-         '"chi" is not an option word or the name of an ASSOC function; the words are "pearson", "g", "yates"'),
+         '"chi" is not an option word or the name of an ASSOC function; did you mean "phi"?'),
         ("an unknown residual kind", THREE_BY_THREE, '=ASSOC.RESIDUALS({t}; "studentized")', '"studentized"',
          '"studentized" is not an option word or the name of an ASSOC function'),
         ("yates on a 3×3 table", THREE_BY_THREE, '=ASSOC.STATISTIC({t}; "yates")', '"yates"',
@@ -317,6 +321,7 @@ class BadInput(CalcTestCase):
     def test_a_huge_range_is_refused_quickly(self):
         started = time.monotonic()
         self.put([[1, 2], [3, 4]])
+        self.put([[5]], column=10, row=99999)  # K100000: the range is used up to its last cell
         self.assertEqual(self.formula("M1", "=ASSOC.STATISTIC(A1:K100000)").getError(), ERR_ILLEGAL_ARGUMENT)
         self.assertIn("at most 1,000,000", self.words("M2", "=ASSOC.CHECK(A1:K100000)"))
         self.assertLess(time.monotonic() - started, 30)
@@ -327,6 +332,35 @@ class BadInput(CalcTestCase):
         table = self.put(PARTY, row=10)
         self.assertClose(self.number("H12", f"=ASSOC.STATISTIC({table})"), REFERENCE["party"]["pearson"][0],
                          what="X² after the errors")
+
+
+class WholeColumnsAndRows(CalcTestCase):
+    """Trailing blank rows and columns are not part of a range, so a whole-column reference (A:E), a
+    whole-row one (1:3) or a range drawn generously below a growing table reads as the table it holds."""
+
+    def test_a_whole_column_reference_reads_the_table_it_holds(self):
+        self.put(PARTY)
+        # published_values.md section 3: Agresti's X² 30.0701 (scipy to full precision).
+        self.assertClose(self.number("H1", "=ASSOC.STATISTIC(A:D)"), REFERENCE["party"]["pearson"][0],
+                         what="X² over A:D (scipy)")
+        self.assertEqual(self.number("H2", "=ASSOC.DF(A:D)"), 2)
+
+    def test_a_whole_row_reference_reads_the_table_it_holds(self):
+        self.put(PARTY)
+        self.assertClose(self.number("A5", "=ASSOC.PVALUE(1:3)"), 2.9535891832e-07, 1e-9,
+                         "p of X² over rows 1:3 (published_values.md section 3)")
+
+    def test_a_range_drawn_below_the_table_gives_the_same_array_as_the_table(self):
+        table = self.put(PARTY)
+        exact = self.array("H1:J2", f"=ASSOC.EXPECTED({table})")
+        generous = self.array("H4:J5", "=ASSOC.EXPECTED(A1:F100000)")
+        self.assertEqual(generous, exact)
+
+    def test_check_speaks_of_the_table_not_of_the_blank_rows(self):
+        self.put(TEAMS)
+        text = self.words("H1", "=ASSOC.CHECK(A1:C300000)")
+        self.assertLess(len(text), 400)
+        self.assertNotIn("set aside", text)
 
 
 class SavedDocuments(CalcTestCase):

@@ -354,8 +354,8 @@ class RefusedSelections(CommandCase):
 
     def test_text_among_the_counts(self):
         self.put([["", "Yes", "No"], ["North", 4, "n/a"], ["South", 2, 7]])
-        self.refused("The selection cannot be read as a table of counts: Row 2, column 3 holds the text \"n/a\"; "
-                     "counts must be numbers. " + SELECT_HINT, "A1:C3")
+        self.refused("The selection cannot be read as a table of counts: Row 2 (\"North\"), column 3 (\"No\") holds "
+                     "the text \"n/a\"; counts must be numbers. " + SELECT_HINT, "A1:C3")
 
     def test_a_cell_that_shows_an_error(self):
         self.put(BRANCHES)

@@ -10,6 +10,11 @@
 namespace assoc::command {
 namespace {
 
+// The selection read with the core's collation (the extension passes the office's).
+Reading read(const SelectionContent& content, ReadAs read_as = ReadAs::automatic) {
+    return read_selection(content, unicode_collation(), read_as);
+}
+
 using test::expect_error;
 using test::grid;
 
@@ -17,7 +22,7 @@ Reading reading_of(const CellGrid& cells, const std::string& sheet = "HR data") 
     SelectionContent content;
     content.ranges.push_back(RangeRef{sheet, 3, 0, cells.rows(), cells.columns()});
     content.values.push_back(cells);
-    return read_selection(content);
+    return read(content);
 }
 
 const CellGrid branches = grid({{"Branch / Outcome", "Cleared", "Queried", "Returned"},
@@ -168,7 +173,7 @@ TEST(AnalysisSheet, CountsRecordsWithLevelsAndCountsFormulasAndAnalysesTheCounts
                                    {"North", "Yes"},
                                    {"South", "No"},
                                    {"North", "No"}}));
-    const SheetPlan plan = plan_analysis_sheet(read_selection(content), {}, true);
+    const SheetPlan plan = plan_analysis_sheet(read(content), {}, true);
     const Entry* counts = containing(plan, "=ASSOC.COUNTS($'Invoices'.$B$2:$B$6;$'Invoices'.$C$2:$C$6)");
     ASSERT_NE(counts, nullptr);
     EXPECT_EQ(counts->kind, Entry::Kind::array_formula);

@@ -9,6 +9,11 @@
 namespace assoc::command {
 namespace {
 
+// The selection read with the core's collation (the extension passes the office's).
+Reading read(const SelectionContent& content, ReadAs read_as = ReadAs::automatic) {
+    return read_selection(content, unicode_collation(), read_as);
+}
+
 using test::expect_error;
 using test::grid;
 
@@ -25,7 +30,7 @@ const CellGrid promotions = grid({{"Department / Outcome", "Promoted", "Not prom
                                   {"Sales", 7, 31}});
 
 TEST(ReadSelection, ReadsALabelledTableWithTheVariablesNamedInItsCorner) {
-    const Reading reading = read_selection(block(promotions));
+    const Reading reading = read(block(promotions));
     ASSERT_TRUE(reading.table_source.has_value());
     EXPECT_FALSE(reading.is_records());
     EXPECT_TRUE(reading.table_source->header_row);
@@ -40,14 +45,14 @@ TEST(ReadSelection, ReadsALabelledTableWithTheVariablesNamedInItsCorner) {
 }
 
 TEST(ReadSelection, NamesTheRowsAndColumnsOfATableWithoutLabelsByNumber) {
-    const Reading reading = read_selection(block(grid({{3, 5, 8}, {9, 4, 2}})));
+    const Reading reading = read(block(grid({{3, 5, 8}, {9, 4, 2}})));
     EXPECT_EQ(reading.row_names, (std::vector<std::string>{"Row 1", "Row 2"}));
     EXPECT_EQ(reading.column_names, (std::vector<std::string>{"Column 1", "Column 2", "Column 3"}));
     EXPECT_TRUE(reading.variables.rows.empty());
 }
 
 TEST(ReadSelection, ReadsTwoTextColumnsAsRecordsWithTheirNamesInTheFirstRow) {
-    const Reading reading = read_selection(block(grid({{"Region", "Exception"},
+    const Reading reading = read(block(grid({{"Region", "Exception"},
                                                        {"North", "No"},
                                                        {"South", "Yes"},
                                                        {"North", "Yes"},
@@ -70,14 +75,14 @@ TEST(ReadSelection, ReadsTwoTextColumnsAsRecordsWithTheirNamesInTheFirstRow) {
 
 TEST(ReadSelection, ReadsAFirstRowAsARecordWhenItsLabelAppearsAgainBelow) {
     const Reading reading =
-        read_selection(block(grid({{"North", "No"}, {"South", "Yes"}, {"North", "Yes"}, {"South", "No"}}), 0, 1));
+        read(block(grid({{"North", "No"}, {"South", "Yes"}, {"North", "Yes"}, {"South", "No"}}), 0, 1));
     ASSERT_TRUE(reading.is_records());
     EXPECT_FALSE(reading.record_source->header_row);
     EXPECT_EQ(reading.record_source->records, 4u);
 }
 
 TEST(ReadSelection, ReadsALabelColumnWithRepeatsBesideNumberCodesAsRecords) {
-    const Reading reading = read_selection(
+    const Reading reading = read(
         block(grid({{"Department", "Promoted"}, {"Design", 1}, {"Sales", 0}, {"Design", 0}, {"Sales", 1}})));
     ASSERT_TRUE(reading.is_records());
     EXPECT_EQ(reading.column_names, (std::vector<std::string>{"0", "1"}));
@@ -87,20 +92,20 @@ TEST(ReadSelection, ReadsTwoColumnsSelectedApartFromLeftToRight) {
     SelectionContent content;
     content.ranges = {RangeRef{"Invoices", 0, 4, 4, 1}, RangeRef{"Invoices", 0, 1, 4, 1}};
     content.values = {grid({{"Exception"}, {"Yes"}, {"No"}, {"No"}}), grid({{"Region"}, {"North"}, {"South"}, {"South"}})};
-    const Reading reading = read_selection(content);
+    const Reading reading = read(content);
     ASSERT_TRUE(reading.is_records());
     EXPECT_EQ(reading.record_source->row_name, "Region");
     EXPECT_EQ(range_address(reading.record_source->column_labels), "E2:E4");
 }
 
 TEST(ReadSelection, RefusesASingleCell) {
-    expect_error([] { read_selection(block(grid({{5}}))); },
+    expect_error([] { read(block(grid({{5}}))); },
                  "Only one cell is selected. Select a table of counts (its labels may be included), or two columns of "
                  "records, and run the command again.");
 }
 
 TEST(ReadSelection, RefusesASingleColumnAndSaysHowToSelectRecords) {
-    expect_error([] { read_selection(block(grid({{"North"}, {"South"}}))); },
+    expect_error([] { read(block(grid({{"North"}, {"South"}}))); },
                  "Only one column is selected. Select a table of counts (its labels may be included), or two columns "
                  "of records, and run the command again. (To count records, select their two columns; hold Ctrl to "
                  "select columns that are not side by side.)");
@@ -112,13 +117,13 @@ TEST(ReadSelection, RefusesASelectionOfThreeParts) {
     content.values.push_back(content.values[0]);
     content.ranges.push_back(content.ranges[0]);
     content.values.push_back(content.values[0]);
-    expect_error([&] { read_selection(content); },
+    expect_error([&] { read(content); },
                  "The selection has 3 separate parts. Select one block of cells, or two columns of records (hold Ctrl "
                  "to select the second).");
 }
 
 TEST(ReadSelection, RefusesOneColumnOfLabelsBesideOneColumnOfCounts) {
-    expect_error([] { read_selection(block(grid({{"Design", 41}, {"Assembly", 10}, {"Sales", 7}}))); },
+    expect_error([] { read(block(grid({{"Design", 41}, {"Assembly", 10}, {"Sales", 7}}))); },
                  "The selection holds one column of labels and one column of numbers, like a list of counts by one "
                  "category. A test of association needs a table with at least two columns of counts, or two columns "
                  "of records. To read the two columns as records anyway, choose \"two columns of records\" as the way "
@@ -135,35 +140,35 @@ CellGrid number_codes(std::size_t rows) {
 }
 
 TEST(ReadSelection, RefusesTwoLongColumnsOfNumbersAsAmbiguous) {
-    expect_error([] { read_selection(block(number_codes(40))); },
+    expect_error([] { read(block(number_codes(40))); },
                  "The two columns hold only numbers, in 40 rows: that could be a table of counts with 40 rows and 2 "
                  "columns, or records whose labels are number codes. Choose how to read the selection: \"a table of "
                  "counts\" or \"two columns of records\".");
 }
 
 TEST(ReadSelection, ReadsTwoLongColumnsOfNumbersAsRecordsWhenAskedTo) {
-    const Reading reading = read_selection(block(number_codes(40)), ReadAs::records);
+    const Reading reading = read(block(number_codes(40)), ReadAs::records);
     ASSERT_TRUE(reading.is_records());
     EXPECT_EQ(reading.table.body_rows(), 3u);
     EXPECT_EQ(reading.table.total(), 40);
 }
 
 TEST(ReadSelection, ReadsTwoLongColumnsOfNumbersAsATableWhenAskedTo) {
-    const Reading reading = read_selection(block(number_codes(40)), ReadAs::table);
+    const Reading reading = read(block(number_codes(40)), ReadAs::table);
     EXPECT_FALSE(reading.is_records());
     EXPECT_EQ(reading.table.body_rows(), 40u);
 }
 
 TEST(ReadSelection, ReadsAShortTwoColumnBlockOfNumbersAsATable) {
-    const Reading reading = read_selection(block(grid({{12, 30}, {18, 25}, {9, 40}})));
+    const Reading reading = read(block(grid({{12, 30}, {18, 25}, {9, 40}})));
     EXPECT_FALSE(reading.is_records());
     EXPECT_EQ(reading.table.body_rows(), 3u);
 }
 
 TEST(ReadSelection, RefusesTextAmongTheCountsWithTheReasonTheFunctionsGive) {
-    expect_error([] { read_selection(block(grid({{"", "Yes", "No"}, {"North", 4, "n/a"}, {"South", 2, 7}}))); },
-                 "The selection cannot be read as a table of counts: Row 2, column 3 holds the text \"n/a\"; counts "
-                 "must be numbers. Select a table of counts (its labels may be included), or two columns of records, "
+    expect_error([] { read(block(grid({{"", "Yes", "No"}, {"North", 4, "n/a"}, {"South", 2, 7}}))); },
+                 "The selection cannot be read as a table of counts: Row 2 (\"North\"), column 3 (\"No\") holds the "
+                 "text \"n/a\"; counts must be numbers. Select a table of counts (its labels may be included), or two columns of records, "
                  "and run the command again.");
 }
 
@@ -171,12 +176,12 @@ TEST(ReadSelection, RefusesRecordColumnsThatCoverDifferentRows) {
     SelectionContent content;
     content.ranges = {RangeRef{"Invoices", 0, 1, 4, 1}, RangeRef{"Invoices", 1, 4, 3, 1}};
     content.values = {grid({{"Region"}, {"North"}, {"South"}, {"South"}}), grid({{"Yes"}, {"No"}, {"No"}})};
-    expect_error([&] { read_selection(content); },
+    expect_error([&] { read(content); },
                  "The two columns of records must cover the same rows: one covers rows 1 to 4, the other rows 2 to 4.");
 }
 
 TEST(ReadSelection, RefusesRecordsWithOnlyOneLabelInAColumn) {
-    expect_error([] { read_selection(block(grid({{"North", "No"}, {"South", "No"}, {"North", "No"}}), 0, 1)); },
+    expect_error([] { read(block(grid({{"North", "No"}, {"South", "No"}, {"North", "No"}}), 0, 1)); },
                  "The two columns cannot be counted into a table: The table has only 1 column with counts; a test of "
                  "association needs at least 2 rows and 2 columns with counts. Select a table of counts (its labels "
                  "may be included), or two columns of records, and run the command again.");
@@ -186,7 +191,7 @@ TEST(ReadSelection, RefusesTwoPartsReadAsATable) {
     SelectionContent content;
     content.ranges = {RangeRef{"S", 0, 0, 2, 1}, RangeRef{"S", 0, 2, 2, 1}};
     content.values = {grid({{1}, {2}}), grid({{3}, {4}})};
-    expect_error([&] { read_selection(content, ReadAs::table); },
+    expect_error([&] { read(content, ReadAs::table); },
                  "Two separate columns cannot be read as a table of counts; select the table as one block.");
 }
 
@@ -196,7 +201,7 @@ TEST(ReadSelection, RefusesRecordsWithMoreLabelsThanTheSheetLaysOut) {
         cells.at(r, 0) = Cell::text("Employee " + std::to_string(r % 250));
         cells.at(r, 1) = Cell::text(r % 3 == 0 ? "Yes" : "No");
     }
-    expect_error([&] { read_selection(block(cells, 0, 1)); },
+    expect_error([&] { read(block(cells, 0, 1)); },
                  "The selection gives a table of 250 rows × 2 columns; the command lays out at most 200 rows and 50 "
                  "columns. For a table this large, use the worksheet functions on it directly (ASSOC.PVALUE, "
                  "ASSOC.RESIDUALS, ASSOC.CELLTEST, …).");

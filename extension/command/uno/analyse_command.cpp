@@ -32,6 +32,7 @@
 #include "uno/options_dialog.hpp"
 #include "uno/selection.hpp"
 #include "uno/sheet_writer.hpp"
+#include "office_collation.hpp"
 #include "uno_values.hpp"
 
 namespace assoc::command {
@@ -343,7 +344,7 @@ private:
         std::optional<Reading> reading;
         std::string problem;
         try {
-            reading = read_selection(content, options.read_as);
+            reading = read_selection(content, calc::office_collation(), options.read_as);
         } catch (const Error& error) {
             problem = error.what();
         }
@@ -362,7 +363,7 @@ private:
             const ReadAs read_before = options.read_as;
             options = answer->options;
             if (!reading || options.read_as != read_before) {
-                reading = read_selection(content, options.read_as);
+                reading = read_selection(content, calc::office_collation(), options.read_as);
                 facts = facts_of(reading, "");
             }
             if (answer->remember) remember_options(model, options, facts);
@@ -396,6 +397,7 @@ private:
 }  // namespace
 
 Reference<css::uno::XInterface> SAL_CALL create_analyse_command(const Reference<css::uno::XComponentContext>& context) {
+    calc::set_office_context(context);  // records' labels are put in order by the office's collator
     return static_cast<cppu::OWeakObject*>(new AnalyseCommand(context));
 }
 
