@@ -56,15 +56,6 @@ CASES = [
 ]
 
 
-def column_name(index):
-    name = ""
-    index += 1
-    while index:
-        index, rest = divmod(index - 1, 26)
-        name = chr(ord("A") + rest) + name
-    return name
-
-
 def phases(log_path, seen):
     """The phase times of the runs logged since `seen` lines."""
     lines = [line for line in log_path.read_text(errors="replace").splitlines() if line.startswith("assoc-command-times")]
@@ -92,11 +83,11 @@ def main():
             data = make()
             sheet = doc.Sheets.getByIndex(0)
             sheet.getCellRangeByPosition(0, 0, 25, 20000).clearContents(7)
-            area = f"A1:{column_name(len(data[0]) - 1)}{len(data)}"
-            sheet.getCellRangeByName(area).setDataArray(tuple(tuple(row) for row in data))
+            area = sheet.getCellRangeByPosition(0, 0, len(data[0]) - 1, len(data) - 1)
+            area.setDataArray(tuple(tuple(row) for row in data))
             walls, values = [], []
             for _ in range(options.rounds + 1):  # the first run loads the chart and filter code: not counted
-                controller.select(sheet.getCellRangeByName(area))
+                controller.select(area)
                 started = time.perf_counter()
                 try:
                     result = dispatcher.executeDispatch(controller.getFrame(), COMMAND, "", 0,

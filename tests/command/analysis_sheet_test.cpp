@@ -5,24 +5,18 @@
 #include <gtest/gtest.h>
 
 #include "palette.hpp"
+#include "command_test_support.hpp"
 #include "test_support.hpp"
 
 namespace assoc::command {
 namespace {
 
-// The selection read with the core's collation (the extension passes the office's).
-Reading read(const SelectionContent& content, ReadAs read_as = ReadAs::automatic) {
-    return read_selection(content, unicode_collation(), read_as);
-}
-
-using test::expect_error;
-using test::grid;
+using assoc::test::expect_error;
+using assoc::test::grid;
+using test::read;
 
 Reading reading_of(const CellGrid& cells, const std::string& sheet = "HR data") {
-    SelectionContent content;
-    content.ranges.push_back(RangeRef{sheet, 3, 0, cells.rows(), cells.columns()});
-    content.values.push_back(cells);
-    return read(content);
+    return read(test::block(cells, 3, 0, sheet));
 }
 
 const CellGrid branches = grid({{"Branch / Outcome", "Cleared", "Queried", "Returned"},

@@ -4,25 +4,16 @@
 
 #include <gtest/gtest.h>
 
+#include "command_test_support.hpp"
 #include "test_support.hpp"
 
 namespace assoc::command {
 namespace {
 
-// The selection read with the core's collation (the extension passes the office's).
-Reading read(const SelectionContent& content, ReadAs read_as = ReadAs::automatic) {
-    return read_selection(content, unicode_collation(), read_as);
-}
-
-using test::expect_error;
-using test::grid;
-
-SelectionContent block(const CellGrid& cells, std::size_t row = 3, std::size_t column = 0) {
-    SelectionContent content;
-    content.ranges.push_back(RangeRef{"HR data", row, column, cells.rows(), cells.columns()});
-    content.values.push_back(cells);
-    return content;
-}
+using assoc::test::expect_error;
+using assoc::test::grid;
+using test::block;
+using test::read;
 
 const CellGrid promotions = grid({{"Department / Outcome", "Promoted", "Not promoted"},
                                   {"Design", 41, 56},

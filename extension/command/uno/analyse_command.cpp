@@ -33,17 +33,10 @@
 #include "uno/selection.hpp"
 #include "uno/sheet_writer.hpp"
 #include "office_collation.hpp"
-#include "uno_values.hpp"
+#include "uno/uno_common.hpp"
 
 namespace assoc::command {
 namespace {
-
-using css::uno::Any;
-using css::uno::Reference;
-using css::uno::Sequence;
-using css::uno::UNO_QUERY;
-using calc::to_ou_string;
-using calc::to_utf8;
 
 constexpr const char* implementation_name = "org.assocproject.calc.AnalyseCommand";
 constexpr const char* protocol = "org.assocproject.calc:";

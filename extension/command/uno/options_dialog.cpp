@@ -27,22 +27,13 @@
 #include <com/sun/star/lang/XComponent.hpp>
 
 #include "assoc/error.hpp"
-#include "uno_values.hpp"
+#include "uno/uno_common.hpp"
 
 namespace assoc::command {
 namespace {
 
-using css::uno::Any;
-using css::uno::Reference;
-using css::uno::Sequence;
-using css::uno::UNO_QUERY;
-using css::uno::UNO_QUERY_THROW;
-using calc::to_ou_string;
-using calc::to_utf8;
-
 constexpr const char* extension_identifier = "org.assoc-project.calc";
 constexpr const char* dialog_file = "/dialogs/AnalyseSelection.xdl";
-constexpr const char* message_title = "Assoc: analyse selection";
 
 // The names of the remembered choices among the document's custom properties.
 constexpr const char* alpha_property = "Assoc significance level";
@@ -126,7 +117,7 @@ void show_message(const Reference<css::uno::XComponentContext>& context, const R
     Reference<css::awt::XWindowPeer> parent(frame->getContainerWindow(), UNO_QUERY_THROW);
     Reference<css::awt::XMessageBox> box =
         factory->createMessageBox(parent, css::awt::MessageBoxType_WARNINGBOX, css::awt::MessageBoxButtons::BUTTONS_OK,
-                                  OUString::createFromAscii(message_title), to_ou_string(message));
+                                  OUString::createFromAscii(command_title), to_ou_string(message));
     box->execute();
     Reference<css::lang::XComponent>(box, UNO_QUERY_THROW)->dispose();
 }
@@ -143,16 +134,10 @@ std::optional<DialogAnswer> ask_options(const Reference<css::uno::XComponentCont
     Reference<css::awt::XDialog> dialog = css::awt::DialogProvider2::create(context)->createDialogWithArguments(
         location + OUString::createFromAscii(dialog_file), arguments);
     if (!dialog.is()) throw Error("The dialog of the command could not be opened.");
-    Reference<css::lang::XComponent> component(dialog, UNO_QUERY);
-    struct Disposer {
-        Reference<css::lang::XComponent> component;
-        ~Disposer() {
-            try {
-                if (component.is()) component->dispose();
-            } catch (...) {
-            }
-        }
-    } disposer{component};
+    const Reference<css::lang::XComponent> component(dialog, UNO_QUERY);
+    const AtExit dispose([&] {
+        if (component.is()) component->dispose();
+    });
 
     Reference<css::awt::XControlContainer> controls(dialog, UNO_QUERY_THROW);
     control<css::awt::XFixedText>(controls, "SelectionText")->setText(to_ou_string(facts.selection));

@@ -17,14 +17,11 @@
 
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
-#include "uno_values.hpp"
+#include "uno/uno_common.hpp"
 
 namespace assoc::command {
 namespace {
 
-using css::uno::Reference;
-using css::uno::UNO_QUERY;
-using css::uno::UNO_QUERY_THROW;
 using css::table::CellRangeAddress;
 namespace sheet = css::sheet;
 

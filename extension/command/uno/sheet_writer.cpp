@@ -60,19 +60,11 @@
 #include <optional>
 
 #include "palette.hpp"
-#include "uno_values.hpp"
+#include "uno/uno_common.hpp"
 
 namespace assoc::command {
 namespace {
 
-using css::uno::Any;
-using css::uno::Reference;
-using css::uno::Sequence;
-using css::uno::UNO_QUERY;
-using css::uno::UNO_QUERY_THROW;
-using calc::to_ou_string;
-
-constexpr const char* undo_title = "Assoc: analyse selection";
 // The page style of the sheets the command makes: as wide as one page, as many pages long as needed.
 constexpr const char* page_style = "Assoc analysis";
 // Height of a line of 10 pt text, in 1/100 mm.
@@ -511,20 +503,14 @@ std::string write_sheet(const Reference<css::uno::XComponentContext>& context,
     std::optional<UndoRoom> room;
     if (undo.is()) {
         room.emplace(context, recorded_actions(plan));
-        undo->enterUndoContext(to_ou_string(undo_title));
+        undo->enterUndoContext(to_ou_string(command_title));
     }
     // While the sheet is written, the document neither repaints nor adjusts row heights cell by cell.
-    Reference<css::document::XActionLockable> lock(controller->getModel(), UNO_QUERY);
-    struct Unlock {
-        Reference<css::document::XActionLockable> lock;
-        ~Unlock() {
-            try {
-                if (lock.is()) lock->removeActionLock();
-            } catch (...) {
-            }
-        }
-    } unlock{lock};
+    const Reference<css::document::XActionLockable> lock(controller->getModel(), UNO_QUERY);
     if (lock.is()) lock->addActionLock();
+    const AtExit unlock([&] {
+        if (lock.is()) lock->removeActionLock();
+    });
     bool inserted = false;
     try {
         sheets->insertNewByName(sheet_name, std::min(position, count));
