@@ -20,7 +20,7 @@ Matrix residuals(const CountTable& table, ResidualKind kind) {
         // read without the 2×2 requirement can get here so.
         require(table.rows() >= 2 && table.columns() >= 2,
                 "adjusted residuals need at least 2 rows and 2 columns with counts");
-        const detail::ScaledMargins margins = detail::scaled_margins(table);
+        const detail::TableMargins margins = detail::table_margins(table);
         for (const detail::DoubleDouble& row : margins.rows)
             row_share_left.push_back((margins.total - row).value() / margins.total.value());
         for (const detail::DoubleDouble& column : margins.columns)

@@ -25,15 +25,10 @@
 #include "assoc/trend_test.hpp"
 #include "assoc_functions.hpp"
 #include "check.hpp"
+#include "worksheet_limits.hpp"
 
 namespace assoc::calc {
 namespace {
-
-// A cell must not freeze the office for long, and Calc recalculates add-in cells whenever a document
-// loads: the exact test stops after 5 seconds or 400 MB of working memory (the office's peak memory
-// grows by about as much; the core's own defaults are 20 seconds and 1 GB), with an error that
-// points to ASSOC.SIMULATE.
-const ExactLimits worksheet_exact_limits{5.0, 400'000'000};
 
 std::vector<double> ratio_row(const RatioEstimate& ratio) {
     remark(ratio.remark);
@@ -60,7 +55,10 @@ double pvalue(const CellGrid& range, PValueMethod method) {
     case PValueMethod::pearson: return independence_test(table, Method::pearson).p_value;
     case PValueMethod::g: return independence_test(table, Method::likelihood_ratio).p_value;
     case PValueMethod::yates: return independence_test(table, Method::yates).p_value;
-    case PValueMethod::exact: return exact_p_value(table, Side::two_sided, worksheet_exact_limits);
+    case PValueMethod::exact: {
+        const ReturnFreedMemory after;
+        return exact_p_value(table, Side::two_sided, exact_limits());
+    }
     }
     throw Error("unknown method");
 }
@@ -87,12 +85,14 @@ double strength(const CellGrid& range, Measure measure) {
 }
 
 double exact(const CellGrid& range, Side side) {
-    return exact_p_value(read_count_table(range), side, worksheet_exact_limits);
+    const ReturnFreedMemory after;
+    return exact_p_value(read_count_table(range), side, exact_limits());
 }
 
 std::vector<double> simulate(const CellGrid& range, double trials, double seed, Method method) {
     SimulationOptions options = simulation_options(trials, seed);
     options.statistic = method;
+    options.limits = simulation_limits();
     const SimulationResult result = monte_carlo_test(read_count_table(range), options);
     return {result.p_value, result.standard_error, static_cast<double>(result.trials)};
 }
@@ -182,8 +182,10 @@ std::string check(const CellGrid& range, const Cell& function_or_word) { return 
 
 CellGrid report(const CellGrid& range, double alpha) {
     const CountTable table = read_count_table(range);
+    const ReturnFreedMemory after;
     ReportOptions options;
     options.alpha = alpha;
+    options.exact_limits = report_exact_limits();
     options.variables = variable_names_from_corner(range, table);
     const std::vector<ReportLine> lines = association_report(table, options);
     CellGrid cells(lines.size(), 2);
