@@ -7,10 +7,9 @@
 // only a few correct digits in it.
 // Why each factor is scaled by its own power of two: O·n and R·C overflow for counts above
 // about 1e154 and underflow for tiny weights, and one factor for the whole table cannot avoid
-// both when the counts span a wide range ([[2, 0], [1, 1e308]] has R·C from 6 to 3e308, and
-// E = 6e-308). Each factor is brought to [1, 2) exactly, the products are formed exactly there,
-// and the two are aligned to the larger's exponent before they are subtracted; only a part
-// below 2^-1000 of the larger product can be lost, and O − E and E scale back exactly.
+// both when the counts span a wide range ([[2, 0], [1, 1e308]] has E = 6e-308 beside 1e308).
+// Each factor is brought to [1, 2) exactly, the products are formed exactly there, and the two
+// are aligned to the larger's exponent before they are subtracted; O − E and E scale back exactly.
 #include <algorithm>
 #include <cmath>
 #include <cstddef>
@@ -24,7 +23,7 @@ namespace assoc::detail {
 // x·2^k, exact unless a part underflows.
 inline DoubleDouble times_power_of_two(const DoubleDouble& x, int k) { return {std::ldexp(x.hi, k), std::ldexp(x.lo, k)}; }
 
-// A positive double-double as mantissa · 2^exponent with the mantissa's high part in [1, 2).
+// A non-zero double-double as mantissa · 2^exponent with the mantissa's high part in ±[1, 2).
 struct Normalised {
     DoubleDouble mantissa;
     int exponent = 0;
@@ -41,31 +40,61 @@ struct Scaled {
     int exponent = 0;
 };
 
+// x·y − u·v, each factor scaled by its own power of two so that the products neither overflow nor
+// underflow, aligned to the larger product's exponent.
+inline Scaled difference_of_products(const DoubleDouble& x, const DoubleDouble& y, const DoubleDouble& u,
+                                     const DoubleDouble& v) {
+    const bool first_zero = x.hi == 0 || y.hi == 0, second_zero = u.hi == 0 || v.hi == 0;
+    if (first_zero && second_zero) return {DoubleDouble{}, 0};
+    Normalised first{DoubleDouble{}, 0}, second{DoubleDouble{}, 0};
+    if (!first_zero) {
+        const Normalised a = normalised(x), b = normalised(y);
+        first = {a.mantissa * b.mantissa, a.exponent + b.exponent};
+    }
+    if (!second_zero) {
+        const Normalised a = normalised(u), b = normalised(v);
+        second = {a.mantissa * b.mantissa, a.exponent + b.exponent};
+    }
+    if (first_zero) return {DoubleDouble{} - second.mantissa, second.exponent};
+    if (second_zero) return {first.mantissa, first.exponent};
+    const int exponent = std::max(first.exponent, second.exponent);
+    return {times_power_of_two(first.mantissa, first.exponent - exponent) -
+                times_power_of_two(second.mantissa, second.exponent - exponent),
+            exponent};
+}
+
+// A scaled value divided by a positive double-double: accurate to about 1.5 units in the last place.
+inline double divided(const Scaled& numerator, const DoubleDouble& denominator) {
+    const Normalised d = normalised(denominator);
+    return std::ldexp(numerator.value.value() / d.mantissa.value(), numerator.exponent - d.exponent);
+}
+
+// x·y/z for positive x, y, z, without overflow or underflow on the way.
+inline double product_over(const DoubleDouble& x, const DoubleDouble& y, const DoubleDouble& z) {
+    const Normalised a = normalised(x), b = normalised(y), d = normalised(z);
+    return std::ldexp(a.mantissa.value() * b.mantissa.value() / d.mantissa.value(), a.exponent + b.exponent - d.exponent);
+}
+
 struct TableMargins {
     std::vector<DoubleDouble> rows, columns;
     DoubleDouble total;
 
-    // O·n − R·C for the count `observed` in row r, column c, to about 2^-104 of the larger product
-    // (exactly for whole counts whose total is below 2^53).
+    // O·n − R·C for the count `observed` in row r, column c, as the determinant O·S − R̂·C̄ of the
+    // table collapsed around the cell: R̂ = R − O (the rest of its row), C̄ = C − O (the rest of its
+    // column), S = n − R − C̄ (everything else) — the same number (O n − R C = O(R̂ + C̄ + S + O) −
+    // (O + R̂)(O + C̄)), but without the cancellation of two products near n·O when the cell holds
+    // nearly everything: [[2, 0], [1, 1e308]] gives 2e308 for the last cell, where O·n − R·C needs
+    // 616 digits. Exact for whole counts whose total is below 2^53; otherwise to about 2^-104 of
+    // the larger product.
     Scaled numerator(double observed, std::size_t r, std::size_t c) const {
-        const Normalised n = normalised(total), row = normalised(rows[r]), column = normalised(columns[c]);
-        const int product_exponent = row.exponent + column.exponent;
-        const DoubleDouble product = row.mantissa * column.mantissa;
-        if (observed == 0) return {DoubleDouble{} - product, product_exponent};
-        const Normalised o = normalised(DoubleDouble{observed, 0.0});
-        const int observed_exponent = o.exponent + n.exponent;
-        const DoubleDouble observed_product = o.mantissa * n.mantissa;
-        const int exponent = std::max(observed_exponent, product_exponent);
-        return {times_power_of_two(observed_product, observed_exponent - exponent) -
-                    times_power_of_two(product, product_exponent - exponent),
-                exponent};
+        const DoubleDouble o{observed, 0.0};
+        const DoubleDouble row_rest = rows[r] - o, column_rest = columns[c] - o;
+        const DoubleDouble others = (total - rows[r]) - column_rest;
+        return difference_of_products(o, others, row_rest, column_rest);
     }
 
     // A numerator divided by n: accurate to about 1.5 units in the last place.
-    double over_total(const Scaled& numerator) const {
-        const Normalised n = normalised(total);
-        return std::ldexp(numerator.value.value() / n.mantissa.value(), numerator.exponent - n.exponent);
-    }
+    double over_total(const Scaled& numerator) const { return divided(numerator, total); }
 
     // O − E.
     double deviation(double observed, std::size_t r, std::size_t c) const {
@@ -73,11 +102,7 @@ struct TableMargins {
     }
 
     // E = R·C/n; it is never a difference, so double precision is all it needs.
-    double expected(std::size_t r, std::size_t c) const {
-        const Normalised n = normalised(total), row = normalised(rows[r]), column = normalised(columns[c]);
-        return std::ldexp(row.mantissa.value() * column.mantissa.value() / n.mantissa.value(),
-                          row.exponent + column.exponent - n.exponent);
-    }
+    double expected(std::size_t r, std::size_t c) const { return product_over(rows[r], columns[c], total); }
 
     // (|O·n − R·C| − n/2)/n = |O − E| − ½ without the cancellation of forming O − E first (the
     // Yates correction); negative when |O − E| < ½.

@@ -31,6 +31,19 @@ inline DoubleDouble operator-(const DoubleDouble& x, const DoubleDouble& y) {
     return exact_sum(s.hi, tail);
 }
 
+// x + y to about 2^-105 relative, whatever the signs.
+inline DoubleDouble operator+(const DoubleDouble& x, const DoubleDouble& y) { return x - DoubleDouble{-y.hi, -y.lo}; }
+
+// x / y to about 2^-104 relative (y ≠ 0).
+inline DoubleDouble quotient(const DoubleDouble& x, const DoubleDouble& y) {
+    const double first = x.hi / y.hi;
+    const DoubleDouble product = exact_product(first, y.hi);
+    const DoubleDouble rest = x - DoubleDouble{product.hi, product.lo + first * y.lo};
+    const double second = rest.hi / y.hi;
+    const double sum = first + second;
+    return {sum, second - (sum - first)};
+}
+
 // The "sloppy" kind of double-double sum and product: accurate for sums of non-negative numbers
 // and for products, which is all they are used for.
 

@@ -73,7 +73,7 @@ PairedResult paired_test(const Matrix& square, std::optional<PairedMethod> metho
             if (upper + lower == 0) continue;  // no changes either way: no information, no df
             double gap = std::fabs(upper - lower);
             if (applied == PairedMethod::corrected) gap = std::max(0.0, gap - 1);
-            result.statistic += gap * gap / (upper + lower);
+            result.statistic += gap * (gap / (upper + lower));  // gap² would overflow near 1e154
             result.df += 1;
         }
     result.p_value = chi_squared_p_value(result.statistic, result.df);
