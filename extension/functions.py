@@ -221,7 +221,9 @@ FUNCTIONS = [
         [TABLE, Argument("method", "option", "Optional. The test statistic to compute.", options=METHODS)],
         "row", "one row: the statistic, the degrees of freedom, the p-value; a plain entry shows the statistic",
         ["Yates' correction is never applied unless asked for, and only to 2×2 tables. The exact test has no "
-         "statistic: use ASSOC.EXACT for it."],
+         "statistic: use ASSOC.EXACT for it.",
+         "A statistic above 1.8e308, the largest spreadsheet number (possible only when the counts add up to "
+         "nearly that much), is an error that ASSOC.CHECK explains; its p-value, from ASSOC.PVALUE, is 0."],
         '=ASSOC.STATISTIC(A1:D3; "g")'),
     Function(
         "ASSOC.PVALUE", "pvalue",
@@ -267,10 +269,13 @@ FUNCTIONS = [
         [TABLE, Argument("side", "option", "Optional. Which tables count as at least as extreme as this one.",
                          options=SIDES)],
         "number", "the p-value, between 0 and 1",
-        ["Trustworthy where the chi-squared approximation is doubtful (small expected counts). For larger "
-         "tables with many counts the number of possible tables grows quickly: the calculation stops with an "
-         "error after about 5 seconds, or when it would need more than about 400 MB of memory; ASSOC.SIMULATE "
-         "then gives a Monte Carlo p-value instead. ASSOC.CHECK with \"exact\" says why it fails."],
+        ["Trustworthy where the chi-squared approximation is doubtful (small expected counts). For a 2×2 table "
+         "the calculation takes well under a millisecond however large the counts, up to a total of "
+         "9,007,199,254,740,991 (2^53 − 1, the largest whole number a spreadsheet holds exactly), and keeps "
+         "about 13 significant digits even far in the tail. For larger tables with many counts the number of "
+         "possible tables grows quickly: the calculation stops with an error after 5 seconds, or when it "
+         "would need more than 400 MB of memory; ASSOC.SIMULATE then gives a Monte Carlo p-value instead. "
+         "ASSOC.CHECK with \"exact\" says why it fails."],
         "=ASSOC.EXACT(A1:C3)"),
     Function(
         "ASSOC.SIMULATE", "simulate",
@@ -287,7 +292,8 @@ FUNCTIONS = [
                "entry shows the p-value",
         ["The p-value is (1 + k) / (trials + 1), k the number of random tables at least as extreme, so it is "
          "never 0. The standard error √(p (1 − p) / trials) shrinks with more trials. Tables too large to "
-         "simulate within a few seconds are refused with an error that says how many trials would fit."],
+         "simulate within a few seconds are refused with an error that says how many trials would fit, and a "
+         "simulation still running after 5 seconds stops with an error that says how far it got."],
         "=ASSOC.SIMULATE(A1:D4; 100000; 7)"),
     Function(
         "ASSOC.ODDSRATIO", "oddsratio",
@@ -418,8 +424,9 @@ FUNCTIONS = [
          Argument("method", "option", "Optional. The test to apply.", options=PAIRED_METHODS)],
         "row", "one row: the p-value, the statistic, the degrees of freedom; a plain entry shows the p-value",
         ["With \"exact\" the statistic is the smaller of the two counts of changes and the degrees of freedom "
-         "are 0 (a binomial test has none). Rows and columns of zeros are kept, since row i and column i must "
-         "stay the same category."],
+         "are 0 (a binomial test has none); it takes up to 9,007,199,254,740,991 changes (2^53 − 1) and "
+         "well under a millisecond at any size. Rows and columns of zeros are kept, since row i and column i "
+         "must stay the same category."],
         "=ASSOC.PAIRED(A1:C3)"),
     Function(
         "ASSOC.TREND", "trend",
@@ -466,7 +473,9 @@ FUNCTIONS = [
          "with the same range and the function's name or word explains it. A name runs the function with its "
          "defaults; a word runs every function that accepts it (a function that cannot use the range even "
          "with its defaults is left out when another one can). The verdict on the chi-squared test is given "
-         "for functions that take a table of counts for the test of independence.",
+         "for functions that take a table of counts for the test of independence. Everything ASSOC.CHECK "
+         "tries in one cell shares a cap of 10 seconds (it may run two exact or simulated tests, each with "
+         "its own cap, within it).",
          "For a function that takes two ranges (ASSOC.COUNTS, ASSOC.IMPACT), give ASSOC.CHECK one range with "
          "the two side by side as columns, in the order of the arguments; for one that takes only numbers "
          "(ASSOC.POWER), give its numbers in one row or column."],
@@ -483,7 +492,8 @@ FUNCTIONS = [
          "(for example \"Department / Outcome\"), the conclusion uses those names.",
          "The exact p-value is computed when the counts are whole and the test finishes within 2 seconds and "
          "100 MB of memory; otherwise its line says why not (ASSOC.EXACT allows 5 seconds and 400 MB, "
-         "ASSOC.SIMULATE estimates the p-value). The cells "
+         "ASSOC.SIMULATE estimates the p-value). A statistic above 1.8e308, the largest spreadsheet number, "
+         "is written in words on its line. The cells "
          "that stand out are the (at most 3) cells with the largest adjusted residuals beyond ±2, named by "
          "their labels."],
         "=ASSOC.REPORT(A1:D3; 0.05)"),

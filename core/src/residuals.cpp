@@ -44,6 +44,10 @@ Matrix residuals(const CountTable& table, ResidualKind kind) {
                 break;
             }
         }
+    for (double value : result.values())
+        require(std::isfinite(value), "a residual of this table is larger than a spreadsheet number can hold (above "
+                                      "1.8e308); the counts span too wide a range (a count near 1e308 beside an "
+                                      "expected count near 1e-308)");
     if (kind == ResidualKind::percent)
         for (std::size_t r = 0; r < table.rows(); ++r)
             for (std::size_t c = 0; c < table.columns(); ++c)

@@ -46,7 +46,7 @@ Matrix expected(const CellGrid& range) {
 
 std::vector<double> statistic(const CellGrid& range, Method method) {
     const TestResult result = independence_test(read_count_table(range), method);
-    return {result.statistic, result.df, result.p_value};
+    return {representable_statistic(result, method), result.df, result.p_value};
 }
 
 double pvalue(const CellGrid& range, PValueMethod method) {

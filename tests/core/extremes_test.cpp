@@ -10,6 +10,7 @@
 
 #include "assoc/breslow_day.hpp"
 #include "assoc/chi_squared_distribution.hpp"
+#include "assoc/cramers_v_interval.hpp"
 #include "assoc/effect_size.hpp"
 #include "assoc/expected_counts.hpp"
 #include "assoc/goodness_of_fit.hpp"
@@ -20,6 +21,7 @@
 #include "assoc/statistics.hpp"
 #include "assoc/trend_test.hpp"
 #include "extremes_values.hpp"
+#include "noncentral_values.hpp"
 #include "test_support.hpp"
 
 using namespace assoc;
@@ -110,6 +112,18 @@ TEST(Extremes, ATableOfSingleDigitsBeside1e308HasFiniteStatistics) {
                            tolerance);
 }
 
+// X² = n·φ² and φ² = min(r, c) − 1 = 2 for a perfectly associated 3×3 table: with n = 1.6e308 the
+// statistic is 3.2e308, beyond the largest double (exact arithmetic); its p-value is 0.
+TEST(Extremes, AStatisticBeyondTheLargestNumberIsAnExplainedErrorWithAPValueOf0) {
+    const CountTable table = counts_table({{8e307, 0, 0}, {0, 8e307, 0}, {0, 0, 1e4}});
+    const TestResult result = independence_test(table);
+    EXPECT_EQ(result.p_value, 0.0);
+    expect_error([&] { representable_statistic(result, Method::pearson); },
+                 "Pearson X² is larger than a spreadsheet number can hold (above 1.8e308) for this table, so its "
+                 "p-value is 0; divide every count by the same factor to see its size (it shrinks by that factor)");
+    EXPECT_NEAR_REL(cramers_v(table), 1.0, tolerance);
+}
+
 // Exact identity: [[1, 0], [2, 3]] has X²/n = 0.2 = (r − 1)(c − 1)/(n − 1), so the corrected φ² is 0;
 // so does every 2×2 table with (ad − bc)²(n − 1) = r1 r2 c1 c2 (checked in integer arithmetic).
 TEST(Extremes, BiasCorrectedCramersVIsExactlyZeroWhereTheCorrectionEqualsPhiSquared) {
@@ -151,6 +165,21 @@ TEST(Extremes, PairedTestHasAFiniteStatisticForCountsNearTheLargestNumber) {
     EXPECT_EQ(result.p_value, 0.0);
 }
 
+// mpmath 1.2.1: twice the smaller binomial tail, summed term by term. Boost's binomial lost digits here
+// (2e-8 at 2e9 changes, 2e-5 at 2e12) and took minutes beyond 1e18.
+TEST(Extremes, ExactPairedTestKeepsItsDigitsForMillionsOfChanges) {
+    for (const ref::PairedCase& c : ref::paired_exact) {
+        const PairedResult result = paired_test(grid({{1, c.b}, {c.c, 3}}), PairedMethod::exact);
+        EXPECT_NEAR_REL(result.p_value, c.p_value, tolerance) << c.b << " " << c.c;
+    }
+}
+
+TEST(Extremes, ExactPairedTestRefusesMoreChangesThanWholeNumbersReach) {
+    expect_error([] { paired_test(grid({{1, 1e16}, {1e16, 3}}), PairedMethod::exact); },
+                 "the exact paired test takes up to 9,007,199,254,740,991 changes (2^53 − 1) in all, and this table "
+                 "has 2e+16; at this size use the chi-squared version (\"corrected\")");
+}
+
 // --- Power and critical values ---------------------------------------------------------------------
 
 // Definition: with no effect (w = 0) the test rejects with probability alpha exactly.
@@ -162,4 +191,24 @@ TEST(Extremes, PowerWithNoEffectIsExactlyAlpha) {
 TEST(Extremes, CriticalValuesForSubnormalAlphaKeepTheirDigits) {
     for (const ref::CriticalCase& c : ref::subnormal_alpha_critical)
         EXPECT_NEAR_REL(chi_squared_critical_value(c.df, c.alpha), c.critical, tolerance) << c.df << " " << c.alpha;
+}
+
+// mpmath 1.2.1's Poisson mixture (tests/reference/noncentral_generate.py): the Cornish–Fisher
+// expansion used from a statistic of 1e5 on.
+TEST(Extremes, NoncentralityBoundsAtLargeStatisticsMatchThePoissonMixture) {
+    for (const ref::NoncentralCase& c : ref::noncentral_large) {
+        const NoncentralityInterval interval = noncentrality_interval(c.statistic, c.df);
+        EXPECT_NEAR_REL(interval.lower, c.lambda_lower, tolerance) << c.statistic;
+        EXPECT_NEAR_REL(interval.upper, c.lambda_upper, tolerance) << c.statistic;
+    }
+}
+
+// Issue 9: the report on counts of 1e15 said "Not computed: the result cannot be represented as a whole
+// number" for both limits. The interval must now exist and hold the estimate (mpmath 1.2.1 for V).
+TEST(Extremes, CramersVIntervalExistsForCountsOf1e15) {
+    const CramersVInterval v = cramers_v_interval(counts_table({{1e15, 2e15}, {3e15, 1e15 + 7}}));
+    EXPECT_NEAR_REL(v.estimate, ref::counts_of_1e15_cramers_v, tolerance);
+    EXPECT_LT(v.lower, v.estimate);
+    EXPECT_GT(v.upper, v.estimate);
+    EXPECT_LT(v.upper - v.lower, 1e-7);
 }

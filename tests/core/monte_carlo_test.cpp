@@ -164,6 +164,14 @@ TEST(MonteCarloTest, RejectsATableTooLargeToSimulateAtAll) {
                  "sparse categories, or use the chi-squared p-value if the validity check allows");
 }
 
+// The clock is the cap on any machine: with no time at all the run stops after its first table.
+TEST(MonteCarloTest, StopsAtItsTimeLimitAndSaysHowFarItGot) {
+    SimulationOptions options = with(100'000, 1);
+    options.limits.max_seconds = 0;
+    expect_error([&] { monte_carlo_test(three_by_four(), options); },
+                 "the simulation was stopped at its time limit of 0 seconds after 1 of 100,000 tables; use fewer trials");
+}
+
 TEST(MonteCarloTest, RejectsAHugeTable) {
     expect_error([] { monte_carlo_test(table({{1e9, 1}, {1, 3}})); },
                  "the simulated p-value takes tables of up to 1,000,000,000 counts, and this one has 1,000,000,005; "

@@ -125,6 +125,24 @@ def mantel_haenszel(strata, confidence=mpf("0.95")):
     return statistic, chi2_upper(statistic, 1), psi, psi * mp.exp(-half), psi * mp.exp(half)
 
 
+# --- The exact paired test: twice the smaller tail of Binomial(b + c, ½) --------------------------------
+PAIRED = [(1000000, 1001500), (1000000000, 1000060000), (1000000000000, 1000002000000), (37, 61), (0, 12)]
+
+
+def exact_paired(b, c):
+    """min(1, 2·P(X ≤ min(b, c))) for X ~ Binomial(b + c, ½), summed down from the observed count."""
+    m, k = b + c, min(b, c)
+    term = mp.exp(mp.loggamma(m + 1) - mp.loggamma(k + 1) - mp.loggamma(m - k + 1) - m * mp.log(2))
+    total, x = term, k
+    while x > 0:
+        term *= mpf(x) / (m - x + 1)
+        x -= 1
+        total += term
+        if term < total * mpf(10) ** -45:
+            break
+    return min(2 * total, mpf(1))
+
+
 # --- 2×2 and r×c tables at the ends of the double range ---------------------------------------------
 def table_measures(table):
     with mp.workdps(700):  # 1e308 + 3 must differ from 1e308
@@ -179,6 +197,12 @@ def main():
         out.append(f"    // {comment}; Breslow-Day p = {mp.nstr(bd_p, 6)}, Mantel-Haenszel p = {mp.nstr(mh_p, 6)}")
         out.append(f"    {{\"{name}\", {len(strata)}, {{{cells}}}, {d(corrected)}, {d(uncorrected)}, {d(bd_p)}, "
                    f"{d(mh)}, {d(mh_p)}, {d(psi)}, {d(lower)}, {d(upper)}}},")
+    out += ["};", ""]
+
+    out += ["// The exact paired test: min(1, 2 P(X ≤ min(b, c))) for X ~ Binomial(b + c, ½), summed term by term.",
+            "struct PairedCase {", "    double b, c, p_value;", "};", "", "inline constexpr PairedCase paired_exact[] = {"]
+    for b, c in PAIRED:
+        out.append(f"    {{{d(b)}, {d(c)}, {d(exact_paired(b, c))}}},")
     out += ["};", ""]
 
     # Yates at counts near 1e8 (issue 15), and the table whose small cells once underflowed (issue 9).

@@ -46,6 +46,19 @@ inline constexpr StrataCase strata_extremes[] = {
     {"issue_9_mantel_haenszel_1e77", 2, {{1e+77, 1.0, 1.0, 1e+77}, {5.0, 6.0, 7.0, 8.0}}, 7.235621521335807e+75, 7.235621521335807e+75, 0.0, 2e+77, 0.0, 3.095238095238095e+76, 1.4316378291677745e+76, 6.691984991610896e+76},
 };
 
+// The exact paired test: min(1, 2 P(X ≤ min(b, c))) for X ~ Binomial(b + c, ½), summed term by term.
+struct PairedCase {
+    double b, c, p_value;
+};
+
+inline constexpr PairedCase paired_exact[] = {
+    {1000000.0, 1001500.0, 0.289346725712381},
+    {1000000000.0, 1000060000.0, 0.17972627704554645},
+    {1000000000000.0, 1000002000000.0, 0.15729962215792093},
+    {37.0, 61.0, 0.019690184799846844},
+    {0.0, 12.0, 0.00048828125},
+};
+
 // Yates at counts near 1e8: |ad − bc|/n − ½ is 7.5e-9 (issue 15: 2.50000000711e-25 before).
 inline constexpr double yates_near_1e8[4] = {99999997.0, 99999999.0, 99999999.0, 99999999.0};
 inline constexpr double yates_near_1e8_statistic = 2.5000001125000034e-25;
