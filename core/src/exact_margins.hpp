@@ -116,6 +116,20 @@ struct TableMargins {
     }
 };
 
+// For each total, the sum of all the others, in double-double: from prefix and suffix sums, not as
+// n − R, which loses a small remainder when the totals span more than the 32 digits of a
+// double-double (1e100 beside 1e300 and 8e307).
+inline std::vector<DoubleDouble> sums_of_the_others(const std::vector<DoubleDouble>& totals) {
+    std::vector<DoubleDouble> others(totals.size()), suffix(totals.size() + 1);
+    for (std::size_t i = totals.size(); i-- > 0;) suffix[i] = suffix[i + 1] + totals[i];
+    DoubleDouble prefix;
+    for (std::size_t i = 0; i < totals.size(); ++i) {
+        others[i] = prefix + suffix[i + 1];
+        prefix = prefix + totals[i];
+    }
+    return others;
+}
+
 inline TableMargins table_margins(const CountTable& table) {
     TableMargins margins;
     margins.rows.assign(table.rows(), DoubleDouble{});
