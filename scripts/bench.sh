@@ -3,13 +3,15 @@
 #   1. the exact test against R's fisher.test on bench/exact_suite.txt (R is only a yardstick);
 #   2. counting raw records in the core (ns per record, growth with the number of levels);
 #   3. ASSOC.COUNTS in real Calc against the cost of handing the ranges to any add-in, and
-#      against a COUNTIFS grid.
+#      against a COUNTIFS grid;
+#   4. the functions of ordered tables, r×c strata and repeated answers against 50 ms a call, in the
+#      core and in real Calc.
 # Installs what it needs (R for step 1), builds in build/, prints everything to the terminal.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 scripts/install-deps.sh --bench
 cmake -S . -B build -DCMAKE_BUILD_TYPE=RelWithDebInfo
-cmake --build build -j2 --target exact_bench counts_bench
+cmake --build build -j2 --target exact_bench counts_bench ordered_bench
 mkdir -p build/bench
 
 echo "== 1. Exact test: Assoc vs R fisher.test (R timings first, about 6 minutes)"
@@ -24,4 +26,11 @@ if [ -x bench/calc/run.sh ]; then
   echo
   echo "== 3. ASSOC.COUNTS in headless Calc"
   bench/calc/run.sh build
+fi
+
+echo
+echo "== 4. ASSOC.ORDINAL, ASSOC.WITHIN, ASSOC.REPEATED against 50 ms a call (core, then headless Calc)"
+build/bench/ordered_bench
+if [ -x bench/calc/run.sh ]; then
+  /usr/bin/python3 bench/calc/ordered_in_calc.py --build build
 fi

@@ -90,11 +90,12 @@ RemarkCollector::RemarkCollector() : outer_(collecting) { collecting = &remarks_
 RemarkCollector::~RemarkCollector() { collecting = outer_; }
 
 std::vector<CellGrid> split_columns(const CellGrid& range, std::size_t count, const char* function) {
-    require(range.columns() == count, std::string("to try ") + function + ", give ASSOC.CHECK its " + std::to_string(count) +
+    // Fewer columns are blank ones: the range lost its trailing blank columns when it was read.
+    require(range.columns() <= count, std::string("to try ") + function + ", give ASSOC.CHECK its " + std::to_string(count) +
                                           " ranges side by side as the columns of one range; this range has " +
                                           std::to_string(range.columns()) + (range.columns() == 1 ? " column" : " columns"));
     std::vector<CellGrid> columns(count, CellGrid(range.rows(), 1));
-    for (std::size_t c = 0; c < count; ++c)
+    for (std::size_t c = 0; c < range.columns(); ++c)
         for (std::size_t r = 0; r < range.rows(); ++r) columns[c].at(r, 0) = range.at(r, c);
     return columns;
 }

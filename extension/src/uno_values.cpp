@@ -88,21 +88,58 @@ private:
 
 }  // namespace
 
+namespace {
+
+bool is_blank_value(const Any& value) {
+    switch (value.getValueTypeClass()) {
+    case TypeClass::TypeClass_VOID: return true;
+    case TypeClass::TypeClass_STRING: return static_cast<const OUString*>(value.getValue())->isEmpty();
+    default: return false;
+    }
+}
+
+}  // namespace
+
+RangeExtent used_extent(const AnyTable& range) {
+    RangeExtent extent;
+    const sal_Int32 rows = range.getLength();
+    for (sal_Int32 r = rows; r-- > 0;) {
+        const Sequence<Any>& row = range[r];
+        // Only columns beyond those already known to hold something need a look.
+        for (sal_Int32 c = row.getLength(); c-- > static_cast<sal_Int32>(extent.columns);) {
+            if (!is_blank_value(row[c])) {
+                extent.columns = static_cast<std::size_t>(c) + 1;
+                break;
+            }
+        }
+        if (extent.rows == 0 && extent.columns > 0) extent.rows = static_cast<std::size_t>(r) + 1;
+    }
+    return extent;
+}
+
 CellGrid to_cell_grid(const AnyTable& range) {
-    const std::size_t rows = static_cast<std::size_t>(range.getLength());
-    const std::size_t columns = rows == 0 ? 0 : static_cast<std::size_t>(range[0].getLength());
-    // The reader has its own cap on the body; this one keeps a huge range (a whole column) from
-    // being copied before that check can run. A header row and column are allowed on top.
+    const std::size_t columns = range.getLength() == 0 ? 0 : static_cast<std::size_t>(range[0].getLength());
+    for (const Sequence<Any>& row : range)
+        require(static_cast<std::size_t>(row.getLength()) == columns, "the rows of the range have different lengths");
+    // Trailing blank rows and columns are not part of the range: a whole-column reference (A:C) or a
+    // range drawn generously below a growing table reads as the table it holds.
+    RangeExtent used = used_extent(range);
+    // A range of blanks keeps its shape (when it is not huge), so that messages speak of its blanks.
+    const std::size_t all_rows = static_cast<std::size_t>(range.getLength());
+    if (used.rows == 0 && columns > 0 && all_rows <= ReadOptions{}.max_body_cells / columns) used = {all_rows, columns};
+    const std::size_t rows = used.rows;
+    // The reader has its own cap on the body; this one keeps a huge range from being copied before
+    // that check can run. A header row and column are allowed on top.
     const std::size_t cap = ReadOptions{}.max_body_cells;
-    require(columns == 0 || rows <= (cap + rows + columns) / columns,
-            "the range has " + format_count(static_cast<double>(rows) * static_cast<double>(columns)) +
-                " cells; Assoc reads tables of at most " + format_count(static_cast<double>(cap)) + " counts");
-    CellGrid grid(rows, columns);
+    require(used.columns == 0 || rows <= (cap + rows + used.columns) / used.columns,
+            "the range holds " + format_count(static_cast<double>(rows) * static_cast<double>(used.columns)) +
+                " cells up to its last value; Assoc reads tables of at most " + format_count(static_cast<double>(cap)) +
+                " counts");
+    CellGrid grid(rows, used.columns);
     TextCells texts;
     for (std::size_t r = 0; r < rows; ++r) {
         const Sequence<Any>& row = range[static_cast<sal_Int32>(r)];
-        require(static_cast<std::size_t>(row.getLength()) == columns, "the rows of the range have different lengths");
-        for (std::size_t c = 0; c < columns; ++c) {
+        for (std::size_t c = 0; c < used.columns; ++c) {
             const Any& value = row[static_cast<sal_Int32>(c)];
             if (value.getValueTypeClass() == TypeClass::TypeClass_STRING)
                 grid.at(r, c) = texts.cell(*static_cast<const OUString*>(value.getValue()));

@@ -24,7 +24,18 @@ using AnyTable = css::uno::Sequence<css::uno::Sequence<css::uno::Any>>;
 OUString to_ou_string(const std::string& utf8);
 std::string to_utf8(const OUString& text);
 
-// A range as Calc passes it to an any[][] argument: numbers, texts, and blanks as empty texts.
+// The part of a range up to its last row and last column that hold a value (not blank, not an empty
+// text); {0, 0} for a range of blanks.
+struct RangeExtent {
+    std::size_t rows = 0;
+    std::size_t columns = 0;
+};
+RangeExtent used_extent(const AnyTable& range);
+
+// A range as Calc passes it to an any[][] argument (numbers, texts, and blanks as empty texts),
+// without its trailing blank rows and columns (see used_extent): whole-column and whole-row
+// references read as the table they hold, and the size cap applies to what is left. A range of
+// blanks keeps its shape unless it is larger than the cap (then it reads as empty).
 CellGrid to_cell_grid(const AnyTable& range);
 // A range of labels (raw records: one label per record) in dictionary form, read without a Cell per
 // record: each distinct text is converted once, so a million records cost little more than Calc's

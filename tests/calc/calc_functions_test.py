@@ -317,6 +317,7 @@ class BadInput(CalcTestCase):
     def test_a_huge_range_is_refused_quickly(self):
         started = time.monotonic()
         self.put([[1, 2], [3, 4]])
+        self.put([[5]], column=10, row=99999)  # K100000: the range is used up to its last cell
         self.assertEqual(self.formula("M1", "=ASSOC.STATISTIC(A1:K100000)").getError(), ERR_ILLEGAL_ARGUMENT)
         self.assertIn("at most 1,000,000", self.words("M2", "=ASSOC.CHECK(A1:K100000)"))
         self.assertLess(time.monotonic() - started, 30)
@@ -327,6 +328,35 @@ class BadInput(CalcTestCase):
         table = self.put(PARTY, row=10)
         self.assertClose(self.number("H12", f"=ASSOC.STATISTIC({table})"), REFERENCE["party"]["pearson"][0],
                          what="X² after the errors")
+
+
+class WholeColumnsAndRows(CalcTestCase):
+    """Trailing blank rows and columns are not part of a range, so a whole-column reference (A:E), a
+    whole-row one (1:3) or a range drawn generously below a growing table reads as the table it holds."""
+
+    def test_a_whole_column_reference_reads_the_table_it_holds(self):
+        self.put(PARTY)
+        # published_values.md section 3: Agresti's X² 30.0701 (scipy to full precision).
+        self.assertClose(self.number("H1", "=ASSOC.STATISTIC(A:D)"), REFERENCE["party"]["pearson"][0],
+                         what="X² over A:D (scipy)")
+        self.assertEqual(self.number("H2", "=ASSOC.DF(A:D)"), 2)
+
+    def test_a_whole_row_reference_reads_the_table_it_holds(self):
+        self.put(PARTY)
+        self.assertClose(self.number("A5", "=ASSOC.PVALUE(1:3)"), 2.9535891832e-07, 1e-9,
+                         "p of X² over rows 1:3 (published_values.md section 3)")
+
+    def test_a_range_drawn_below_the_table_gives_the_same_array_as_the_table(self):
+        table = self.put(PARTY)
+        exact = self.array("H1:J2", f"=ASSOC.EXPECTED({table})")
+        generous = self.array("H4:J5", "=ASSOC.EXPECTED(A1:F100000)")
+        self.assertEqual(generous, exact)
+
+    def test_check_speaks_of_the_table_not_of_the_blank_rows(self):
+        self.put(TEAMS)
+        text = self.words("H1", "=ASSOC.CHECK(A1:C300000)")
+        self.assertLess(len(text), 400)
+        self.assertNotIn("set aside", text)
 
 
 class SavedDocuments(CalcTestCase):

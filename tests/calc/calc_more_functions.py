@@ -97,7 +97,8 @@ class ExactTest(CalcTestCase, ErrorCheckMixin):
         self.sheet.getCellRangeByName("H1").clearContents(0xFFFF)
         text = self.words("H2", f'=ASSOC.CHECK({table}; "exact")')
         self.assertIn("needs more memory than allowed", text)
-        self.assertIn("use ASSOC.SIMULATE for a Monte Carlo p-value instead", text)
+        self.assertIn('use ASSOC.SIMULATE(range; ; ; "exact") for a Monte Carlo estimate of the exact p-value instead',
+                      text)
         self.sheet.getCellRangeByName("H2").clearContents(0xFFFF)
         self.assertLess(time.monotonic() - started, 30)
         # The office still answers, and the simulated p-value works on the same table.

@@ -1,6 +1,7 @@
 #pragma once
 // The caps of the core's long computations, in one place. Every computation whose work can grow
-// with its input (the exact tests, the simulated p-value) takes one of these and stops at it with
+// with its input (the exact tests, the simulated p-value, the test across r×c strata) takes one of
+// these and stops at it with
 // an assoc::Error that says what to do instead; the rest of the core does a bounded amount of work
 // whatever the input. These are the core's defaults for callers such as the bench and the tests;
 // the worksheet functions use tighter caps of their own, all in extension/src/worksheet_limits.hpp.
@@ -29,6 +30,14 @@ inline constexpr ExactLimits default_report_exact_limits{2.0, 100'000'000};
 struct SimulationLimits {
     double max_seconds = 20.0;
     double max_work = 1e9;  // about 6 seconds
+};
+
+// Limits that keep the test across r×c strata (ASSOC.WITHIN) quick on any range, checked before it
+// starts: the size of the matrix to invert, (rows − 1)(columns − 1), and the work of summing it over
+// the strata, strata × that size².
+struct GeneralAssociationLimits {
+    std::size_t max_dimension = 1000;
+    double max_work = 2e9;  // about 2 seconds
 };
 
 }  // namespace assoc
