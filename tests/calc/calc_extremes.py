@@ -12,7 +12,8 @@ Run:  /usr/bin/python3 tests/calc/calc_extremes.py --oxt build/extension/assoc.o
 import json
 import time
 
-from calc_support import ERR_ILLEGAL_ARGUMENT, HERE, CalcTestCase, run_harness
+from calc_more_functions import ErrorCheckMixin
+from calc_support import HERE, CalcTestCase, run_harness
 
 VALUES = json.loads((HERE / "extremes_values.json").read_text())
 # A cell that took 24 to 51 s before must now take well under its cap; the generous bound keeps a
@@ -20,18 +21,21 @@ VALUES = json.loads((HERE / "extremes_values.json").read_text())
 QUICK = 2.0
 
 
-class ExtremesCase(CalcTestCase):
+class ExtremesCase(CalcTestCase, ErrorCheckMixin):
     def timed(self, cell, text):
         started = time.monotonic()
         value = self.number(cell, text)
         return value, time.monotonic() - started
 
-    def error_explained(self, failing, check, explanation):
-        cell = self.formula("Z1", failing)
-        self.assertEqual(cell.getError(), ERR_ILLEGAL_ARGUMENT, failing)
-        text = self.words("Z2", check)
-        self.assertIn(explanation, text)
-        self.sheet.getCellRangeByName("Z1:Z2").clearContents(0xFFFF)
+    def assertExactOnEverySideQuickly(self, case):
+        """ASSOC.EXACT on every side of the case's table: right to 1e-12 and well within the cap."""
+        table = self.put(case["table"])
+        for side, key in (("two-sided", "two_sided"), ("lower", "lower"), ("upper", "upper")):
+            with self.subTest(side=side):
+                value, seconds = self.timed("F1", f'=ASSOC.EXACT({table}; "{side}")')
+                self.assertClose(value, case[key], 1e-12, f"{side} (exact fractions)")
+                self.assertLess(seconds, QUICK, side)
+        return table
 
     def lines(self, cells, text):
         return {label: value for label, value in self.array(cells, text)}
@@ -40,12 +44,7 @@ class ExtremesCase(CalcTestCase):
 class TablesThatFrozeTheOffice(ExtremesCase):
     def test_exact_answers_the_table_that_froze_calc_on_every_side_within_a_second(self):
         case = VALUES["exact"]["froze_calc"]
-        table = self.put(case["table"])
-        for side, key in (("two-sided", "two_sided"), ("lower", "lower"), ("upper", "upper")):
-            with self.subTest(side=side):
-                value, seconds = self.timed("F1", f'=ASSOC.EXACT({table}; "{side}")')
-                self.assertClose(value, case[key], 1e-12, f"{side} (exact fractions)")
-                self.assertLess(seconds, QUICK, side)
+        table = self.assertExactOnEverySideQuickly(case)
         value, seconds = self.timed("F2", f'=ASSOC.PVALUE({table}; "exact")')
         self.assertClose(value, case["two_sided"], 1e-12, "PVALUE exact")
         self.assertLess(seconds, QUICK)
@@ -61,13 +60,7 @@ class TablesThatFrozeTheOffice(ExtremesCase):
         self.assertLess(time.monotonic() - started, QUICK)
 
     def test_exact_answers_a_billion_beside_single_digits_on_every_side(self):
-        case = VALUES["exact"]["billion_beside_small"]
-        table = self.put(case["table"])
-        for side, key in (("two-sided", "two_sided"), ("lower", "lower"), ("upper", "upper")):
-            with self.subTest(side=side):
-                value, seconds = self.timed("F1", f'=ASSOC.EXACT({table}; "{side}")')
-                self.assertClose(value, case[key], 1e-12, f"{side} (exact fractions)")
-                self.assertLess(seconds, QUICK, side)
+        self.assertExactOnEverySideQuickly(VALUES["exact"]["billion_beside_small"])
 
     def test_exact_keeps_every_digit_with_totals_of_millions(self):
         case = VALUES["exact"]["totals_of_millions"]
@@ -77,7 +70,7 @@ class TablesThatFrozeTheOffice(ExtremesCase):
 
     def test_a_table_whose_total_reaches_two_to_the_53_is_refused_with_words(self):
         table = self.put([[4503599627370496, 1], [1, 4503599627370496]])
-        self.error_explained(f"=ASSOC.EXACT({table})", f'=ASSOC.CHECK({table}; "exact")',
+        self.assertErrorExplained(f"=ASSOC.EXACT({table})", f'=ASSOC.CHECK({table}; "exact")',
                              "the exact test takes totals below 9,007,199,254,740,992 (2^53)")
 
 
@@ -129,7 +122,7 @@ class ResultsThatWereWrongSilently(ExtremesCase):
         # X² = n·φ² with φ² up to min(r, c) − 1: a 3×3 table of 1.6e308 counts, perfectly associated.
         table = self.put([[8e307, 0, 0], [0, 8e307, 0], [0, 0, 10000]])
         self.assertEqual(self.number("H1", f"=ASSOC.PVALUE({table})"), 0.0)
-        self.error_explained(f"=ASSOC.STATISTIC({table})", f'=ASSOC.CHECK({table}; "statistic")',
+        self.assertErrorExplained(f"=ASSOC.STATISTIC({table})", f'=ASSOC.CHECK({table}; "statistic")',
                              "Pearson X² is larger than a spreadsheet number can hold (above 1.8e308) for this table, "
                              "so its p-value is 0")
 
