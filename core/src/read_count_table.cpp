@@ -7,6 +7,8 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "assoc/wording.hpp"
+#include "total_lines.hpp"
 
 namespace assoc {
 namespace {
@@ -46,6 +48,8 @@ bool looks_like_years(std::size_t length, CellAt cell_at) {
 std::string plural(std::size_t n, const char* word) {
     return std::to_string(n) + " " + word + (n == 1 ? "" : "s");
 }
+
+std::string label_of(const Cell& cell) { return cell.is_text() ? std::string(trimmed_label(cell.as_text())) : std::string(); }
 
 }  // namespace
 
@@ -88,7 +92,15 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
             }
             // The message is built only on failure: tables can have a million cells.
             auto fail = [&](const char* reason) {
-                throw Error(cell_name(range_row, range_column) + " holds " + cell.describe() + reason);
+                // Rows and columns of the range as selected, with their labels where the range has them.
+                const auto label = [](const Cell& header) {
+                    return header.is_text() && !trimmed_label(header.as_text()).empty()
+                               ? " (" + quoted_label(header.as_text()) + ")"
+                               : std::string();
+                };
+                const std::string row = "row " + std::to_string(range_row + 1) + (header_column ? label(range.at(range_row, 0)) : "");
+                const std::string column = "column " + std::to_string(range_column + 1) + (header_row ? label(range.at(0, range_column)) : "");
+                throw Error(row + ", " + column + " holds " + cell.describe() + reason);
             };
             if (!cell.is_number()) fail("; counts must be numbers");
             const double value = cell.as_number();
@@ -114,16 +126,24 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
     table.body_column_labels_.assign(body_columns, "");
     table.body_row_labels_.assign(body_rows, "");
     if (header_row)
-        for (std::size_t c = 0; c < body_columns; ++c) {
-            const Cell& cell = range.at(0, first_body_column + c);
-            if (cell.is_text()) table.body_column_labels_[c] = cell.as_text();
-        }
+        for (std::size_t c = 0; c < body_columns; ++c) table.body_column_labels_[c] = label_of(range.at(0, first_body_column + c));
     if (header_column)
-        for (std::size_t r = 0; r < body_rows; ++r) {
-            const Cell& cell = range.at(first_body_row + r, 0);
-            if (cell.is_text()) table.body_row_labels_[r] = cell.as_text();
-        }
-    table.finish(body, options);
+        for (std::size_t r = 0; r < body_rows; ++r) table.body_row_labels_[r] = label_of(range.at(first_body_row + r, 0));
+
+    // Totals and percentages: what the author did not mean as counts.
+    detail::TotalLines totals;
+    totals.rows.assign(body_rows, false);
+    totals.columns.assign(body_columns, false);
+    if (options.find_totals) {
+        const detail::BodySide rows{"row", "column", &table.body_row_labels_, header_column, first_body_row + 1};
+        const detail::BodySide columns{"column", "row", &table.body_column_labels_, header_row, first_body_column + 1};
+        totals = detail::find_total_lines(body, rows, columns);
+        table.doubts_ = totals.doubts;
+    }
+    if (options.counts_only)
+        for (std::string& doubt : detail::refuse_percentages(body, totals.rows, totals.columns))
+            table.doubts_.push_back(std::move(doubt));
+    table.finish(body, options, totals.rows, totals.columns);
     return table;
 }
 
@@ -139,40 +159,53 @@ CountTable CountTable::from_counts(const Matrix& counts, const ReadOptions& opti
     CountTable table;
     table.body_row_labels_.assign(counts.rows(), "");
     table.body_column_labels_.assign(counts.columns(), "");
-    table.finish(counts, options);
+    table.finish(counts, options, std::vector<bool>(counts.rows(), false), std::vector<bool>(counts.columns(), false));
     return table;
 }
 
-// Sets aside all-zero rows and columns, then fills the totals of what is kept.
-void CountTable::finish(const Matrix& body, const ReadOptions& options) {
+// Sets aside total lines and all-zero rows and columns, then fills the totals of what is kept.
+void CountTable::finish(const Matrix& body, const ReadOptions& options, const std::vector<bool>& total_rows,
+                        const std::vector<bool>& total_columns) {
+    body_ = body;
     body_rows_ = body.rows();
     body_columns_ = body.columns();
     std::vector<double> body_row_totals(body_rows_, 0.0), body_column_totals(body_columns_, 0.0);
     for (std::size_t r = 0; r < body_rows_; ++r)
         for (std::size_t c = 0; c < body_columns_; ++c) {
+            if (total_rows[r] || total_columns[c]) continue;
             const double value = body(r, c);
             body_row_totals[r] += value;
             body_column_totals[c] += value;
             whole_counts_ = whole_counts_ && value == std::floor(value);
         }
     for (std::size_t r = 0; r < body_rows_; ++r) {
-        if (body_row_totals[r] > 0) kept_rows_.push_back(r);
-        else set_aside_rows_.push_back({r, body_row_labels_[r]});
+        if (!total_rows[r]) category_rows_.push_back(r);
+        if (total_rows[r]) set_aside_rows_.push_back({r, body_row_labels_[r], SetAside::Why::total, range_row(r)});
+        else if (body_row_totals[r] > 0) kept_rows_.push_back(r);
+        else set_aside_rows_.push_back({r, body_row_labels_[r], SetAside::Why::no_counts, range_row(r)});
     }
     for (std::size_t c = 0; c < body_columns_; ++c) {
-        if (body_column_totals[c] > 0) kept_columns_.push_back(c);
-        else set_aside_columns_.push_back({c, body_column_labels_[c]});
+        if (!total_columns[c]) category_columns_.push_back(c);
+        if (total_columns[c]) set_aside_columns_.push_back({c, body_column_labels_[c], SetAside::Why::total, range_column(c)});
+        else if (body_column_totals[c] > 0) kept_columns_.push_back(c);
+        else set_aside_columns_.push_back({c, body_column_labels_[c], SetAside::Why::no_counts, range_column(c)});
     }
 
     if (options.require_two_by_two) {
-        auto shortfall = [](std::size_t kept, std::size_t aside, const char* word) {
+        auto shortfall = [](std::size_t kept, const std::vector<SetAside>& aside, const char* word) {
             std::string message = "the table has " + std::string(kept == 0 ? "no" : "only 1") + " " + word +
                                   " with counts";
-            if (aside > 0) message += " (" + plural(aside, word) + " with all zeros set aside)";
+            const auto totals = static_cast<std::size_t>(std::count_if(
+                aside.begin(), aside.end(), [](const SetAside& line) { return line.why == SetAside::Why::total; }));
+            const std::size_t empty = aside.size() - totals;
+            std::vector<std::string> parts;
+            if (empty > 0) parts.push_back(plural(empty, word) + " with all zeros");
+            if (totals > 0) parts.push_back(plural(totals, word) + " of totals");
+            if (!parts.empty()) message += " (" + name_list(parts) + " set aside)";
             return message + "; a test of association needs at least 2 rows and 2 columns with counts";
         };
-        require(kept_rows_.size() >= 2, shortfall(kept_rows_.size(), set_aside_rows_.size(), "row"));
-        require(kept_columns_.size() >= 2, shortfall(kept_columns_.size(), set_aside_columns_.size(), "column"));
+        require(kept_rows_.size() >= 2, shortfall(kept_rows_.size(), set_aside_rows_, "row"));
+        require(kept_columns_.size() >= 2, shortfall(kept_columns_.size(), set_aside_columns_, "column"));
     }
 
     counts_ = Matrix(kept_rows_.size(), kept_columns_.size());
@@ -200,6 +233,13 @@ void CountTable::finish(const Matrix& body, const ReadOptions& options) {
                 "the counts are too small, or too far apart in size, to compute with (an expected count falls "
                 "below 1e-308); multiply them all by a common factor or round the smallest to 0");
     }
+}
+
+Matrix CountTable::category_counts() const {
+    Matrix counts(category_rows_.size(), category_columns_.size());
+    for (std::size_t r = 0; r < category_rows_.size(); ++r)
+        for (std::size_t c = 0; c < category_columns_.size(); ++c) counts(r, c) = body_(category_rows_[r], category_columns_[c]);
+    return counts;
 }
 
 Matrix CountTable::to_body_shape(const Matrix& kept, double fill) const {
