@@ -43,14 +43,14 @@ class ExtremesCase(CalcTestCase, ErrorCheckMixin):
 
 
 class TablesThatFrozeTheOffice(ExtremesCase):
-    def test_exact_answers_the_table_that_froze_calc_on_every_side_within_a_second(self):
+    def test_exact_answers_the_table_that_froze_calc_on_every_side_without_freezing(self):
         case = VALUES["exact"]["froze_calc"]
         table = self.assertExactOnEverySideQuickly(case)
         value, seconds = self.timed("F2", f'=ASSOC.PVALUE({table}; "exact")')
         self.assertClose(value, case["two_sided"], 1e-12, "PVALUE exact")
         self.assertLess(seconds, QUICK)
 
-    def test_report_and_check_on_the_table_that_froze_calc_answer_within_a_second(self):
+    def test_report_and_check_on_the_table_that_froze_calc_answer_without_freezing(self):
         table = self.put(VALUES["exact"]["froze_calc"]["table"])
         started = time.monotonic()
         lines = self.lines("H1:I22", f"=ASSOC.REPORT({table})")
