@@ -25,7 +25,8 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
                                          word.empty() ? std::nullopt : std::optional<std::string>(word));
         }))
         return 0;
-    options.max_work = 2e6;  // a thousandth of the worksheet's cap
+    options.limits.max_work = 2e6;   // a five-hundredth of the core's default
+    options.limits.max_seconds = 1;  // within the 2 s of CPU time allowed below
     CountTable table;
     if (!attempt("read_count_table", [&] { table = read_count_table(range); })) return 0;
     SimulationResult first;

@@ -26,9 +26,9 @@ struct VariableNames {
 struct ReportOptions {
     double alpha = 0.05;  // significance level of the decision and the critical value
     VariableNames variables;
-    // The exact test runs on every recalculation of the report, so it gets a short leash (2
-    // seconds, 100 MB); past it the line says why it was not computed (ASSOC.EXACT allows more).
-    ExactLimits exact_limits{2.0, 100'000'000};
+    // The exact test runs on every recalculation of the report, so it gets a short leash
+    // (work_limits.hpp); past it the line says why it was not computed (ASSOC.EXACT allows more).
+    ExactLimits exact_limits = default_report_exact_limits;
 };
 
 // The lines, always the same ones in the same order so that a sheet can refer to them by
