@@ -11,7 +11,6 @@
 // Each target says what its sections mean.
 #include <cstddef>
 #include <cstdint>
-#include <initializer_list>
 #include <string>
 #include <vector>
 
@@ -36,12 +35,11 @@ std::string word_at(const CellGrid& grid, std::size_t i);
 
 // A broken invariant: prints what and where, then aborts so that libFuzzer saves the input.
 [[noreturn]] void finding(const std::string& what);
-// The invariants. `what` names the value in the finding's message. A value that is not finite is a
-// finding in strict mode only (see strict()); otherwise it is let pass, once noted in the log, and
-// check_finite returns false.
+// The invariants. `what` names the value in the finding's message; a value that is not finite is a
+// finding everywhere (the numerics of issue 9 have landed: no known finding is skipped any more).
 void check_probability(double p, const std::string& what);      // finite, in [0, 1]
 void check_nonnegative(double x, const std::string& what);      // finite, ≥ 0
-bool check_finite(double x, const std::string& what);           // finite
+void check_finite(double x, const std::string& what);           // finite
 void check_between(double x, double low, double high, const std::string& what);  // finite, in [low, high]
 // A message for the user: not empty, no library's words, no number with more than 17 significant digits.
 void check_message(const std::string& message, const std::string& what);
@@ -81,28 +79,6 @@ bool attempt(const std::string& what, Compute compute, double max_seconds = max_
 }  // namespace assoc::fuzz
 
 namespace assoc::fuzz {
-
-// Strict mode (ASSOC_FUZZ_STRICT=1 in the environment; scripts/fuzz.sh --strict). Issue 9 found
-// results that overflow to infinity or NaN, silent wrong results and undefined behaviour inside
-// libraries for counts far from everyday sizes, and another branch is fixing them. Until those fixes
-// have landed, outside strict mode the targets leave inputs with such counts alone (after reading
-// them) and let non-finite results pass, so that the short runs of the test command stay quiet about
-// what is known. everyday_numbers is true when every number of the grids is 0 or has a size in
-// [1e-3, 1e12] (negative and non-finite numbers the core refuses anyway), or in strict mode.
-bool strict();
-bool everyday_numbers(std::initializer_list<const CellGrid*> grids);
-// A known finding that another branch is fixing (named in `what`, with where it was reported): true
-// (skip the check) outside strict mode, where it is noted once in the log; false in strict mode.
-bool known(const std::string& what);
-// Known (issue 9, item 1): Fisher's 2×2 test ignores its caps, and its cost grows with the total
-// (seconds for totals in the billions). True (skip) for a total above 1e6, outside strict mode.
-bool slow_two_by_two_exact(double total);
-
-// Known: the interval for Cramér's V calls Boost 1.74's noncentral chi-squared distribution, which
-// overflows an int (undefined behaviour) for a noncentrality near 2^32, i.e. X² of about 4.3e9, and
-// gives up with a rounding error beyond (issue 9, item 5). True (skip) when the table's X² is above
-// 1e9, outside strict mode.
-bool v_interval_out_of_reach(const CountTable& table);
 
 // Every number of the grid times `factor`.
 CellGrid scaled(const CellGrid& grid, double factor);

@@ -17,7 +17,6 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const CellGrid& selected = section(sections, 0);
     const CellGrid& considered = section(sections, 1);
     const double threshold = number_at(section(sections, 2), 0, 0.8);
-    if (!everyday_numbers({&selected, &considered})) return 0;
     attempt("selection_impact", [&] {
         const SelectionImpact result = selection_impact(selected, considered, threshold);
         if (result.groups.size() < 2) finding("impact ratios for fewer than 2 groups");

@@ -2,7 +2,7 @@
 // interval for Cramér's V, at a confidence level from the input.
 // Input: section 1 is the range; section 2 may give the confidence level.
 // Checks: only assoc::Error leaves the core; estimates and limits finite, ≥ 0 and in order; V's
-// limits in [0, 1]; remarks in Assoc's words; everyday counts multiplied by a power of 4 leave the
+// limits in [0, 1]; remarks in Assoc's words; counts multiplied by a power of 4 leave the
 // ratios as they are (unless a zero cell was corrected).
 #include <cmath>
 #include <optional>
@@ -46,7 +46,7 @@ Ratios check_ratios(const CellGrid& range, double confidence) {
         check_ratio(ratio, "risk ratio");
         ratios.risk = ratio;
     });
-    if (!v_interval_out_of_reach(table)) attempt("cramers_v_interval", [&] {
+    attempt("cramers_v_interval", [&] {
         const CramersVInterval interval = cramers_v_interval(table, confidence);
         check_between(interval.lower, 0, 1 + 1e-9, "V lower");
         check_between(interval.upper, 0, 1 + 1e-9, "V upper");
@@ -66,10 +66,8 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const auto sections = read_sections(data, size);
     const CellGrid& range = section(sections, 0);
     const double confidence = number_at(section(sections, 1), 0, 0.95);
-    if (!everyday_numbers({&range})) return 0;
     const Ratios ratios = check_ratios(range, confidence);
     const CellGrid bigger = scaled(range, scale_factor(data, size));
-    if (!everyday_numbers({&bigger})) return 0;
     const Ratios scaled_ratios = check_ratios(bigger, confidence);
     compare(ratios.odds, scaled_ratios.odds, "odds ratio");
     compare(ratios.risk, scaled_ratios.risk, "risk ratio");

@@ -14,7 +14,6 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const CellGrid& answers = section(sections, 0);
     const CellGrid& arguments = section(sections, 1);
     const Cell yes = arguments.empty() ? Cell() : arguments.at(0, 0);
-    if (!everyday_numbers({&answers})) return 0;
     attempt("cochrans_q_test", [&] {
         const RepeatedResult result = cochrans_q_test(answers, yes);
         check_probability(result.p_value, "Q p-value");

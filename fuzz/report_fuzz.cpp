@@ -18,8 +18,6 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const CellGrid& range = section(sections, 0);
     CountTable table;
     if (!attempt("read_count_table", [&] { table = read_count_table(range); })) return 0;
-    if (table.is_two_by_two() && slow_two_by_two_exact(table.total())) return 0;
-    if (!everyday_numbers({&range}) || v_interval_out_of_reach(table)) return 0;
     ReportOptions options;
     options.alpha = number_at(section(sections, 1), 0, 0.05);
     options.exact_limits = {0.05, 20'000'000};

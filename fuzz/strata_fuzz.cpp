@@ -2,7 +2,7 @@
 // odds ratios (Breslow–Day with Tarone's correction) and the common risk ratio.
 // Input: section 1 is the range; section 2 may give the confidence and the correction word.
 // Checks: only assoc::Error leaves the core; p-values in [0, 1]; statistics ≥ 0; the common odds
-// and risk ratios positive and inside their intervals; everyday counts multiplied by a power of 4 k
+// and risk ratios positive and inside their intervals; counts multiplied by a power of 4 k
 // leave the common odds and risk ratios as they are and multiply the Breslow–Day statistic by k, and the uncorrected
 // Mantel–Haenszel statistic by k or more, as the formulas say.
 #include <cmath>
@@ -68,17 +68,6 @@ Figures check_strata(const CellGrid& range, Continuity continuity, double confid
     return figures;
 }
 
-// Known: a stratum whose total is 1 or less (fractional counts) gets a variance n²(n − 1) of 0 or
-// below, so the Mantel–Haenszel statistic is 0 (p = 1) or wrong (issue 9; found here).
-bool small_stratum(const CellGrid& range) {
-    bool small = false;
-    try {
-        for (const Stratum& s : read_strata(range).tables) small = small || (s.informative() && s.total() <= 1);
-    } catch (const Error&) {
-    }
-    return small && known("the Mantel–Haenszel variance for a stratum total of 1 or less");
-}
-
 }  // namespace
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
@@ -88,12 +77,9 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     const double confidence = number_at(arguments, 0, 0.95);
     Continuity continuity = Continuity::corrected;
     attempt("parse_continuity", [&] { continuity = parse_continuity(word_at(arguments, 1)); });
-    if (!everyday_numbers({&range}) || small_stratum(range)) return 0;
     const Figures figures = check_strata(range, continuity, confidence);
     const double k = scale_factor(data, size);
     const CellGrid bigger = scaled(range, k);
-    if (!everyday_numbers({&bigger})) return 0;
-    if (small_stratum(bigger)) return 0;
     const Figures scaled_figures = check_strata(bigger, continuity, confidence);
     const std::string times = " of the strata times " + std::to_string(k);
     if (std::isfinite(figures.odds_ratio) && std::isfinite(scaled_figures.odds_ratio) &&

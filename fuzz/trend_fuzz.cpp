@@ -1,7 +1,7 @@
 // Fuzz target: the trend test (Cochran–Armitage) for a 2×k or k×2 table read from cells, with scores.
 // Input: section 1 is the range; section 2, if present, the scores.
 // Checks: only assoc::Error leaves the core; the p-value in [0, 1]; z finite and z² the statistic;
-// scores moved and stretched (2s + 1) give the same z; everyday counts multiplied by a power of 4 k
+// scores moved and stretched (2s + 1) give the same z; counts multiplied by a power of 4 k
 // multiply the statistic by k.
 #include <cmath>
 
@@ -27,38 +27,23 @@ double check_trend(const CellGrid& range, const CellGrid& scores) {
     return z;
 }
 
-// Known (issue 9; fixed on another branch): with a count far above the others (4e11 beside 5 and 10),
-// z loses digits to the mean score (relative error 3e-6), so rescaled scores move it. Skip the
-// identities for counts above 1e8, outside strict mode.
-bool digits_lost(const CellGrid& range) {
-    for (std::size_t r = 0; r < range.rows(); ++r)
-        for (std::size_t c = 0; c < range.columns(); ++c)
-            if (range.at(r, c).is_number() && range.at(r, c).as_number() > 1e8)
-                return known("the trend test's digits for a count far above the others");
-    return false;
-}
-
 }  // namespace
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
     const auto sections = read_sections(data, size);
     const CellGrid& range = section(sections, 0);
     const CellGrid& scores = section(sections, 1);
-    if (!everyday_numbers({&range, &scores})) return 0;
     const double z = check_trend(range, scores);
-    if (!std::isfinite(z) || digits_lost(range)) return 0;
+    if (!std::isfinite(z)) return 0;
 
     CellGrid stretched = scores;
     for (std::size_t r = 0; r < scores.rows(); ++r)
         for (std::size_t c = 0; c < scores.columns(); ++c)
             if (scores.at(r, c).is_number()) stretched.at(r, c) = Cell::number(2 * scores.at(r, c).as_number() + 1);
-    if (everyday_numbers({&stretched})) {
-        const double stretched_z = check_trend(range, stretched);
-        if (std::isfinite(stretched_z) && !close(stretched_z, z, 1e-7)) finding("scores 2s + 1 change the trend's z");
-    }
+    const double stretched_z = check_trend(range, stretched);
+    if (std::isfinite(stretched_z) && !close(stretched_z, z, 1e-7)) finding("scores 2s + 1 change the trend's z");
     const double k = scale_factor(data, size);
     const CellGrid bigger = scaled(range, k);
-    if (!everyday_numbers({&bigger}) || digits_lost(bigger)) return 0;
     const double scaled_z = check_trend(bigger, scores);
     if (std::isfinite(scaled_z) && !close(scaled_z * scaled_z, k * z * z, 1e-7))
         finding("the trend statistic of the table times " + std::to_string(k) + " is not the statistic times that");

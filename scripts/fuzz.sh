@@ -4,8 +4,6 @@
 #
 #   scripts/fuzz.sh                      every target for an hour each
 #   scripts/fuzz.sh --seconds 600 exact  one target for 10 minutes
-#   scripts/fuzz.sh --strict …           also check extreme counts and the known findings
-#                                        (ASSOC_FUZZ_STRICT=1; see fuzz/README.md)
 #
 # Each target's corpus grows in build-clang/fuzz/work/<target>/corpus (the seeds in fuzz/corpus/ are
 # read, never written); a finding stops that target and is saved beside it as crash-*, leak-*,
@@ -20,8 +18,7 @@ targets=()
 while [ $# -gt 0 ]; do
   case "$1" in
     --seconds) seconds="$2"; shift 2 ;;
-    --strict) export ASSOC_FUZZ_STRICT=1; shift ;;
-    -h|--help) sed -n '2,12p' "$0"; exit 0 ;;
+    -h|--help) sed -n '2,10p' "$0"; exit 0 ;;
     *) targets+=("$1"); shift ;;
   esac
 done
