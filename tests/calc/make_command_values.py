@@ -41,7 +41,7 @@ TABLES = {
 }
 
 
-def v_interval(counts):
+def v_interval(counts, confidence=0.95):
     t = np.array(counts, dtype=float)
     x2, _, df, _ = st.chi2_contingency(t, correction=False)
     n, k = t.sum(), min(t.shape)
@@ -50,7 +50,8 @@ def v_interval(counts):
         if st.chi2.sf(x2, df) >= tail:
             return 0.0
         return optimize.brentq(lambda lam: st.ncx2.sf(x2, df, lam) - tail, 0, 10 * x2 + 100, xtol=1e-14, rtol=1e-15)
-    return [min(1.0, math.sqrt(bound(tail) / (n * (k - 1)))) for tail in (0.025, 0.975)]
+    alpha = 1 - confidence
+    return [min(1.0, math.sqrt(bound(tail) / (n * (k - 1)))) for tail in (alpha / 2, 1 - alpha / 2)]
 
 
 def ratios(counts):
