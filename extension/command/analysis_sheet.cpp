@@ -8,6 +8,7 @@
 #include "assoc/error.hpp"
 #include "assoc/exact_test.hpp"
 #include "assoc/format.hpp"
+#include "assoc/pairwise_comparisons.hpp"
 #include "assoc/residuals.hpp"
 #include "assoc/validity.hpp"
 
@@ -613,17 +614,28 @@ void pairwise_block(Layout& s) {
     if (groups < 3) return;
     const std::size_t pairs = groups * (groups - 1) / 2;
     s.heading("Which rows differ from which: every pair compared (ASSOC.PAIRWISE)");
+    if (groups > max_pairwise_sheet_rows) {
+        s.wide_line("Not on this sheet: the " + std::to_string(groups) + " rows with counts make " +
+                        std::to_string(pairs) + " pairs, too many to read here. To see them, enter =ASSOC.PAIRWISE(" +
+                        s.table_shown + ") as an array formula over 4 columns and " + std::to_string(pairs) +
+                        " rows in a sheet of its own, or compare the rows that matter to you in a table of their own.",
+                    Look::note);
+        s.gap();
+        return;
+    }
     s.wide_line("Each pair of rows is tested on its own table of the two rows (Pearson's X²), and its p-value is "
                 "adjusted for the " + std::to_string(pairs) + " comparisons (Holm's method). Rows without counts take "
                 "no part.",
                 Look::note);
-    s.plan.text(s.row, 0, "Row", Look::header);
+    s.plan.text(s.row, 0, s.reading.variables.rows.empty() ? "Row" : s.reading.variables.rows, Look::header);
     s.plan.text(s.row, 1, "Compared with", Look::header);
     s.plan.text(s.row, 2, "p-value", Look::header);
     s.plan.text(s.row, 3, "Adjusted p-value", Look::header);
     ++s.row;
     const std::size_t first = s.row;
-    s.plan.array_formula(Area{first, 0, pairs, 4}, "=ASSOC.PAIRWISE(" + pairwise_range(s) + ")", Look::label);
+    const std::string range = pairwise_range(s);
+    s.plan.array_formula(Area{first, 0, pairs, 4}, "=ASSOC.PAIRWISE(" + range + ")", Look::label);
+    s.plan.look(Area{first, 1, pairs, 1}, Look::text);  // the second label wraps in its narrow column
     s.plan.look(Area{first, 2, pairs, 2}, Look::p_value);
     s.row += pairs;
 
@@ -640,13 +652,24 @@ void pairwise_block(Layout& s) {
                              chosen + "))&\" more pairs (see the table)\";\"\")";
     const std::string formula = "=IF(" + below + "=0;\"None: no pair of rows differs at the \"&" + percent_of(alpha) +
                                 "&\" level once the p-values are adjusted.\";" + listed + "&" + more + "&\".\")";
-    std::size_t label_length = 0;
-    for (const std::string& name : s.reading.row_names) label_length = std::max(label_length, name.size());
+    // Estimates of the sentences' lengths, for the row heights, from the pairs as they are now.
+    std::size_t length = 90, listed_now = 0, verdict = check_validity(s.reading.table).summary().size() + 45;
+    try {
+        const PairwiseComparisons now = pairwise_comparisons(s.reading.table);
+        for (const PairComparison& pair : now.pairs)
+            if (pair.adjusted_p_value < s.options.alpha && listed_now++ < 6)
+                length += pair.first_name.size() + pair.second_name.size() + 30;
+        for (const std::string& remark : now.remarks) verdict += remark.size() + 1;
+    } catch (const Error&) {
+        // The cells will say what is wrong; the estimates stay short.
+    }
     s.plan.formula(s.row, 0, "=\"Pairs that differ at \"&" + percent_of(alpha), Look::label);
     const Area sentence{s.row, 1, 1, s.last_column};
     s.plan.array_formula(Area{s.row, 1}, formula, Look::text);
-    s.plan.merge(sentence, s.lines_for(20 + std::min<std::size_t>(pairs, 6) * (2 * label_length + 35), sentence));
+    s.plan.merge(sentence, s.lines_for(length, sentence));
     ++s.row;
+    // The verdict on the table, and which pairs have expected counts too small for their p-values.
+    s.sentence_line("Verdict on the pairs", "=ASSOC.CHECK(" + range + ";\"pairwise\")", true, verdict);
     s.wide_line("Read the adjusted p-value: every comparison is another chance of a false alarm, so with " +
                     std::to_string(pairs) + " comparisons some unadjusted p-values come out small by chance alone, "
                     "and the adjustment allows for that. A difference between two groups is not proof of "

@@ -53,6 +53,10 @@ SheetPlan plan_analysis_sheet(const Reading& reading, const CommandOptions& opti
 // or the source sheet and range; without characters sheet names cannot hold, at most 31 long.
 std::string sheet_base_name(const Reading& reading);
 
+// Tables with more rows with counts than this get no comparisons of every pair of rows on the sheet
+// (20 rows make 190 pairs), only a note on how to get them.
+inline constexpr std::size_t max_pairwise_sheet_rows = 20;
+
 // Cell-line numbers (1-based) of ASSOC.REPORT's lines that the sheet refers to (report.hpp keeps
 // them in a fixed order so that sheets can).
 inline constexpr std::size_t report_lines = 22;
