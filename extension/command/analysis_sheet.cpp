@@ -653,12 +653,13 @@ void pairwise_block(Layout& s) {
     const std::string formula = "=IF(" + below + "=0;\"None: no pair of rows differs at the \"&" + percent_of(alpha) +
                                 "&\" level once the p-values are adjusted.\";" + listed + "&" + more + "&\".\")";
     // Estimates of the sentences' lengths, for the row heights, from the pairs as they are now.
-    std::size_t length = 90, listed_now = 0, verdict = check_validity(s.reading.table).summary().size() + 45;
+    std::size_t length = 10, listed_now = 0, verdict = check_validity(s.reading.table).summary().size() + 45;
     try {
         const PairwiseComparisons now = pairwise_comparisons(s.reading.table);
         for (const PairComparison& pair : now.pairs)
             if (pair.adjusted_p_value < s.options.alpha && listed_now++ < 6)
                 length += pair.first_name.size() + pair.second_name.size() + 30;
+        if (listed_now == 0) length = 80;  // "None: …"
         for (const std::string& remark : now.remarks) verdict += remark.size() + 1;
     } catch (const Error&) {
         // The cells will say what is wrong; the estimates stay short.
