@@ -229,6 +229,9 @@ class TheCasesOfIssue9(Battery):
                  '=ASSOC.CHECK(A1:B2; "pvalue")', "ASSOC.PVALUE can be used on this table."),
             Case("V of [[2,0],[1,1e308]]", at([[2, 0], [1, 1e308]]), "=ASSOC.STRENGTH(A1:B2)", value(wide["cramers_v"]),
                  '=ASSOC.CHECK(A1:B2; "strength")', "ASSOC.STRENGTH can be used on this table."),
+            Case("V's interval of [[2,0],[1,1e308]]", at([[2, 0], [1, 1e308]]), "=ASSOC.VINTERVAL(A1:B2)",
+                 value(wide["cramers_v"]), '=ASSOC.CHECK(A1:B2; "vinterval")',
+                 "ASSOC.VINTERVAL can be used on this table.", array="H1:J1"),
             # The table's Pearson residual (2 − E)/√E with E = 6e-308 equals √X², the adjusted residual (mpmath).
             Case("residuals of [[2,0],[1,1e308]]", at([[2, 0], [1, 1e308]]), "=ASSOC.RESIDUALS(A1:B2)",
                  value(wide["adjusted"][0][0]), '=ASSOC.CHECK(A1:B2; "residuals")',
@@ -392,6 +395,8 @@ class SmallShapes(Battery):
                  array="H1:I22"),
             Case("a single label", at([["North"]]), "=ASSOC.LEVELS(A1)", text("North")),
             Case("a single record", at([["North", "Yes"]]), "=ASSOC.COUNTS(A1; B1)", value(1)),
+            Case("V's interval of one row", at([[4, 5, 6]]), "=ASSOC.VINTERVAL(A1:C1)", error(),
+                 '=ASSOC.CHECK(A1:C1; "vinterval")', "only 1 row with counts", array="H1:J1"),
             Case("pairwise with one row", at([[4, 5, 6]]), "=ASSOC.PAIRWISE(A1:C1)", error(),
                  '=ASSOC.CHECK(A1:C1; "pairwise")', array="H1:K1"),
         ])
@@ -557,6 +562,7 @@ class NumberArguments(Battery):
                  array="H1:J2"),
             Case("rates at confidence 1", at(TEAMS), "=ASSOC.RATES(A1:B2; 1)", error(), array="H1:K2"),
             Case("rate difference at confidence 0", at(TEAMS), "=ASSOC.RATEDIFF(A1:B2; 0)", error()),
+            Case("V's interval at confidence 1", at(THREE), "=ASSOC.VINTERVAL(A1:C3; 1)", error(), array="H1:J1"),
             Case("common risk ratio at confidence 2", at(STRATA), "=ASSOC.STRATARISK(A1:D3; 2)", error()),
             Case("report at alpha 0", at(THREE), "=ASSOC.REPORT(A1:C3; 0)", error(), array="H1:I22"),
             Case("report at alpha 1", at(THREE), "=ASSOC.REPORT(A1:C3; 1)", error(), array="H1:I22"),

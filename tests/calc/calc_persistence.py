@@ -64,9 +64,9 @@ ARRAYS = {
     "O9:Q11": "=ASSOC.CELLTEST(A1:D4)", "O13:Q13": '=ASSOC.STATISTIC(A1:D4; "g")',
     "O15:P17": "=ASSOC.COUNTS(A11:A22; B11:B22)", "O19:O21": '=ASSOC.LEVELS(A11:A22; "first")',
     "O23:Q25": "=ASSOC.IMPACT(F17:H17; F18:H18)", "O27:R29": "=ASSOC.RATES(A1:D4)",
-    "O31:R33": "=ASSOC.PAIRWISE(A1:D4)", "S1:T22": "=ASSOC.REPORT(A1:D4)",
+    "O31:R33": "=ASSOC.PAIRWISE(A1:D4)", "S1:T22": "=ASSOC.REPORT(A1:D4)", "O35:Q35": "=ASSOC.VINTERVAL(A1:D4; 0.9)",
 }
-AREA = "M1:T33"
+AREA = "M1:T35"
 FORMATS = {"ods": "calc8", "xlsx": "Calc Office Open XML"}
 NAME_ERROR = 525  # Calc's #NAME?
 MACRO_ERROR = 531  # Calc's #MACRO?: the call is read as one to a macro that cannot be found
