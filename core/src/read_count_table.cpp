@@ -62,9 +62,9 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
     const std::size_t body_rows = range.rows() - first_body_row;
     const std::size_t body_columns = range.columns() - first_body_column;
     require(body_rows > 0 && body_columns > 0, "the range holds only labels and no counts");
-    require(body_rows <= options.max_body_cells / body_columns,
-            "the table has " + format_count(static_cast<double>(body_rows) * static_cast<double>(body_columns)) +
-                " count cells; Assoc reads at most " + format_count(static_cast<double>(options.max_body_cells)));
+    if (body_rows > options.max_body_cells / body_columns)
+        throw Error("the table has " + format_count(static_cast<double>(body_rows) * static_cast<double>(body_columns)) +
+                    " count cells; Assoc reads at most " + format_count(static_cast<double>(options.max_body_cells)));
 
     // Without a header row, text in row 1 next to numbers is a mistake to report as such:
     // a header row must hold only labels.
@@ -132,7 +132,8 @@ CountTable CountTable::from_counts(const Matrix& counts, const ReadOptions& opti
     for (std::size_t r = 0; r < counts.rows(); ++r)
         for (std::size_t c = 0; c < counts.columns(); ++c) {
             const double value = counts(r, c);
-            require(std::isfinite(value) && value >= 0,
+            if (!(std::isfinite(value) && value >= 0))
+                throw Error(
                     "row " + std::to_string(r + 1) + ", column " + std::to_string(c + 1) +
                         " holds " + Cell::number(value).describe() + "; counts must be numbers of zero or more");
         }
@@ -155,6 +156,11 @@ void CountTable::finish(const Matrix& body, const ReadOptions& options) {
             body_column_totals[c] += value;
             whole_counts_ = whole_counts_ && value == std::floor(value);
         }
+    // Room for everything at once: a sheet may read thousands of small tables per recalculation.
+    kept_rows_.reserve(body_rows_);
+    kept_columns_.reserve(body_columns_);
+    row_labels_.reserve(body_rows_);
+    column_labels_.reserve(body_columns_);
     for (std::size_t r = 0; r < body_rows_; ++r) {
         if (body_row_totals[r] > 0) kept_rows_.push_back(r);
         else set_aside_rows_.push_back({r, body_row_labels_[r]});
@@ -171,8 +177,8 @@ void CountTable::finish(const Matrix& body, const ReadOptions& options) {
             if (aside > 0) message += " (" + plural(aside, word) + " with all zeros set aside)";
             return message + "; a test of association needs at least 2 rows and 2 columns with counts";
         };
-        require(kept_rows_.size() >= 2, shortfall(kept_rows_.size(), set_aside_rows_.size(), "row"));
-        require(kept_columns_.size() >= 2, shortfall(kept_columns_.size(), set_aside_columns_.size(), "column"));
+        if (kept_rows_.size() < 2) throw Error(shortfall(kept_rows_.size(), set_aside_rows_.size(), "row"));
+        if (kept_columns_.size() < 2) throw Error(shortfall(kept_columns_.size(), set_aside_columns_.size(), "column"));
     }
 
     counts_ = Matrix(kept_rows_.size(), kept_columns_.size());
