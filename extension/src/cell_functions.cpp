@@ -25,6 +25,7 @@
 #include "assoc/trend_test.hpp"
 #include "assoc_functions.hpp"
 #include "check.hpp"
+#include "remembered.hpp"
 
 namespace assoc::calc {
 namespace {
@@ -32,7 +33,9 @@ namespace {
 // A cell must not freeze the office for long, and Calc recalculates add-in cells whenever a document
 // loads: the exact test stops after 5 seconds or 400 MB of working memory (the office's peak memory
 // grows by about as much; the core's own defaults are 20 seconds and 1 GB), with an error that
-// points to ASSOC.SIMULATE.
+// points to ASSOC.SIMULATE; a table it cannot finish within them is refused at once (see
+// freeman_halton.cpp). Its answers and refusals are remembered (extension/cache/), so an unchanged
+// table is not computed again on the next recalculation or load.
 const ExactLimits worksheet_exact_limits{5.0, 400'000'000};
 
 std::vector<double> ratio_row(const RatioEstimate& ratio) {
@@ -60,7 +63,7 @@ double pvalue(const CellGrid& range, PValueMethod method) {
     case PValueMethod::pearson: return independence_test(table, Method::pearson).p_value;
     case PValueMethod::g: return independence_test(table, Method::likelihood_ratio).p_value;
     case PValueMethod::yates: return independence_test(table, Method::yates).p_value;
-    case PValueMethod::exact: return exact_p_value(table, Side::two_sided, worksheet_exact_limits);
+    case PValueMethod::exact: return shared_exact_p_value(table, Side::two_sided, worksheet_exact_limits);
     }
     throw Error("unknown method");
 }
@@ -87,13 +90,14 @@ double strength(const CellGrid& range, Measure measure) {
 }
 
 double exact(const CellGrid& range, Side side) {
-    return exact_p_value(read_count_table(range), side, worksheet_exact_limits);
+    return shared_exact_p_value(read_count_table(range), side, worksheet_exact_limits);
 }
 
 std::vector<double> simulate(const CellGrid& range, double trials, double seed, Method method) {
     SimulationOptions options = simulation_options(trials, seed);
     options.statistic = method;
-    const SimulationResult result = monte_carlo_test(read_count_table(range), options);
+    // Remembered (keyed by the counts and every option): the same seed gives the same answer.
+    const SimulationResult result = remembered_monte_carlo_test(shared_result_cache(), read_count_table(range), options);
     return {result.p_value, result.standard_error, static_cast<double>(result.trials)};
 }
 
@@ -185,6 +189,7 @@ CellGrid report(const CellGrid& range, double alpha) {
     ReportOptions options;
     options.alpha = alpha;
     options.variables = variable_names_from_corner(range, table);
+    options.exact_test = shared_exact_p_value;  // the exact line, remembered like ASSOC.EXACT's
     const std::vector<ReportLine> lines = association_report(table, options);
     CellGrid cells(lines.size(), 2);
     for (std::size_t i = 0; i < lines.size(); ++i) {

@@ -29,6 +29,9 @@ struct ReportOptions {
     // The exact test runs on every recalculation of the report, so it gets a short leash (2
     // seconds, 100 MB); past it the line says why it was not computed (ASSOC.EXACT allows more).
     ExactLimits exact_limits{2.0, 100'000'000};
+    // How the exact p-value is computed: exact_p_value, or a caller's equivalent that remembers
+    // earlier answers (the add-in's cache); it must give the same answers and the same errors.
+    double (*exact_test)(const CountTable&, Side, const ExactLimits&) = exact_p_value;
 };
 
 // The lines, always the same ones in the same order so that a sheet can refer to them by
