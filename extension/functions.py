@@ -270,7 +270,11 @@ FUNCTIONS = [
         ["Trustworthy where the chi-squared approximation is doubtful (small expected counts). For larger "
          "tables with many counts the number of possible tables grows quickly: the calculation stops with an "
          "error after about 5 seconds, or when it would need more than about 400 MB of memory; ASSOC.SIMULATE "
-         "then gives a Monte Carlo p-value instead. ASSOC.CHECK with \"exact\" says why it fails."],
+         "then gives a Monte Carlo p-value instead. ASSOC.CHECK with \"exact\" says why it fails.",
+         "The calculation counts its work before doing it and watches its pace, so a table it cannot finish "
+         "within those limits is usually refused at once rather than after 5 seconds. While LibreOffice runs, "
+         "the answer (or the refusal) for a table is remembered: recalculating or reopening a sheet does not "
+         "compute an unchanged table again, and any change to its counts is computed afresh."],
         "=ASSOC.EXACT(A1:C3)"),
     Function(
         "ASSOC.SIMULATE", "simulate",
@@ -287,7 +291,9 @@ FUNCTIONS = [
                "entry shows the p-value",
         ["The p-value is (1 + k) / (trials + 1), k the number of random tables at least as extreme, so it is "
          "never 0. The standard error √(p (1 − p) / trials) shrinks with more trials. Tables too large to "
-         "simulate within a few seconds are refused with an error that says how many trials would fit."],
+         "simulate within a few seconds are refused with an error that says how many trials would fit.",
+         "Since the same counts, trials, seed and method always give the same result, it is remembered while "
+         "LibreOffice runs: recalculating or reopening a sheet does not simulate an unchanged table again."],
         "=ASSOC.SIMULATE(A1:D4; 100000; 7)"),
     Function(
         "ASSOC.ODDSRATIO", "oddsratio",
@@ -483,7 +489,8 @@ FUNCTIONS = [
          "(for example \"Department / Outcome\"), the conclusion uses those names.",
          "The exact p-value is computed when the counts are whole and the test finishes within 2 seconds and "
          "100 MB of memory; otherwise its line says why not (ASSOC.EXACT allows 5 seconds and 400 MB, "
-         "ASSOC.SIMULATE estimates the p-value). The cells "
+         "ASSOC.SIMULATE estimates the p-value). Like ASSOC.EXACT's, the exact line is remembered for an "
+         "unchanged table while LibreOffice runs. The cells "
          "that stand out are the (at most 3) cells with the largest adjusted residuals beyond ±2, named by "
          "their labels."],
         "=ASSOC.REPORT(A1:D3; 0.05)"),

@@ -26,13 +26,18 @@
 //
 // The work cap (ExactLimits) holds throughout: every vector and hash-map node the algorithm keeps
 // is counted in bytes before it is allocated, and the clock is read every few thousand steps of
-// every loop whose length is not already bounded by the memory counted.
+// every loop whose length is not already bounded by the memory counted. And a table that cannot
+// finish within the cap is refused as soon as that shows, not when the cap is reached: each stage
+// counts its work before doing it, and a forecast of the time (and memory) still needed is
+// checked against what is left (see "The forecast" below; bench/exact_refusal_validation.cpp
+// measures how early it refuses and that it does not refuse tables that would finish).
 #include "freeman_halton.hpp"
 
 #include <algorithm>
 #include <chrono>
 #include <cmath>
 #include <cstdint>
+#include <ctime>
 #include <functional>
 #include <limits>
 #include <new>
@@ -130,7 +135,8 @@ Error limit_error(const ExactLimits& limits, const char* resource) {
 
 class Network {
 public:
-    Network(const Matrix& counts, const ExactLimits& limits) : limits_(limits), start_(Clock::now()) {
+    Network(const Matrix& counts, const ExactLimits& limits)
+        : limits_(limits), start_(Clock::now()), start_cpu_(cpu_now()) {
         const Matrix table = counts.rows() > counts.columns() ? counts.transposed() : counts;
         // The total first: the counts fit in `unsigned` only once it is known to be small.
         double n = 0;
@@ -175,6 +181,7 @@ public:
             log_column_factorials_from_[k] = log_column_factorials_from_[k + 1] + log_factorial_[columns_[k]];
         meeting_ = columns_.size() - std::min(backward_columns(), columns_.size() - 1);
         futures_.resize(columns_.size() - meeting_);
+        future_sizes_.resize(columns_.size() - meeting_);
         fill_.resize(row_count_);
         capacity_.resize(row_count_ + 1);
         child_.resize(row_count_);
@@ -195,34 +202,63 @@ public:
         push(stage[root_].pasts, Past{0.0, 1.0});
         for (std::size_t k = 0; k < meeting; ++k) {
             const bool last = k + 1 == meeting;
-            Stage next;
+            // The plan of the stage: every node's pasts merged, those the cheap bounds settle taken
+            // out, and the work left counted (pasts × fills of the column), before any of it is done.
+            struct Task {
+                const NodeKey* node;
+                std::vector<Past>* pasts;
+                std::size_t first, end;
+                double units;
+            };
+            std::vector<Task> tasks;
+            reserve_for(tasks, stage.size());
+            double units = 0;
             for (auto& [node, entry] : stage) {
                 std::vector<Past>& pasts = entry.pasts;
                 merge_equal_values(pasts);
+                const auto [first, end] = split_by_bounds(pasts, bounds_of(k, node), log_total_future(k, node));
+                if (first == end) {
+                    release(pasts);
+                    continue;
+                }
+                // Fills past twice what the forecast allows need not be counted: the stage is refused.
+                const double enough = 2 * limits_.max_seconds / early_forward_rate / static_cast<double>(end - first) + 1;
+                const double fills = count_fills(node, columns_[k], enough);
+                if (last) plan_futures(k, node);
+                tasks.push_back(Task{&node, &pasts, first, end, static_cast<double>(end - first) * fills});
+                units += tasks.back().units;
+            }
+            begin_stage(k, units, last);
+            Stage next;
+            double units_before = 0;
+            for (const Task& task : tasks) {
+                std::vector<Past>& pasts = *task.pasts;
                 if (last) {
-                    settle_before_meeting(k, node, pasts);
+                    settle_before_meeting(k, *task.node, pasts, task.first, task.end);
                 } else {
-                    // Plain variables, not structured bindings: C++17 does not let a lambda capture those.
-                    std::size_t first = 0, end = 0;
-                    std::tie(first, end) = split_by_bounds(pasts, bounds_of(k, node), log_total_future(k, node));
-                    if (first < end)
-                        for_each_fill(node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
-                            const auto [place, inserted] = next.try_emplace(child);
-                            if (inserted) take(node_bytes);
-                            NodePasts& target = place->second;
-                            reserve_for(target.pasts, target.pasts.size() + (end - first));
-                            for (std::size_t i = first; i < end; ++i)
-                                target.pasts.push_back(Past{pasts[i].log_value + fill_value, pasts[i].mass * arrangements});
-                            // A merge keeps the vector's capacity, so the bytes stay counted.
-                            if (target.pasts.size() >= target.merge_at) {
-                                merge_equal_values(target.pasts);
-                                target.merge_at = std::max<std::size_t>(4096, 2 * target.pasts.size());
-                            }
-                            if ((work_ += end - first) > next_time_check_) check_time();
-                        });
+                    const std::size_t first = task.first, end = task.end;
+                    for_each_fill(*task.node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
+                        const auto [place, inserted] = next.try_emplace(child);
+                        if (inserted) take(node_bytes);
+                        NodePasts& target = place->second;
+                        reserve_for(target.pasts, target.pasts.size() + (end - first));
+                        for (std::size_t i = first; i < end; ++i)
+                            target.pasts.push_back(Past{pasts[i].log_value + fill_value, pasts[i].mass * arrangements});
+                        // A merge keeps the vector's capacity, so the bytes stay counted.
+                        if (target.pasts.size() >= target.merge_at) {
+                            merge_equal_values(target.pasts);
+                            target.merge_at = std::max<std::size_t>(4096, 2 * target.pasts.size());
+                        }
+                        units_done_ += static_cast<double>(end - first);
+                        if ((work_ += end - first) > next_time_check_) check_time();
+                    });
                 }
                 release(pasts);
+                units_before += task.units;
+                units_done_ = units_before;
             }
+            end_stage();
+            release(tasks);
             give_back(stage.size() * node_bytes);
             stage.swap(next);
         }
@@ -262,11 +298,10 @@ private:
 
     // A node three columns from the end: each fill of its column leads to a node whose futures
     // are a sorted list, so every past is settled there by binary search, without storing it again.
-    void settle_before_meeting(std::size_t k, const NodeKey& node, const std::vector<Past>& pasts) {
-        // The cheap bounds first: when they settle every past, the fills need not be enumerated.
+    // The pasts in [cheap_first, cheap_end) are those the cheap bounds did not settle.
+    void settle_before_meeting(std::size_t k, const NodeKey& node, const std::vector<Past>& pasts,
+                               std::size_t cheap_first, std::size_t cheap_end) {
         const double log_total = log_total_future(k, node);
-        const auto [cheap_first, cheap_end] = split_by_bounds(pasts, bounds_of(k, node), log_total);
-        if (cheap_first == cheap_end) return;
         struct Child {
             const FutureList* futures;
             double fill_value;
@@ -318,6 +353,7 @@ private:
             if (linear && sum > 0)
                 result_.add(log_k_ + child.fill_value + child.log_arrangements + log_weighted_max +
                             futures.log_prefix_mass.back() + std::log(sum));
+            units_done_ += static_cast<double>(cheap_end - cheap_first);
             if ((work_ += end - first) > next_time_check_) check_time();
         }
         give_back(weight_bytes);
@@ -451,9 +487,13 @@ private:
     const FutureList& futures_of(std::size_t k, const NodeKey& node) {
         auto& memo = futures_[k - meeting_];
         if (auto found = memo.find(node); found != memo.end()) return found->second;
+        const bool outermost = futures_depth_++ == 0;
+        const double started = outermost ? cpu_seconds() : 0.0;
         // The values arrive with their bytes counted; they are given back once the list is built.
         std::vector<Past> values = k + 2 == columns_.size() ? last_two_columns(node) : combined_futures(k, node);
+        built_future_values_ += static_cast<double>(values.size());
         merge_equal_values(values);
+        built_future_bytes_ += 16 * static_cast<double>(values.size());
         take(future_node_bytes() + 4 * values.size() * sizeof(double));
         FutureList list;
         list.log_values.reserve(values.size());
@@ -471,6 +511,7 @@ private:
         }
         for (double log_mass : list.log_prefix_mass) list.prefix_share.push_back(std::exp(log_mass - list.log_prefix_mass.back()));
         release(values);
+        if (--futures_depth_ == 0 && outermost) futures_seconds_ += cpu_seconds() - started;
         return memo.emplace(node, std::move(list)).first->second;
     }
 
@@ -590,10 +631,169 @@ private:
         return map_node_bytes<std::unordered_map<NodeKey, FutureList, NodeKeyHash>>() + 4 * 2 * sizeof(void*);
     }
 
+    double elapsed() const { return std::chrono::duration<double>(Clock::now() - start_).count(); }
+    // Processor seconds of this thread (POSIX); where that clock is missing, of the process.
+    static double cpu_now() {
+#if defined(CLOCK_THREAD_CPUTIME_ID)
+        timespec now{};
+        clock_gettime(CLOCK_THREAD_CPUTIME_ID, &now);
+        return static_cast<double>(now.tv_sec) + static_cast<double>(now.tv_nsec) * 1e-9;
+#else
+        return static_cast<double>(std::clock()) / CLOCKS_PER_SEC;
+#endif
+    }
+    // Processor seconds spent on the test so far.
+    double cpu_seconds() const { return cpu_now() - start_cpu_; }
+
+    // The number of fills for_each_fill(node, total) visits (one per arrangement class), counted
+    // without building them: the last two rows are counted in closed form. Stops counting once the
+    // count reaches `enough`.
+    double count_fills(const NodeKey& node, unsigned total, double enough) {
+        std::vector<unsigned> rows(row_count_);
+        unpack(node, rows.data());
+        const std::size_t length = length_of(rows);
+        if (length == 0) return total == 0 ? 1 : 0;
+        std::vector<unsigned> capacity(length + 1, 0);
+        for (std::size_t i = length; i-- > 0;) capacity[i] = capacity[i + 1] + rows[i];
+        double count = 0;
+        auto walk = [&](auto& self, std::size_t i, unsigned remaining, unsigned previous) -> void {
+            const bool same_group = i > 0 && rows[i] == rows[i - 1];
+            unsigned highest = std::min(rows[i], remaining);
+            if (same_group) highest = std::min(highest, previous);
+            unsigned lowest = remaining > capacity[i + 1] ? remaining - capacity[i + 1] : 0;
+            if (i + 1 == length) {
+                if (lowest <= highest) count += 1;
+                return;
+            }
+            if (i + 2 == length) {
+                // The last row takes what is left, which the lowest value already keeps within its
+                // total; within a group it must not exceed this row's value.
+                if (rows[i + 1] == rows[i]) lowest = std::max(lowest, (remaining + 1) / 2);
+                if (lowest <= highest) count += highest - lowest + 1;
+                return;
+            }
+            for (unsigned v = lowest; v <= highest && count < enough; ++v) {
+                if (++work_ > next_time_check_) check_time();
+                self(self, i + 1, remaining - v, v);
+            }
+        };
+        walk(walk, 0, total, 0);
+        return count;
+    }
+
+    // The futures the last stage will build below `node` (at stage k), counted without building
+    // them: their values are added to planned_future_values_.
+    void plan_futures(std::size_t k, const NodeKey& node) {
+        for_each_fill(node, columns_[k], [&](const NodeKey& child, double, double) { push(pending_, child); });
+        std::vector<NodeKey> children;
+        children.swap(pending_);
+        for (const NodeKey& child : children) future_size(k + 1, child);
+        children.clear();
+        children.swap(pending_);  // pending_ keeps its capacity, which stays counted
+    }
+
+    // The number of values futures_of(k, node) will hold before equal values merge (memoised).
+    double future_size(std::size_t k, const NodeKey& node) {
+        auto& memo = future_sizes_[k - meeting_];
+        if (auto found = memo.find(node); found != memo.end()) return found->second.values;
+        // The values built (before equal ones merge, the measure of the work), and a lower bound
+        // on those kept: all of a list over the last two columns (equal values are rare there), and
+        // at least the longest of the lists a combined list is made of (one of them shifted).
+        double size = 0, kept = 0;
+        if (k + 2 == columns_.size()) {
+            size = kept = count_fills(node, columns_[k], std::numeric_limits<double>::infinity());
+        } else {
+            std::vector<NodeKey> children;
+            for_each_fill(node, columns_[k], [&](const NodeKey& child, double, double) { push(children, child); });
+            for (const NodeKey& child : children) {
+                size += future_size(k + 1, child);
+                kept = std::max(kept, future_sizes_[k + 1 - meeting_].find(child)->second.kept);
+            }
+            release(children);
+        }
+        take(map_node_bytes<std::unordered_map<NodeKey, FutureSize, NodeKeyHash>>());
+        memo.emplace(node, FutureSize{size, kept});
+        planned_future_values_ += size;
+        planned_future_bytes_ += 16 * kept;  // a kept value takes 32 bytes (four doubles); half of it
+        return size;
+    }
+
+    // ---- The forecast (ExactLimits::forecast): refusing at once what cannot finish in time ----
+    //
+    // Every stage is planned before it runs (p_value): its work is counted in units, one per past
+    // and fill of the column (a push of a forward stage, a search of the last stage), and the
+    // futures the last stage needs are counted in values. The forecast adds up what is left:
+    // - the current stage's units left, at its own pace so far: measured in processor time over
+    //   the last doubling of its progress once 2% of it is done (a stage's pace only slows as its
+    //   lists grow, so the rest takes at least that long); before that, at the pace of the last
+    //   forward stage but no slower than 15 ns a unit (small stages cost more per unit than large
+    //   ones, up to 16 times on the bench tables), or 1 ns a unit for the last stage;
+    // - for a forward stage of 100,000 units or more, as many more stages of the same cost as
+    //   forward stages remain (on the bench suite and random tables of its sizes each took 1.2 to
+    //   40 times as long as the one before);
+    // - the futures left to build, at their pace so far (20 ns a value before it is known);
+    // and refuses, with the limit's own message, as soon as that cannot fit in the time left. The
+    // processor time is turned into time on the clock by the share of it the test has had so far.
+    // Each part is a lower estimate, so that a table that would finish is not refused; a table
+    // whose cost only shows late (many stages that grow slowly) is still refused at the limit.
+    void begin_stage(std::size_t k, double units, bool last) {
+        stage_ = k;
+        last_stage_ = last;
+        stage_units_ = units;
+        units_done_ = 0;
+        stage_started_ = cpu_seconds();
+        stage_futures_seconds_ = futures_seconds_;
+        window_units_ = 0;
+        window_seconds_ = 0;
+        check_forecast();
+    }
+
+    void end_stage() {
+        const double seconds = stage_seconds();
+        if (!last_stage_ && seconds >= 0.005 && stage_units_ > 0) forward_rate_ = seconds / stage_units_;
+    }
+
+    // Processor seconds of the current stage's own work (the futures it built taken out).
+    double stage_seconds() const {
+        return cpu_seconds() - stage_started_ - (futures_seconds_ - stage_futures_seconds_);
+    }
+
+    void check_forecast() {
+        if (!limits_.forecast) return;
+        const double wall = elapsed(), cpu = cpu_seconds(), in_stage = stage_seconds();
+        // The pace over the last doubling of the stage's progress.
+        if (units_done_ >= 2 * window_units_) {
+            window_units_ = units_done_;
+            window_seconds_ = in_stage;
+        }
+        double rate = last_stage_ ? settle_rate : std::min(forward_rate_, early_forward_rate);
+        if (units_done_ >= 0.02 * stage_units_ && in_stage >= 0.01) {
+            rate = in_stage / units_done_;
+            const double window = units_done_ - window_units_;
+            if (window >= 0.01 * stage_units_ && in_stage - window_seconds_ >= 0.005)
+                rate = std::max(rate, (in_stage - window_seconds_) / window);
+        }
+        double seconds_left = std::max(0.0, stage_units_ - units_done_) * rate;
+        if (!last_stage_ && stage_units_ >= 1e5 && stage_ + 2 < meeting_)
+            seconds_left += static_cast<double>(meeting_ - 2 - stage_) * stage_units_ * rate;
+        const double futures_left = std::max(0.0, planned_future_values_ - built_future_values_);
+        const double future_rate =
+            built_future_values_ >= 1e5 ? futures_seconds_ / built_future_values_ : default_future_rate;
+        seconds_left += futures_left * future_rate;
+        const double slowdown = cpu >= 0.02 ? std::max(1.0, wall / cpu) : 1.0;
+        if (wall + seconds_left * slowdown > limits_.max_seconds) fail("time");
+        // The futures still to build keep at least half their bytes once equal values merge.
+        if (static_cast<double>(memory_) + std::max(0.0, planned_future_bytes_ - built_future_bytes_) >
+            static_cast<double>(limits_.max_memory_bytes))
+            fail("memory");
+    }
+    static constexpr double early_forward_rate = 15e-9, settle_rate = 1e-9, default_future_rate = 20e-9;
+
     void check_time() {
         next_time_check_ = work_ + (1u << 12);  // the clock is cheap; check often so limits hold closely
         const double seconds = std::chrono::duration<double>(Clock::now() - start_).count();
         if (seconds > limits_.max_seconds) fail("time");
+        check_forecast();
     }
 
     [[noreturn]] void fail(const char* resource) const { throw limit_error(limits_, resource); }
@@ -605,6 +805,7 @@ private:
 
     ExactLimits limits_;
     Clock::time_point start_;
+    double start_cpu_;
     std::vector<double> log_factorial_;
     std::vector<unsigned> columns_;
     std::vector<double> log_column_factorials_from_;
@@ -613,11 +814,26 @@ private:
     double log_k_ = 0, threshold_ = 0;
     std::size_t meeting_ = 0;  // the first stage whose nodes keep all their futures
     std::vector<std::unordered_map<NodeKey, FutureList, NodeKeyHash>> futures_;
+    struct FutureSize {
+        double values, kept;
+    };
+    std::vector<std::unordered_map<NodeKey, FutureSize, NodeKeyHash>> future_sizes_;
     std::vector<unsigned> rows_, capacity_, fill_, child_;
     std::vector<NodeKey> pending_;
     std::size_t memory_ = 0;  // bytes of working memory held, as counted by take and give_back
     unsigned long long work_ = 0, next_time_check_ = 1u << 12;
     LogSum result_;
+    // Progress of the current stage, for the forecast.
+    double units_done_ = 0, stage_units_ = 0;
+    std::size_t futures_depth_ = 0;
+    double futures_seconds_ = 0;
+    double stage_started_ = 0, stage_futures_seconds_ = 0;
+    double forward_rate_ = early_forward_rate;
+    double planned_future_values_ = 0, built_future_values_ = 0;
+    double planned_future_bytes_ = 0, built_future_bytes_ = 0;
+    std::size_t stage_ = 0;
+    bool last_stage_ = false;
+    double window_units_ = 0, window_seconds_ = 0;
 };
 
 }  // namespace

@@ -10,7 +10,7 @@ namespace assoc::calc {
 
 // The key must hold every field the answer depends on: a field added to these structs changes
 // their size and stops the build here until the key below takes it in too.
-static_assert(sizeof(ExactLimits) == 16, "CacheKey::add(const ExactLimits&) must key every field of ExactLimits");
+static_assert(sizeof(ExactLimits) == 24, "CacheKey::add(const ExactLimits&) must key every field of ExactLimits");
 static_assert(sizeof(SimulationOptions) == 32,
               "CacheKey::add(const SimulationOptions&) must key every field of SimulationOptions");
 
@@ -49,7 +49,9 @@ CacheKey& CacheKey::add(const Matrix& values) {
 CacheKey& CacheKey::add(const CountTable& table) { return add(table.counts()); }
 
 CacheKey& CacheKey::add(const ExactLimits& limits) {
-    return add(limits.max_seconds).add(static_cast<std::uint64_t>(limits.max_memory_bytes));
+    return add(limits.max_seconds)
+        .add(static_cast<std::uint64_t>(limits.max_memory_bytes))
+        .add(static_cast<std::uint64_t>(limits.forecast));
 }
 
 CacheKey& CacheKey::add(const SimulationOptions& options) {

@@ -62,7 +62,8 @@ TEST(RememberedExactTest, ComputesAgainWhenOneLimitChanges) {
     remembered_exact_p_value(cache, three_by_three(), Side::two_sided, limits);
     remembered_exact_p_value(cache, three_by_three(), Side::two_sided, ExactLimits{4.0, 400'000'000});
     remembered_exact_p_value(cache, three_by_three(), Side::two_sided, ExactLimits{5.0, 300'000'000});
-    EXPECT_EQ(cache.statistics().misses, 3u);
+    remembered_exact_p_value(cache, three_by_three(), Side::two_sided, ExactLimits{5.0, 400'000'000, false});
+    EXPECT_EQ(cache.statistics().misses, 4u);
     EXPECT_EQ(cache.statistics().hits, 0u);
 }
 

@@ -25,6 +25,10 @@ struct ExactLimits {
     // their hash-map nodes, its temporaries): the process's peak resident memory grows by about
     // as much as the count, or somewhat less.
     std::size_t max_memory_bytes = 1'000'000'000;  // 1 GB
+    // Refuse at once a table that cannot finish within the limits: the r×c test counts the work of
+    // each of its stages before doing it and measures its pace as it goes, and stops as soon as the
+    // rest cannot fit (see freeman_halton.cpp). Off, it runs until a limit is reached (benches).
+    bool forecast = true;
 };
 
 // The exact p-value. Needs whole counts. Throws assoc::Error for weighted counts,
