@@ -209,6 +209,7 @@ public:
                 std::vector<Past>* pasts;
                 std::size_t first, end;
                 double units;
+                std::size_t fills_from, fills_to;  // its fills in planned_fills_ (last stage), or none
             };
             std::vector<Task> tasks;
             reserve_for(tasks, stage.size());
@@ -224,8 +225,18 @@ public:
                 // Fills past twice what the forecast allows need not be counted: the stage is refused.
                 const double enough = 2 * limits_.max_seconds / early_forward_rate / static_cast<double>(end - first) + 1;
                 const double fills = count_fills(node, columns_[k], enough);
-                if (last) plan_futures(k, node);
-                tasks.push_back(Task{&node, &pasts, first, end, static_cast<double>(end - first) * fills});
+                // The last stage's fills are enumerated here, once, within a share of the memory,
+                // so that the futures they lead to are counted before any is built.
+                const std::size_t fills_from = planned_fills_.size();
+                std::size_t fills_to = fills_from;
+                if (last && (static_cast<double>(fills_from) + fills) * sizeof(Fill) <=
+                                static_cast<double>(limits_.max_memory_bytes) / 8) {
+                    collect_fills(k, node, planned_fills_);
+                    fills_to = planned_fills_.size();
+                    for (std::size_t i = fills_from; i < fills_to; ++i) future_size(k + 1, planned_fills_[i].child);
+                }
+                tasks.push_back(Task{&node, &pasts, first, end, static_cast<double>(end - first) * fills, fills_from,
+                                     fills_to});
                 units += tasks.back().units;
             }
             begin_stage(k, units, last);
@@ -234,7 +245,7 @@ public:
             for (const Task& task : tasks) {
                 std::vector<Past>& pasts = *task.pasts;
                 if (last) {
-                    settle_before_meeting(k, *task.node, pasts, task.first, task.end);
+                    settle_before_meeting(k, *task.node, pasts, task.first, task.end, task.fills_from, task.fills_to);
                 } else {
                     const std::size_t first = task.first, end = task.end;
                     for_each_fill(*task.node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
@@ -259,6 +270,7 @@ public:
             }
             end_stage();
             release(tasks);
+            release(planned_fills_);
             give_back(stage.size() * node_bytes);
             stage.swap(next);
         }
@@ -298,27 +310,32 @@ private:
 
     // A node three columns from the end: each fill of its column leads to a node whose futures
     // are a sorted list, so every past is settled there by binary search, without storing it again.
-    // The pasts in [cheap_first, cheap_end) are those the cheap bounds did not settle.
+    // The pasts in [cheap_first, cheap_end) are those the cheap bounds did not settle; the node's
+    // fills are planned_fills_[fills_from, fills_to) when the plan kept them, else enumerated here.
     void settle_before_meeting(std::size_t k, const NodeKey& node, const std::vector<Past>& pasts,
-                               std::size_t cheap_first, std::size_t cheap_end) {
+                               std::size_t cheap_first, std::size_t cheap_end, std::size_t fills_from,
+                               std::size_t fills_to) {
         const double log_total = log_total_future(k, node);
+        if (fills_from == fills_to) {
+            scratch_fills_.clear();  // it keeps its capacity, which stays counted
+            collect_fills(k, node, scratch_fills_);
+        }
+        const std::vector<Fill>& fills = fills_from == fills_to ? scratch_fills_ : planned_fills_;
+        if (fills_from == fills_to) fills_to = fills.size(), fills_from = 0;
         struct Child {
             const FutureList* futures;
             double fill_value;
             double log_arrangements;
         };
         std::vector<Child> children;
-        for_each_fill(node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
-            push(children, Child{nullptr, fill_value, std::log(arrangements)});
-            push(pending_, child);  // pending_ keeps its capacity, which stays counted
-        });
+        reserve_for(children, fills_to - fills_from);
         Bounds bounds{minus_infinity, std::numeric_limits<double>::infinity()};
-        for (std::size_t c = 0; c < children.size(); ++c) {
-            children[c].futures = &futures_of(k + 1, pending_[c]);
-            bounds.largest = std::max(bounds.largest, children[c].fill_value + children[c].futures->log_values.back());
-            bounds.smallest = std::min(bounds.smallest, children[c].fill_value + children[c].futures->log_values.front());
+        for (std::size_t i = fills_from; i < fills_to; ++i) {
+            const Fill& fill = fills[i];
+            children.push_back(Child{&futures_of(k + 1, fill.child), fill.value, fill.log_arrangements});
+            bounds.largest = std::max(bounds.largest, fill.value + children.back().futures->log_values.back());
+            bounds.smallest = std::min(bounds.smallest, fill.value + children.back().futures->log_values.front());
         }
-        pending_.clear();
         const auto [first, end] = split_by_bounds(pasts, cheap_first, cheap_end, bounds, log_total);
         if (first == end) {
             release(children);
@@ -681,15 +698,18 @@ private:
         return count;
     }
 
-    // The futures the last stage will build below `node` (at stage k), counted without building
-    // them: their values are added to planned_future_values_.
-    void plan_futures(std::size_t k, const NodeKey& node) {
-        for_each_fill(node, columns_[k], [&](const NodeKey& child, double, double) { push(pending_, child); });
-        std::vector<NodeKey> children;
-        children.swap(pending_);
-        for (const NodeKey& child : children) future_size(k + 1, child);
-        children.clear();
-        children.swap(pending_);  // pending_ keeps its capacity, which stays counted
+    // A fill of a column: the node it leads to, log ∏ 1/x_i!, and the log of its arrangements.
+    struct Fill {
+        NodeKey child;
+        double value;
+        double log_arrangements;
+    };
+
+    // Appends the fills of stage k's column at `node` to `fills`.
+    void collect_fills(std::size_t k, const NodeKey& node, std::vector<Fill>& fills) {
+        for_each_fill(node, columns_[k], [&](const NodeKey& child, double value, double arrangements) {
+            push(fills, Fill{child, value, std::log(arrangements)});
+        });
     }
 
     // The number of values futures_of(k, node) will hold before equal values merge (memoised).
@@ -819,7 +839,7 @@ private:
     };
     std::vector<std::unordered_map<NodeKey, FutureSize, NodeKeyHash>> future_sizes_;
     std::vector<unsigned> rows_, capacity_, fill_, child_;
-    std::vector<NodeKey> pending_;
+    std::vector<Fill> planned_fills_, scratch_fills_;
     std::size_t memory_ = 0;  // bytes of working memory held, as counted by take and give_back
     unsigned long long work_ = 0, next_time_check_ = 1u << 12;
     LogSum result_;
