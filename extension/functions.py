@@ -18,7 +18,10 @@ adapter for you, with the C++ types that the argument and result kinds give:
   optional_range  any                          const assoc::CellGrid&   (omitted: an empty grid)
   number          any                          double                   (omitted: `default`, or an error)
   option          any                          the C++ type of its Options (omitted: `omitted`, else the first word)
-  word            any                          const assoc::Cell&       (omitted: a blank Cell)
+  word            any                          const assoc::Cell&       (omitted: a blank Cell; a function with a word
+                                                                        argument is not tried by ASSOC.CHECK)
+  value           any                          const assoc::Cell&       an optional label or number (omitted: a blank
+                                                                        Cell, which is what ASSOC.CHECK tries)
 
   result kind     adapter returns              the cell shows
   number          double                       the number
@@ -77,7 +80,7 @@ class Options:
 @dataclass
 class Argument:
     name: str
-    kind: str          # table | range | labels | optional_range | number | option | word (see the module docstring)
+    kind: str          # table | range | labels | optional_range | number | option | word | value (module docstring)
     description: str   # for the wizard; option words are appended automatically
     default: Optional[float] = None  # for number arguments: the value when omitted
     options: Optional[Options] = None  # for option arguments
@@ -130,6 +133,11 @@ MEASURES = Options("measure", "measure", "Measure", [
     Word("phi", "phi, signed (2×2 tables only)", "phi"),
     Word("contingency", "Pearson's contingency coefficient C", "contingency"),
     Word("w", "Cohen's w, as power calculations use it", "w"),
+    # Measures for ordered rows and columns (signed, from −1 to 1).
+    Word("gamma", "Goodman and Kruskal's gamma, from −1 to 1, for ordered rows and columns: the excess of pairs "
+                  "ranked alike over pairs ranked oppositely, ties left out", "gamma"),
+    Word("taub", "Kendall's tau-b, from −1 to 1, for ordered rows and columns: as gamma, with ties counted against "
+                 "the association", "tau_b"),
 ], declare=True)
 
 SIDES = Options("side", "side", "assoc::Side", [
@@ -141,10 +149,12 @@ SIDES = Options("side", "side", "assoc::Side", [
          "assoc::Side::upper"),
 ], include="assoc/exact_test.hpp")
 
-SIMULATION_METHODS = Options("simulation_method", "method", "assoc::Method", [
-    Word("pearson", "Pearson's X²", "assoc::Method::pearson"),
-    Word("g", "the likelihood-ratio statistic G²", "assoc::Method::likelihood_ratio"),
-], include="assoc/statistics.hpp", refused={
+SIMULATION_METHODS = Options("simulation_method", "method", "SimulationMethod", [
+    Word("pearson", "Pearson's X²", "pearson"),
+    Word("g", "the likelihood-ratio statistic G²", "g"),
+    Word("exact", "the tables' probability: random tables no more probable than this one count, as the exact test "
+                  "orders them, so the p-value estimates ASSOC.EXACT's (with the same margin for ties)", "exact"),
+], declare=True, refused={
     "yates": "Yates' correction adjusts the chi-squared approximation, and a simulated p-value needs no "
              "approximation; use \"pearson\" or \"g\"",
 })
@@ -157,7 +167,8 @@ ADJUSTMENTS = Options("adjustment", "adjustment", "assoc::PAdjustment", [
 ], include="assoc/p_value_adjustment.hpp")
 
 LEVEL_ORDERS = Options("level_order", "order", "assoc::LevelOrder", [
-    Word("sorted", "numbers ascending, then texts alphabetically", "assoc::LevelOrder::sorted"),
+    Word("sorted", "numbers ascending, then texts in alphabetical order as the office's language reads it "
+                   "(case and accents only break ties)", "assoc::LevelOrder::sorted"),
     Word("first", "in the order in which the labels first appear", "assoc::LevelOrder::first_seen"),
 ], include="assoc/levels.hpp")
 
@@ -258,8 +269,16 @@ FUNCTIONS = [
         "ASSOC.STRENGTH", "strength",
         "The strength of association on a scale that does not grow with the sample size.",
         [TABLE, Argument("measure", "option", "Optional. The measure of strength.", options=MEASURES)],
-        "number", "the measure; all are computed from the uncorrected Pearson X²",
-        [], '=ASSOC.STRENGTH(A1:D3; "cramer-corrected")'),
+        "number", "the measure; \"cramer\" to \"w\" are computed from the uncorrected Pearson X², \"gamma\" and "
+                  "\"taub\" from the pairs of counts that the order of the rows and the columns ranks alike or "
+                  "oppositely",
+        ["Cramér's V (corrected or not), phi, C and w ignore any order of the categories. For ordered rows and columns "
+         "(tenure bands by a satisfaction scale), \"gamma\" and \"taub\" say in which direction and how strongly the "
+         "order of the rows goes with that of the columns: positive when later rows go with later columns. Gamma "
+         "leaves out pairs tied on either variable, so it reaches ±1 as soon as one kind of pair is missing and lies "
+         "further from 0 than tau-b; tau-b counts the ties against the association and reaches ±1 only for a square table "
+         "with every count on a diagonal. ASSOC.ORDINAL tests such an association."],
+        '=ASSOC.STRENGTH(A1:D3; "cramer-corrected")'),
     Function(
         "ASSOC.EXACT", "exact",
         "The exact p-value of the test of independence, conditional on the row and column totals (Fisher's "
@@ -267,10 +286,18 @@ FUNCTIONS = [
         [TABLE, Argument("side", "option", "Optional. Which tables count as at least as extreme as this one.",
                          options=SIDES)],
         "number", "the p-value, between 0 and 1",
-        ["Trustworthy where the chi-squared approximation is doubtful (small expected counts). For larger "
+        ["Two-sided, the p-value adds up the probabilities of all tables with the same totals that are no more "
+         "probable than the observed one. A table up to 1e-7 (relative) more probable than the observed one "
+         "counts as no more probable: tables that are equally probable in exact arithmetic come out a few units "
+         "of the 16th digit apart in floating point, and without a margin they would be counted or left out by "
+         "rounding. Tools differ here: some use the same relative margin, some a far smaller one (1e-14), and "
+         "some an absolute margin, which treats every table as tied once probabilities are tiny; "
+         "p-values then differ by the probability of the near-ties.",
+         "Trustworthy where the chi-squared approximation is doubtful (small expected counts). For larger "
          "tables with many counts the number of possible tables grows quickly: the calculation stops with an "
-         "error after about 5 seconds, or when it would need more than about 400 MB of memory; ASSOC.SIMULATE "
-         "then gives a Monte Carlo p-value instead. ASSOC.CHECK with \"exact\" says why it fails.",
+         "error after about 5 seconds, or when it would need more than about 400 MB of memory; "
+         "ASSOC.SIMULATE(range; ; ; \"exact\") then estimates the same p-value by simulation. ASSOC.CHECK with "
+         "\"exact\" says why it fails.",
          "The calculation counts its work before doing it and watches its pace, so a table it cannot finish "
          "within those limits is usually refused at once rather than after 5 seconds. While LibreOffice runs, "
          "the answer (or the refusal) for a table is remembered: recalculating or reopening a sheet does not "
@@ -292,6 +319,9 @@ FUNCTIONS = [
         ["The p-value is (1 + k) / (trials + 1), k the number of random tables at least as extreme, so it is "
          "never 0. The standard error √(p (1 − p) / trials) shrinks with more trials. Tables too large to "
          "simulate within a few seconds are refused with an error that says how many trials would fit.",
+         "With \"pearson\" or \"g\" it estimates the exact p-value of that statistic, which can differ from "
+         "ASSOC.EXACT's: the exact test orders tables by their probability. With \"exact\" it orders them the same "
+         "way, so it estimates ASSOC.EXACT's p-value where the exact test is out of reach.",
          "Since the same counts, trials, seed and method always give the same result, it is remembered while "
          "LibreOffice runs: recalculating or reopening a sheet does not simulate an unchanged table again."],
         "=ASSOC.SIMULATE(A1:D4; 100000; 7)"),
@@ -381,7 +411,8 @@ FUNCTIONS = [
          "A record with a blank label is skipped. Labels are compared exactly: \"Sales\", \"sales\" and "
          "\"Sales \" are three labels (ASSOC.CHECK with \"counts\" points out labels that differ only in "
          "capitals), and the number 5 and the text \"5\" are two. A label whose records are all skipped gets a "
-         "row (or column) of zeros, which the other functions set aside."],
+         "row (or column) of zeros, which the other functions set aside.",
+         "The order of the rows and columns is that of ASSOC.LEVELS (see there for how texts are sorted)."],
         "=ASSOC.COUNTS(B2:B200; C2:C200)"),
     Function(
         "ASSOC.LEVELS", "levels",
@@ -390,7 +421,17 @@ FUNCTIONS = [
         [Argument("labels", "labels", "One row or column of labels, one per record."),
          Argument("order", "option", "Optional. The order of the labels.", options=LEVEL_ORDERS)],
         "cells", "a column of labels (numbers stay numbers)",
-        ["Use TRANSPOSE(ASSOC.LEVELS(…)) for a row."],
+        ["Use TRANSPOSE(ASSOC.LEVELS(…)) for a row.",
+         "Sorted texts follow the Unicode Collation Algorithm through LibreOffice's own collator for the locale "
+         "setting (Tools ▸ Options ▸ Language Settings ▸ Languages): letters first, without regard to case or "
+         "accents, so \"Éclair\" comes between \"apple\" and \"zeta\"; then accents (\"resume\" before "
+         "\"résumé\"), then case (lower case first), and texts still equal by their Unicode code points, so "
+         "the order never depends on the order of the records. Latin letters come before Greek, Cyrillic and "
+         "other scripts, and a language's own rules apply where it has them (in Swedish, Ä after Z). Many "
+         "programs instead sort texts by their character codes, which puts lower case after all capitals and "
+         "accented letters after Z; the office's own sort can also differ slightly, since by default it treats "
+         "texts that differ only in case as equal. The order changes only how rows and columns are listed, "
+         "never a count or a test."],
         "=ASSOC.LEVELS(B2:B200)"),
     Function(
         "ASSOC.STRATA", "strata",
@@ -404,7 +445,14 @@ FUNCTIONS = [
         ["The common odds ratio compares the odds of column 1 in row 1 with those in row 2, the same in every "
          "stratum. Strata without counts in both rows and both columns add nothing and are left out "
          "(ASSOC.CHECK with \"strata\" names them). ASSOC.HOMOGENEITY tests whether one common odds ratio fits "
-         "all strata."],
+         "all strata.",
+         "The continuity correction never exceeds the difference it corrects: the statistic is "
+         "(|D| − min(½, |D|))² / V, with D the sum over strata of observed minus expected top-left counts and V "
+         "its variance, so when |D| is below ½ the statistic is 0 and the p-value 1. The correction allows for "
+         "counts being whole; a correction larger than the difference would turn a difference smaller than "
+         "half a count into evidence. Yates' and McNemar's corrections in Assoc follow the same rule. Other "
+         "tools differ only when |D| < ½: some then drop the correction (statistic D² / V), some subtract ½ "
+         "regardless ((½ − |D|)² / V)."],
         "=ASSOC.STRATA(A1:E7)"),
     Function(
         "ASSOC.HOMOGENEITY", "homogeneity",
@@ -425,7 +473,12 @@ FUNCTIONS = [
         "row", "one row: the p-value, the statistic, the degrees of freedom; a plain entry shows the p-value",
         ["With \"exact\" the statistic is the smaller of the two counts of changes and the degrees of freedom "
          "are 0 (a binomial test has none). Rows and columns of zeros are kept, since row i and column i must "
-         "stay the same category."],
+         "stay the same category.",
+         "Bowker's test adds (n_ij − n_ji)² / (n_ij + n_ji) over the pairs of categories, and a pair in which "
+         "nobody changed either way (n_ij = n_ji = 0) is left out with its degree of freedom: it says nothing "
+         "about symmetry, and its term would be 0 / 0. The degrees of freedom are the number of pairs with "
+         "changes, at most k(k − 1)/2. Other tools give no result for such a table, or keep k(k − 1)/2 degrees "
+         "of freedom, which makes the p-value larger (the test more cautious) than the changes justify."],
         "=ASSOC.PAIRED(A1:C3)"),
     Function(
         "ASSOC.TREND", "trend",
@@ -492,6 +545,172 @@ FUNCTIONS = [
          "ASSOC.SIMULATE estimates the p-value). Like ASSOC.EXACT's, the exact line is remembered for an "
          "unchanged table while LibreOffice runs. The cells "
          "that stand out are the (at most 3) cells with the largest adjusted residuals beyond ±2, named by "
-         "their labels."],
+         "their labels.",
+         "The 95% interval of Cramér's V inverts the noncentral chi-squared distribution of X²: the limits "
+         "λ_L and λ_U of its noncentrality are those with P(X² ≥ observed | λ) = 2.5% and 97.5%, and each "
+         "becomes V = √(λ / (n (min(r, c) − 1))), at most 1; a limit is 0 when even λ = 0 makes the observed "
+         "X² likely enough. λ = n·w² is the same model as ASSOC.POWER's, so the interval is one for the "
+         "population V. Published methods differ: some use √((λ + df) / (n (min(r, c) − 1))), which describes "
+         "the expected sample V instead and gives higher limits. The interval is rough for small or sparse "
+         "tables, and it can lie below the sample V, which overstates the population V on average."],
         "=ASSOC.REPORT(A1:D3; 0.05)"),
 ]
+
+
+# ---------------------------------------------------------------------------------------------
+# The figures a memo needs: rates with intervals, a difference of rates, which groups differ from
+# which, and one risk ratio across strata. Placed before ASSOC.CHECK in the wizard and the docs.
+
+PAIR_ADJUSTMENTS = Options("pair_adjustment", "adjustment", "assoc::PAdjustment", [
+    Word("holm", "Holm's step-down adjustment: the chance of any false finding among the pairs stays at the "
+                 "level, with more power than Bonferroni", "assoc::PAdjustment::holm"),
+    Word("bonferroni", "each p-value times the number of pairs, at most 1", "assoc::PAdjustment::bonferroni"),
+    Word("none", "no adjustment: each pair on its own, so with many pairs some look significant by chance",
+         "assoc::PAdjustment::none"),
+], include="assoc/p_value_adjustment.hpp")
+
+PAIRWISE_METHODS = Options("pairwise_method", "method", "assoc::PairwiseMethod", [
+    Word("pearson", "Pearson's X² without correction on each pair's table", "assoc::PairwiseMethod::pearson"),
+    Word("exact", "the exact test on each pair's table (whole counts only; all pairs together get about 5 seconds "
+                  "and 400 MB of working memory)", "assoc::PairwiseMethod::exact"),
+], include="assoc/pairwise_comparisons.hpp")
+
+RATE_TABLE = Argument(
+    "table", "range",
+    "A range of counts, headers allowed: one row per group, column 1 the outcome of interest (for example "
+    "promoted), the other columns the rest. Blank cells count as 0.")
+
+MEMO_FUNCTIONS = [
+    Function(
+        "ASSOC.RATES", "rates",
+        "The rate of the outcome in each row of a table (column 1 over the row total), with its Wilson score "
+        "confidence interval.",
+        [RATE_TABLE, CONFIDENCE],
+        "cells", "one row per row of the table body: the row total n, the rate, the lower and the upper end of its "
+                 "interval; a row of zeros stays empty; enter it over 4 columns and one row per group",
+        ["The Wilson interval suits small groups and rates near 0 or 1 and always lies between 0 and 1: a rate of 0 "
+         "has the lower end 0, a rate of 1 the upper end 1, and no correction is needed. A table of one row is "
+         "allowed. ASSOC.CHECK with \"rates\" names the rows that have no counts.",
+         "Intervals that overlap do not show that two groups do not differ: ASSOC.RATEDIFF and ASSOC.PAIRWISE "
+         "compare groups."],
+        "=ASSOC.RATES(A1:C6)"),
+    Function(
+        "ASSOC.RATEDIFF", "ratediff",
+        "The difference between the rates of the two rows of a 2×2 table (row 1 minus row 2, column 1 the "
+        "outcome), with Newcombe's hybrid score confidence interval.",
+        [Argument("table", "range", "A 2×2 range of counts, headers allowed: rows are the two groups, column 1 the "
+                                    "outcome of interest (for example promoted), column 2 the rest."),
+         CONFIDENCE],
+        "row", "one row: the difference, the lower and the upper end of its interval, as shares (0.109 is 10.9 "
+               "percentage points); a plain entry shows the difference",
+        ["Newcombe's method (1998, method 10) combines the Wilson intervals of the two rates; it stays between −1 "
+         "and 1 and needs no correction when a rate is 0 or 1. A column of zeros is allowed (both rates 0, or "
+         "both 1); a row of zeros is not, since that group has no rate."],
+        "=ASSOC.RATEDIFF(A1:C3)"),
+    Function(
+        "ASSOC.PAIRWISE", "pairwise",
+        "Which groups differ from which: every pair of rows of a table tested on its columns, with the p-values "
+        "adjusted for the number of pairs.",
+        [TABLE,
+         Argument("adjust", "option", "Optional. How the p-values allow for testing many pairs.",
+                  options=PAIR_ADJUSTMENTS),
+         Argument("method", "option", "Optional. The test of each pair.", options=PAIRWISE_METHODS)],
+        "cells", "one row per pair of rows with counts, in the order (1,2), (1,3), …, (2,3), …: the first row's "
+                 "label, the second row's label, the p-value of the pair and the adjusted p-value; enter it over 4 "
+                 "columns and r(r − 1)/2 rows for r groups (10 rows for 5 groups)",
+        ["Read the adjusted p-value: with many pairs some unadjusted p-values are small by chance alone. A "
+         "significant difference between two groups is not proof of discrimination, nor of what causes it.",
+         "Each pair is tested on its own table of 2 rows (columns empty in both rows left out); a pair whose counts "
+         "all fall in one column gets p = 1. Rows without a label are named \"row k\"; rows of zeros take no part. "
+         "At most 100 rows. ASSOC.CHECK with \"pairwise\" names pairs whose chi-squared p-value is doubtful.",
+         "Entered in a single cell it shows the first row's label, as an array's top-left value. The smallest "
+         "adjusted p-value: `=MIN(INDEX(ASSOC.PAIRWISE(A1:C6);0;4))`."],
+        "=ASSOC.PAIRWISE(A1:C6)"),
+    Function(
+        "ASSOC.STRATARISK", "stratarisk",
+        "The Mantel–Haenszel common risk ratio across strata (for example Design's promotion rate over "
+        "Assembly's, office by office), with the Greenland–Robins confidence interval.",
+        [STRATA_RANGE, CONFIDENCE],
+        "row", "one row: the common risk ratio, the lower and the upper end of its interval; a plain entry shows "
+               "the ratio",
+        ["In each stratum row 1 is the group whose rate is on top, column 1 the outcome. A stratum with an empty "
+         "row, or with nobody in column 1, adds nothing and is left out (ASSOC.CHECK with \"stratarisk\" names "
+         "it); a zero cell elsewhere needs no correction. For one stratum without a zero cell the ratio and its "
+         "interval are those of ASSOC.RISKRATIO.",
+         "Beside ASSOC.IMPACT: a ratio below 0.8 (or above 1.25, which puts row 2's group below four-fifths of row "
+         "1's) is the four-fifths screen applied within strata. It is a screen, not a test; follow applicable law "
+         "and policy and seek qualified advice."],
+        "=ASSOC.STRATARISK(A1:E5)"),
+]
+
+_BEFORE_CHECK = next(i for i, f in enumerate(FUNCTIONS) if f.name == "ASSOC.CHECK")
+FUNCTIONS[_BEFORE_CHECK:_BEFORE_CHECK] = MEMO_FUNCTIONS
+
+
+# ---------------------------------------------------------------------------------------------
+# Ordered tables, association within r×c strata, repeated yes/no answers (issue 13). Placed before
+# ASSOC.CHECK, after the memo figures.
+
+ORDERED_FUNCTIONS = [
+    Function(
+        "ASSOC.ORDINAL", "ordinal",
+        "The linear-by-linear association test for a table whose rows and columns are both ordered (tenure band "
+        "by satisfaction): does a later row go with a later column? Far more powerful than the chi-squared test "
+        "when the association follows the order.",
+        [TABLE,
+         Argument("row_scores", "optional_range",
+                  "Optional. One number per row of the table (rows of zeros included), rising or falling with the "
+                  "order of the rows, for example each tenure band's middle in years; 1, 2, 3, … when omitted."),
+         Argument("column_scores", "optional_range",
+                  "Optional. One number per column, rising or falling with the order of the columns; 1, 2, 3, … "
+                  "when omitted.")],
+        "row", "one row: the two-sided p-value, the statistic M² = (n − 1) r², the degrees of freedom (1) and the "
+               "correlation r of the row and column scores; a plain entry shows the p-value",
+        ["r is positive when later rows go with later columns, negative when with earlier ones. The scores set "
+         "the spacing of the categories (equal steps by default); M² does not change when all scores of a side are "
+         "shifted or stretched, only when their spacing changes. Scores that are not numbers, a score too few or "
+         "too many, and scores that do not rise (or fall) steadily are errors.",
+         "For a table of 2 rows, M² = (n − 1)/n × z² of ASSOC.TREND with the same column scores (ASSOC.TREND's "
+         "variance uses n, Mantel's M² uses n − 1), and r has the sign opposite to z's when the row scores rise.",
+         "ASSOC.STRENGTH with \"gamma\" or \"taub\" gives the strength of such an association."],
+        "=ASSOC.ORDINAL(A1:F6)"),
+    Function(
+        "ASSOC.WITHIN", "within",
+        "The generalized Cochran–Mantel–Haenszel test: are rows and columns associated once the strata (offices, "
+        "channels) are held apart? For tables of any size; for 2×2 strata ASSOC.STRATA also gives the common "
+        "odds ratio.",
+        [Argument("strata", "range",
+                  "The strata in the long layout: one row per stratum and row category, with the stratum's label in "
+                  "column 1, the row's label in column 2 and one column of counts per column category after them; a "
+                  "header row naming the categories is optional. A stratum's rows must be together; the strata may "
+                  "come in any order.")],
+        "row", "one row: the p-value, the statistic (chi-squared), the degrees of freedom (rows − 1) × (columns − 1); "
+               "a plain entry shows the p-value",
+        ["It tests general association: any pattern in any stratum, with no order of the categories assumed. A "
+         "stratum may leave out a row label (its counts are then 0). Strata with fewer than 2 rows or 2 columns "
+         "holding counts add nothing and are set aside, and so are rows and columns that hold counts only in such "
+         "strata; ASSOC.CHECK with \"within\" names them. With 2 rows and 2 columns in every stratum the statistic "
+         "is that of ASSOC.STRATA with \"uncorrected\"."],
+        "=ASSOC.WITHIN(A1:F10)"),
+    Function(
+        "ASSOC.REPEATED", "repeated",
+        "Cochran's Q test for the same people answering yes or no on several occasions (survey waves): does the "
+        "share of yes change from one occasion to another? For 2 occasions it is McNemar's test without the "
+        "continuity correction.",
+        [Argument("answers", "range",
+                  "One row per person and one column per occasion, each answer 1 (yes) or 0 (no), or one of two "
+                  "text labels; a header row naming the occasions is optional. A row with a blank answer is set "
+                  "aside."),
+         Argument("yes", "value",
+                  "Optional. The text label that counts as yes, in any case (for example \"Agree\"); when omitted, "
+                  "\"yes\" if it is one of the two labels, otherwise the first label in the range. Q is the same "
+                  "either way.")],
+        "row", "one row: the p-value, Q, the degrees of freedom (occasions − 1); a plain entry shows the p-value",
+        ["People who answered the same on every occasion add nothing to Q. ASSOC.CHECK with \"repeated\" says which "
+         "label was counted as yes and how many people were set aside for a blank answer. Labels are compared "
+         "exactly: \"Yes\" and \"yes\" are two labels, and a third label is an error."],
+        '=ASSOC.REPEATED(B2:D120; "Yes")'),
+]
+
+_BEFORE_CHECK = next(i for i, f in enumerate(FUNCTIONS) if f.name == "ASSOC.CHECK")
+FUNCTIONS[_BEFORE_CHECK:_BEFORE_CHECK] = ORDERED_FUNCTIONS

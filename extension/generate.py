@@ -41,6 +41,7 @@ ARGUMENT_KINDS = {
     "number": ("any", UNO_ANY),
     "option": ("any", UNO_ANY),
     "word": ("any", UNO_ANY),
+    "value": ("any", UNO_ANY),
 }
 REQUIRED_RANGE_KINDS = ("table", "range", "labels")
 RESULT_TYPES = {"number": "double", "row": "std::vector<double>", "array": "assoc::Matrix",
@@ -442,6 +443,17 @@ error; its message lists the accepted words.
 Functions that return several values (arrays, or one row of parts with the headline value first) are
 entered as array formulas (Ctrl+Shift+Enter) over a range of the right size; entered in a single
 cell they show their first value.
+
+Over a range larger than the result, Calc fills the extra cells with #N/A, except in one case: it
+repeats a result of one row down every row of the range, a result of one column across every column,
+and a single value in every cell. So `ASSOC.STATISTIC` entered down three cells of a column shows the
+statistic three times, not its three parts: enter it across a row, or wrap it in `TRANSPOSE`. This is
+how Calc spreads every array result; an add-in cannot change it.
+
+The conventions that decide results where methods differ between tools (the tie margin of the exact
+test, the continuity corrections, Bowker's test with empty pairs, the order of texts, the interval of
+Cramér's V) are stated under each function below and gathered, with their reasons, in the
+[user guide](guide.md#conventions-what-exactly-is-computed).
 
 ## Caution
 

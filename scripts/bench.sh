@@ -5,14 +5,16 @@
 #   2. counting raw records in the core (ns per record, growth with the number of levels);
 #   3. in real Calc: ASSOC.COUNTS against the cost of handing the ranges to any add-in and against
 #      a COUNTIFS grid; first failures, recalculation and loading of a workbook of failing exact
-#      cells; 10,000 ASSOC.PVALUE cells against a trivial add-in and CHITEST.
+#      cells; 10,000 ASSOC.PVALUE cells against a trivial add-in and CHITEST;
+#   4. the functions of ordered tables, r×c strata and repeated answers against 50 ms a call, in the
+#      core and in real Calc.
 # Timings are noisy while other work runs on the machine: the load average is printed with them.
 # Installs what it needs (R for step 1), builds in build/, prints everything to the terminal.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 scripts/install-deps.sh --bench
 cmake -S . -B build -DCMAKE_BUILD_TYPE=RelWithDebInfo
-cmake --build build -j2 --target exact_bench counts_bench exact_refusal_validation
+cmake --build build -j2 --target exact_bench counts_bench ordered_bench exact_refusal_validation
 mkdir -p build/bench
 
 echo "== 1. Exact test: Assoc vs R fisher.test (R timings first, about 6 minutes)"
@@ -30,4 +32,11 @@ if [ -x bench/calc/run.sh ]; then
   echo
   echo "== 3. ASSOC.COUNTS in headless Calc"
   bench/calc/run.sh build
+fi
+
+echo
+echo "== 4. ASSOC.ORDINAL, ASSOC.WITHIN, ASSOC.REPEATED against 50 ms a call (core, then headless Calc)"
+build/bench/ordered_bench
+if [ -x bench/calc/run.sh ]; then
+  /usr/bin/python3 bench/calc/ordered_in_calc.py --build build
 fi

@@ -647,6 +647,173 @@ def percent(share, places):
 
 
 # ---------------------------------------------------------------------------------------------
+# The HR workbook, Departments sheet: promotion rates with intervals, which departments differ, the
+# difference in percentage points and the common risk ratio within offices (the figures of a memo).
+
+# Promotion decisions in 2025 by department: promoted, not promoted. Design and Assembly are the same
+# people as on the Offices sheet (pooled over the offices).
+DEPARTMENT_PROMOTIONS = [("Design", 73, 173),
+               ("Assembly", 46, 199),
+               ("Sales", 41, 77),
+               ("Finance", 10, 44),
+               ("Logistics", 13, 84)]
+
+
+def build_departments_sheet(book):
+    """The Departments sheet; returns it with the rows that departments_notes reads."""
+    s = book.sheet("Departments", [6.6, 2.6, 2.6, 2.6, 2.6, 2.6, 5.8, 0.5, 3.4, 2.2, 2.2, 2.2])
+    s.text("A1", "Larkspur Components Ltd: promotion rates by department, and which departments differ",
+           "Assoc title")
+    s.text("A2", "Invented data of a fictional company. Every result is a live ASSOC.* formula; the grey text "
+                 "beside it is the formula.", "Assoc note")
+    count = len(DEPARTMENT_PROMOTIONS)
+    pair_count = count * (count - 1) // 2
+    last = 5 + count  # the table is A5:C{last}
+    table = f"A5:C{last}"
+
+    def as_rates(cells):
+        # A percent style given together with a formula gets the office's 0.00% as a hard format; applied
+        # afterwards, the style's own 0.0% holds (as on the Selection sheet).
+        s.cells(cells).CellStyle = "Assoc rate"
+
+    heading(s, "A4", "1. Promotion decisions in 2025 by department")
+    header_row(s, "A5", ["Department / Promotion outcome", "Promoted", "Not promoted"])
+    s.put("A6", [[name] for name, _, _ in DEPARTMENT_PROMOTIONS])
+    s.put("B6", [[promoted, not_promoted] for _, promoted, not_promoted in DEPARTMENT_PROMOTIONS], "Assoc count")
+    book.name_range("DepartmentTable", s, table)
+    overall = last + 1
+    s.text(f"A{overall}", "p-value of Pearson X²: do the departments differ at all?", "Assoc label")
+    s.formula(f"B{overall}", f"=ASSOC.PVALUE({table})", "Assoc p-value", show=f"G{overall}")
+    book.name_range("DepartmentPValue", s, f"B{overall}")
+
+    top = overall + 2  # section 2: the rates
+    heading(s, f"A{top}", "2. Each department's promotion rate with its 95% interval (Wilson)")
+    header_row(s, f"A{top + 1}", ["Department", "People (n)", "Promotion rate", "Lower 95% limit",
+                                  "Upper 95% limit", "", "Formula"])
+    first_rate, last_rate = top + 2, top + 1 + count
+    for i in range(count):
+        s.formula(f"A{first_rate + i}", f"=A{6 + i}")
+    s.array(f"B{first_rate}:E{last_rate}", f"=ASSOC.RATES({table})", "Assoc count", show=f"G{first_rate}")
+    as_rates(f"C{first_rate}:E{last_rate}")
+    book.name_range("DepartmentRates", s, f"B{first_rate}:E{last_rate}")
+
+    top = last_rate + 2  # section 3: the pairs
+    heading(s, f"A{top}", f"3. Which departments differ? Every pair, with p-values adjusted for the {pair_count} "
+                          "comparisons (Holm)")
+    header_row(s, f"A{top + 1}", ["First department", "Second department", "p-value", "Adjusted p-value",
+                                  "Differs at 5% after adjustment?", "", "Formula"])
+    first_pair, last_pair = top + 2, top + 1 + pair_count
+    s.array(f"A{first_pair}:D{last_pair}", f"=ASSOC.PAIRWISE({table})", "Assoc p-value", show=f"G{first_pair}")
+    s.cells(f"A{first_pair}:B{last_pair}").CellStyle = "Assoc label"
+    for r in range(first_pair, last_pair + 1):
+        s.formula(f"E{r}", f'=IF(D{r}<0.05;"yes";"no")')
+    book.name_range("DepartmentPairs", s, f"A{first_pair}:D{last_pair}")
+    s.text(f"A{last_pair + 1}", "Smallest adjusted p-value", "Assoc label")
+    s.formula(f"D{last_pair + 1}", f"=MIN(INDEX(ASSOC.PAIRWISE({table});0;4))", "Assoc p-value",
+              show=f"G{last_pair + 1}")
+
+    top = last_pair + 3  # section 4: Design against Assembly
+    heading(s, f"A{top}", "4. Design against Assembly: in percentage points, and within offices")
+    header_row(s, f"A{top + 1}", ["Result", "Estimate", "Lower 95% limit", "Upper 95% limit", "", "", "Formula"])
+    difference, ratio, common, screen = top + 2, top + 3, top + 4, top + 5
+    s.text(f"A{difference}", "Pooled: Design's promotion rate minus Assembly's (Newcombe's interval)", "Assoc label")
+    s.array(f"B{difference}:D{difference}", "=ASSOC.RATEDIFF(A5:C7)", "Assoc ratio", show=f"G{difference}")
+    as_rates(f"B{difference}:D{difference}")
+    s.text(f"A{ratio}", "Pooled: Design's promotion rate over Assembly's (risk ratio)", "Assoc label")
+    s.array(f"B{ratio}:D{ratio}", "=ASSOC.RISKRATIO(A5:C7)", "Assoc ratio", show=f"G{ratio}")
+    s.text(f"A{common}", "Within offices: the same ratio, office by office (Mantel–Haenszel common risk ratio; "
+                         "the offices of the Offices sheet)", "Assoc label")
+    s.array(f"B{common}:D{common}", "=ASSOC.STRATARISK(OfficeStrata)", "Assoc ratio", show=f"G{common}")
+    s.text(f"A{screen}", "Four-fifths screen within offices: the lower rate over the higher", "Assoc label")
+    s.formula(f"B{screen}", f"=MIN(B{common};1/B{common})", "Assoc ratio", show=f"G{screen}")
+    s.formula(f"C{screen}", f'=IF(B{screen}<0.8;"below four-fifths";"not below four-fifths")', "Assoc flag")
+    book.name_range("DesignAssemblyDifference", s, f"B{difference}:D{difference}")
+    book.name_range("DesignAssemblyRiskRatio", s, f"B{ratio}:D{ratio}")
+    book.name_range("CommonRiskRatio", s, f"B{common}:D{common}")
+
+    top = screen + 2  # section 5: the residuals
+    heading(s, f"A{top}", "5. Which cells stand out (adjusted residuals, heat map)")
+    header_row(s, f"A{top + 1}", ["Department", "Promoted", "Not promoted", "", "", "", "Formula"])
+    first_residual, last_residual = top + 2, top + 1 + count
+    for i in range(count):
+        s.formula(f"A{first_residual + i}", f"=A{6 + i}")
+    s.array(f"B{first_residual}:C{last_residual}", f'=ASSOC.RESIDUALS({table}; "adjusted")', "Assoc residual",
+            show=f"G{first_residual}")
+    s.heat_map(f"B{first_residual}:C{last_residual}")
+    s.heat_map_key(f"A{last_residual + 2}")
+
+    # The chart: each rate with its interval as error bars (from the ASSOC.RATES block).
+    heading(s, "I4", "Promotion rate with its 95% interval")
+    header_row(s, "I5", ["Department", "Promotion rate", "Down to lower", "Up to upper"])
+    for i in range(count):
+        r, rate = 6 + i, first_rate + i
+        s.formula(f"I{r}", f"=A{r}")
+        s.formula(f"J{r}", f"=C{rate}", "Assoc ratio")
+        s.formula(f"K{r}", f"=C{rate}-D{rate}", "Assoc ratio")
+        s.formula(f"L{r}", f"=E{rate}-C{rate}", "Assoc ratio")
+    as_rates(f"J6:L{last}")
+    chart = s.chart("DepartmentRates", f"I{first_rate}", (12.5, 8.5), [f"I5:J{last}"],
+                    "Promotion rate by department, with 95% intervals", "Share promoted", percent=True, legend=False)
+    chart.Diagram.YAxis.AutoMax = False
+    chart.Diagram.YAxis.Max = 0.5
+    bars = chart.Diagram.getDataRowProperties(0)
+    bars.ErrorBarStyle = 7  # com.sun.star.chart.ErrorBarStyle.FROM_DATA
+    bars.ErrorIndicator = uno_enum("com.sun.star.chart.ChartErrorIndicatorType", "TOP_AND_BOTTOM")
+    bars.ErrorBarRangeNegative = f"$Departments.$K$6:$K${last}"
+    bars.ErrorBarRangePositive = f"$Departments.$L$6:$L${last}"
+    rows = dict(overall=overall, first_rate=first_rate, first_pair=first_pair, last_pair=last_pair,
+                difference=difference, ratio=ratio, common=common, screen=screen, notes=last_residual + 5)
+    return s, rows
+
+
+def departments_notes(s, rows):
+    value = lambda cell: s.cells(cell).getValue()  # noqa: E731
+    text = lambda cell: s.cells(cell).getString()  # noqa: E731
+    names = [name for name, _, _ in DEPARTMENT_PROMOTIONS]
+    rates = {name: [value(f"{column}{rows['first_rate'] + i}") for column in "CDE"] for i, name in enumerate(names)}
+    pairs = [(text(f"A{r}"), text(f"B{r}"), value(f"C{r}"), value(f"D{r}"))
+             for r in range(rows["first_pair"], rows["last_pair"] + 1)]
+    significant = [f"{a}–{b}" for a, b, _, q in pairs if q < 0.05]
+    chance = [(a, b, p, q) for a, b, p, q in pairs if p < 0.05 <= q]
+    highest, lowest = max(names, key=lambda n: rates[n][0]), min(names, key=lambda n: rates[n][0])
+    widest = max(names, key=lambda n: rates[n][2] - rates[n][1])
+    difference = [value(f"{column}{rows['difference']}") for column in "BCD"]
+    common = [value(f"{column}{rows['common']}") for column in "BCD"]
+    screen = value(f"B{rows['screen']}")
+    expect(value(f"B{rows['first_rate'] - 3}") < 0.05, "the departments differ overall")
+    expect(len(significant) == 4 and "Design–Assembly" in significant, "four pairs differ, Design–Assembly among them")
+    expect(len(chance) == 1 and chance[0][:2] == ("Sales", "Finance"), "only Sales–Finance loses its significance")
+    expect(difference[1] > 0 and common[0] < 1 and common[1] < 1 < common[2],
+           "pooled, Design is ahead; within offices the ratio is below 1 and not significant")
+    expect(screen >= 0.8, "the within-office ratio passes the four-fifths screen")
+    a, b, p, q = chance[0]
+    row = rows["notes"]
+    s.text(f"A{row}", "Reading the results", "Assoc section")
+    s.notes(f"A{row + 1}", [
+        f"Promotion rates run from {percent(rates[lowest][0], 1)} ({lowest}) to {percent(rates[highest][0], 1)} "
+        f"({highest}). Each interval shows how far the department's underlying rate could plausibly be from the rate "
+        f"seen: {widest}, with the fewest people, has the widest ({percent(rates[widest][1], 1)} to "
+        f"{percent(rates[widest][2], 1)}). Overlapping intervals do not show that two departments are alike; the "
+        "pairwise table compares them.",
+        f"The pairwise table tests every pair of departments. After adjusting for the {len(pairs)} comparisons, "
+        f"{len(significant)} pairs differ at the 5% level: {', '.join(significant[:-1])} and {significant[-1]}. "
+        f"{a} and {b} look different on their own ({p_text(p)}) but not after the adjustment (adjusted "
+        f"p = {fixed(q, 2)}): with {len(pairs)} comparisons a few small p-values are expected by chance alone, which "
+        "is why the adjusted p-value is the one to read.",
+        f"Design against Assembly: pooled over the offices, Design's promotion rate is "
+        f"{fixed(difference[0] * 100, 1)} percentage points higher (95% limits {fixed(difference[1] * 100, 1)} to "
+        f"{fixed(difference[2] * 100, 1)}). Office by office the picture turns: the common risk ratio is "
+        f"{fixed(common[0], 2)} (95% limits {fixed(common[1], 2)} to {fixed(common[2], 2)}), so within offices "
+        "Design's rate is slightly lower and the difference is not significant (the Offices sheet shows why). "
+        f"Within offices neither department falls below four-fifths of the other ({fixed(screen, 2)}).",
+        "Cautions: a significant difference between two departments is not proof of discrimination, nor of its "
+        "cause: departments differ in roles, grades, offices and the people who apply. Many comparisons inflate "
+        "false alarms, and small departments give wide intervals. For decisions about people, follow applicable law "
+        "and policy, and seek qualified advice.",
+    ], width=165)
+
+
+# ---------------------------------------------------------------------------------------------
 # The finance workbook
 
 RECORD_LAST_ROW = INVOICE_COUNT + 1
@@ -1275,12 +1442,13 @@ def build_hr(office, out):
     book = Workbook(office, "Larkspur Components Ltd: promotions by office and selection by age band (invented)")
     offices = build_offices_sheet(book)
     selection = build_selection_sheet(book)
+    departments, department_rows = build_departments_sheet(book)
 
     def tidy():
         offices.fit_text_height("B23", 62)
         selection.fit_text_height("B24", 62)
     store(office, book, out / "hr_review.fods", [lambda: offices_notes(offices), lambda: selection_notes(selection),
-                                                tidy])
+                                                lambda: departments_notes(departments, department_rows), tidy])
 
 
 def build_finance(office, out):
@@ -1303,8 +1471,13 @@ def build_finance(office, out):
            lambda: band_notes(band, band_row, trend_cell), lambda: reaudit_notes(reaudit), tidy])
 
 
+def build_staff_survey(office, out):
+    from sample_staff_survey import build  # a module of its own; it imports this one's helpers
+    build(office, out)
+
+
 BUILDERS = {"quick_start": build_quick_start, "promotions": build_promotions, "hr_review": build_hr,
-            "invoice_exceptions": build_finance}
+            "invoice_exceptions": build_finance, "staff_survey": build_staff_survey}
 
 
 def main():

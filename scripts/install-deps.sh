@@ -6,7 +6,7 @@ set -euo pipefail
 
 # libreoffice-calc (not the -nogui variant): the same office runs headless for the tests and in a
 # window under a virtual X server (xvfb) for the visible test of the menu command.
-packages=(cmake g++ make libboost-math-dev libgtest-dev
+packages=(cmake g++ make libboost-math-dev libgtest-dev libicu-dev
           libreoffice-dev libreoffice-calc python3 python3-uno poppler-utils xvfb xauth)
 for arg in "$@"; do
   case "$arg" in

@@ -40,7 +40,12 @@ SHOTS = [
     ("simpson.png", "hr_review.fods", "Offices", "A1:N24"),
     ("simpson-why.png", "hr_review.fods", "Offices", "A25:I42"),
     ("impact.png", "hr_review.fods", "Selection", "A11:N27"),
+    ("rates-and-pairs.png", "hr_review.fods", "Departments", "A1:N33"),
+    ("common-risk-ratio.png", "hr_review.fods", "Departments", "A35:I40"),
     ("invoice-counts.png", "invoice_exceptions.fods", "By region", "A4:K32"),
+    ("ordinal.png", "staff_survey.fods", "By tenure", "A4:V31"),
+    ("within.png", "staff_survey.fods", "Within offices", "A20:H47"),
+    ("repeated.png", "staff_survey.fods", "Waves", "A4:P21"),
 ]
 
 

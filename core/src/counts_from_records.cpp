@@ -29,7 +29,8 @@ double checked_weight(const Cell& cell, std::size_t i, std::size_t length) {
 }  // namespace
 
 RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabels& column_labels,
-                                 const CellGrid& weights, LevelOrder order, std::size_t max_cells) {
+                                 const CellGrid& weights, LevelOrder order, const TextCollation& collation,
+                                 std::size_t max_cells) {
     detail::CodedLevels rows(row_labels, "row labels");
     detail::CodedLevels columns(column_labels, "column labels");
     require(rows.records() == columns.records(),
@@ -73,8 +74,8 @@ RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabel
                 " cells; Assoc builds tables of at most " + count_text(max_cells) + " cells");
 
     // Second, allocation-free pass: add each record to its cell at the listed position.
-    const std::vector<std::uint32_t> row_position = row_index.positions(order);
-    const std::vector<std::uint32_t> column_position = column_index.positions(order);
+    const std::vector<std::uint32_t> row_position = row_index.positions(order, collation);
+    const std::vector<std::uint32_t> column_position = column_index.positions(order, collation);
     result.counts = Matrix(row_index.size(), column_index.size());
     for (std::size_t i = 0; i < n; ++i) {
         if (row_of[i] == skipped) continue;
@@ -91,16 +92,17 @@ RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabel
         result.whole_counts = result.whole_counts && count == std::floor(count);
     }
     require(std::isfinite(result.total), "the weights add up to more than a spreadsheet number can hold");
-    result.row_levels = row_index.listed(order);
-    result.column_levels = column_index.listed(order);
+    result.row_levels = row_index.listed(order, collation);
+    result.column_levels = column_index.listed(order, collation);
     result.remarks = row_index.lookalike_remarks("row labels");
     for (std::string& remark : column_index.lookalike_remarks("column labels")) result.remarks.push_back(std::move(remark));
     return result;
 }
 
 RecordCounts counts_from_records(const CellGrid& row_labels, const CellGrid& column_labels, const CellGrid& weights,
-                                 LevelOrder order, std::size_t max_cells) {
-    return counts_from_records(code_labels(row_labels), code_labels(column_labels), weights, order, max_cells);
+                                 LevelOrder order, const TextCollation& collation, std::size_t max_cells) {
+    return counts_from_records(code_labels(row_labels), code_labels(column_labels), weights, order, collation,
+                               max_cells);
 }
 
 std::string RecordCounts::feedback() const {

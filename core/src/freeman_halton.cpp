@@ -124,13 +124,18 @@ private:
     double sum_ = 0.0;
 };
 
+// What to do instead, at the end of every message that stops the test: the simulation that orders
+// tables as this test does, so that its p-value estimates this one.
+const char* const simulate_instead =
+    "use ASSOC.SIMULATE(range; ; ; \"exact\") for a Monte Carlo estimate of the exact p-value instead";
+
 // The error at the work cap: the resource that ran out ("time" or "memory") and both limits.
 Error limit_error(const ExactLimits& limits, const char* resource) {
     const double megabytes = static_cast<double>(limits.max_memory_bytes) / 1e6;
     return Error(std::string("the exact test for this table needs more ") + resource + " than allowed (the limit is " +
                  format_number(limits.max_seconds, 3) + " seconds and " +
                  (megabytes >= 10 ? format_count(std::round(megabytes)) : format_number(megabytes, 3)) +
-                 " MB of working memory); use ASSOC.SIMULATE for a Monte Carlo p-value instead");
+                 " MB of working memory); " + simulate_instead);
 }
 
 class Network {
@@ -819,8 +824,8 @@ private:
     [[noreturn]] void fail(const char* resource) const { throw limit_error(limits_, resource); }
 
     [[noreturn]] void fail_too_large() const {
-        throw Error("the exact test cannot enumerate a table with this many rows and columns and such totals; "
-                    "use ASSOC.SIMULATE for a Monte Carlo p-value instead");
+        throw Error(std::string("the exact test cannot enumerate a table with this many rows and columns and such "
+                                "totals; ") + simulate_instead);
     }
 
     ExactLimits limits_;

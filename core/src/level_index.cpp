@@ -1,6 +1,5 @@
 #include "level_index.hpp"
 
-#include <algorithm>
 #include <numeric>
 
 #include "ascii_case.hpp"
@@ -10,19 +9,17 @@
 
 namespace assoc::detail {
 
-std::vector<std::uint32_t> LevelIndex::positions(LevelOrder order) const {
-    std::vector<std::uint32_t> by_position(levels_.size());
-    std::iota(by_position.begin(), by_position.end(), 0u);
-    if (order == LevelOrder::sorted)
-        std::sort(by_position.begin(), by_position.end(),
-                  [this](std::uint32_t a, std::uint32_t b) { return level_before(*levels_[a], *levels_[b]); });
+std::vector<std::uint32_t> LevelIndex::positions(LevelOrder order, const TextCollation& collation) const {
+    std::vector<std::size_t> by_position(levels_.size());
+    std::iota(by_position.begin(), by_position.end(), std::size_t{0});
+    if (order == LevelOrder::sorted) by_position = sorted_order(levels_, collation);
     std::vector<std::uint32_t> position_of(levels_.size());
     for (std::size_t p = 0; p < by_position.size(); ++p) position_of[by_position[p]] = static_cast<std::uint32_t>(p);
     return position_of;
 }
 
-std::vector<Cell> LevelIndex::listed(LevelOrder order) const {
-    const std::vector<std::uint32_t> position_of = positions(order);
+std::vector<Cell> LevelIndex::listed(LevelOrder order, const TextCollation& collation) const {
+    const std::vector<std::uint32_t> position_of = positions(order, collation);
     std::vector<Cell> levels(levels_.size());
     for (std::size_t i = 0; i < levels_.size(); ++i) {
         const Cell& level = *levels_[i];

@@ -14,6 +14,7 @@
 #include "assoc/coded_labels.hpp"
 #include "assoc/error.hpp"
 #include "assoc/levels.hpp"
+#include "assoc/text_collation.hpp"
 
 namespace assoc::detail {
 
@@ -41,10 +42,11 @@ public:
 
     std::size_t size() const { return levels_.size(); }
 
-    // For each index, the level's position when the levels are listed in `order`.
-    std::vector<std::uint32_t> positions(LevelOrder order) const;
+    // For each index, the level's position when the levels are listed in `order` (texts in the
+    // order of `collation` when sorted).
+    std::vector<std::uint32_t> positions(LevelOrder order, const TextCollation& collation) const;
     // The levels, listed in `order`.
-    std::vector<Cell> listed(LevelOrder order) const;
+    std::vector<Cell> listed(LevelOrder order, const TextCollation& collation) const;
     // Sentences about labels that look alike but are counted apart: texts that differ only in
     // capitals, and a text that reads like one of the numbers. `what` is e.g. "row labels".
     std::vector<std::string> lookalike_remarks(const std::string& what) const;

@@ -1,6 +1,8 @@
 #include "assoc/levels.hpp"
 
+#include <algorithm>
 #include <cstdio>
+#include <string_view>
 
 #include "ascii_case.hpp"
 #include "assoc/error.hpp"
@@ -14,12 +16,22 @@ LevelOrder parse_level_order(const std::string& word) {
     throw Error("the order must be \"sorted\" or \"first\", not \"" + word + "\"");
 }
 
-bool level_before(const Cell& a, const Cell& b) {
-    if (a.is_number() != b.is_number()) return a.is_number();
-    if (a.is_number()) return a.as_number() < b.as_number();
-    const int folded = detail::compare_ignoring_case(a.as_text(), b.as_text());
-    if (folded != 0) return folded < 0;
-    return a.as_text() < b.as_text();
+std::vector<std::size_t> sorted_order(const std::vector<const Cell*>& levels, const TextCollation& collation) {
+    std::vector<std::size_t> order;
+    std::vector<std::size_t> text_positions;
+    std::vector<std::string_view> texts;
+    for (std::size_t i = 0; i < levels.size(); ++i) {
+        if (levels[i]->is_text()) {
+            text_positions.push_back(i);
+            texts.emplace_back(levels[i]->as_text());
+        } else {
+            order.push_back(i);
+        }
+    }
+    std::sort(order.begin(), order.end(),
+              [&](std::size_t a, std::size_t b) { return levels[a]->as_number() < levels[b]->as_number(); });
+    for (std::size_t t : collated_order(texts, collation)) order.push_back(text_positions[t]);
+    return order;
 }
 
 std::string level_text(const Cell& level) {
@@ -30,15 +42,15 @@ std::string level_text(const Cell& level) {
     return buffer;
 }
 
-std::vector<Cell> distinct_levels(const CodedLabels& labels, LevelOrder order) {
+std::vector<Cell> distinct_levels(const CodedLabels& labels, LevelOrder order, const TextCollation& collation) {
     detail::CodedLevels levels(labels, "labels");
     for (std::size_t i = 0; i < levels.records(); ++i) levels.level(i);
     require(levels.index().size() > 0, "the labels are all blank");
-    return levels.index().listed(order);
+    return levels.index().listed(order, collation);
 }
 
-std::vector<Cell> distinct_levels(const CellGrid& labels, LevelOrder order) {
-    return distinct_levels(code_labels(labels), order);
+std::vector<Cell> distinct_levels(const CellGrid& labels, LevelOrder order, const TextCollation& collation) {
+    return distinct_levels(code_labels(labels), order, collation);
 }
 
 }  // namespace assoc

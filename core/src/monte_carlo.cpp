@@ -9,6 +9,7 @@
 
 #include "argument_checks.hpp"
 #include "assoc/error.hpp"
+#include "assoc/exact_test.hpp"
 #include "assoc/format.hpp"
 #include "boost_policy.hpp"
 
@@ -174,6 +175,14 @@ double statistic_of(const SimulationTable& t, const std::vector<Count>& cells, M
     return 2 * sum;
 }
 
+// Σ ln x! over the cells: the larger it is, the less probable the table given its margins. The
+// observed table goes through the same code, so an identical simulated table gets the same value.
+double log_factorial_sum(const std::vector<Count>& cells, const LogFactorial& log_factorial) {
+    double sum = 0.0;
+    for (Count x : cells) sum += log_factorial(x);
+    return sum;
+}
+
 // About how many search steps' worth of work one simulated table takes: each drawn cell costs
 // about 20 (its probability at the mode: an exp and nine table lookups) plus a search about as
 // long as its standard deviation, at most √E; each cell's share of the statistic costs about 2.
@@ -218,15 +227,22 @@ SimulationResult monte_carlo_test(const CountTable& table, const SimulationOptio
     HypergeometricSampler sampler(log_factorial);
     std::mt19937_64 engine(options.seed);
     std::vector<Count> column_left(t.columns), cells(t.rows * t.columns);
-    const double observed = statistic_of(t, t.observed, options.statistic);
-    const double threshold = observed - tie_tolerance * observed;
+    const bool by_probability = options.order == SimulationOrder::probability;
+    // Either the statistic or Σ ln x!: a table counts when its value reaches the threshold.
+    const auto value_of = [&](const std::vector<Count>& cells) {
+        return by_probability ? log_factorial_sum(cells, log_factorial) : statistic_of(t, cells, options.statistic);
+    };
+    const double observed = value_of(t.observed);
+    // P ≤ P_observed (1 + tolerance)  ⇔  Σ ln x! ≥ Σ ln x_observed! − ln(1 + tolerance).
+    const double threshold = by_probability ? observed - std::log1p(exact_tie_tolerance)
+                                            : observed - tie_tolerance * observed;
     // The estimate above is for the usual case; this guard stops a run that goes far beyond it.
     const double step_limit = 4 * options.max_work;
 
     std::uint64_t at_least_as_large = 0;
     for (std::uint64_t trial = 0; trial < options.trials; ++trial) {
         draw_table(t, sampler, engine, column_left, cells);
-        if (statistic_of(t, cells, options.statistic) >= threshold) ++at_least_as_large;
+        if (value_of(cells) >= threshold) ++at_least_as_large;
         if ((trial & 1023) == 0)
             require(static_cast<double>(sampler.steps()) <= step_limit,
                     "the simulation was stopped because it took too long; use fewer trials");
@@ -238,7 +254,14 @@ SimulationResult monte_carlo_test(const CountTable& table, const SimulationOptio
     result.p_value = (1 + static_cast<double>(at_least_as_large)) / (trials + 1);
     result.standard_error = std::sqrt(result.p_value * (1 - result.p_value) / trials);
     result.method = options.statistic;
-    result.statistic = options.statistic == Method::pearson ? pearson_statistic(table) : likelihood_ratio_statistic(table);
+    if (by_probability) {
+        double log_margins = -log_factorial(t.total);
+        for (Count total : t.row_totals) log_margins += log_factorial(total);
+        for (Count total : t.column_totals) log_margins += log_factorial(total);
+        result.statistic = std::exp(log_margins - observed);
+    } else {
+        result.statistic = options.statistic == Method::pearson ? pearson_statistic(table) : likelihood_ratio_statistic(table);
+    }
     return result;
 }
 

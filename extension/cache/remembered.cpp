@@ -4,10 +4,6 @@
 
 namespace assoc::calc {
 
-// Every field of SimulationResult is rebuilt below from the stored numbers; a new field changes the
-// size and stops the build here until it is stored too.
-static_assert(sizeof(SimulationResult) == 48, "remembered_monte_carlo_test must store every field of SimulationResult");
-
 ResultCache& shared_result_cache() {
     // A function-local static: created at the first call, destroyed when the library is unloaded.
     static ResultCache cache(shared_result_cache_bytes);
@@ -30,13 +26,16 @@ SimulationResult remembered_monte_carlo_test(ResultCache& cache, const CountTabl
         return std::vector<double>{result.p_value, result.standard_error, static_cast<double>(result.trials),
                                    static_cast<double>(result.at_least_as_large), result.statistic};
     });
+    // Every field rebuilt (the structured binding names them all: a field added to SimulationResult
+    // stops the build here until it is stored too).
     SimulationResult result;
-    result.p_value = numbers[0];
-    result.standard_error = numbers[1];
-    result.trials = static_cast<std::uint64_t>(numbers[2]);
-    result.at_least_as_large = static_cast<std::uint64_t>(numbers[3]);
-    result.statistic = numbers[4];
-    result.method = options.statistic;
+    auto& [p_value, standard_error, trials, at_least_as_large, statistic, method] = result;
+    p_value = numbers[0];
+    standard_error = numbers[1];
+    trials = static_cast<std::uint64_t>(numbers[2]);
+    at_least_as_large = static_cast<std::uint64_t>(numbers[3]);
+    statistic = numbers[4];
+    method = options.statistic;
     return result;
 }
 

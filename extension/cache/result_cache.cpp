@@ -8,12 +8,6 @@
 
 namespace assoc::calc {
 
-// The key must hold every field the answer depends on: a field added to these structs changes
-// their size and stops the build here until the key below takes it in too.
-static_assert(sizeof(ExactLimits) == 24, "CacheKey::add(const ExactLimits&) must key every field of ExactLimits");
-static_assert(sizeof(SimulationOptions) == 32,
-              "CacheKey::add(const SimulationOptions&) must key every field of SimulationOptions");
-
 CacheKey::CacheKey(std::string_view computation) { add(computation); }
 
 CacheKey& CacheKey::add(double value) {
@@ -48,14 +42,16 @@ CacheKey& CacheKey::add(const Matrix& values) {
 
 CacheKey& CacheKey::add(const CountTable& table) { return add(table.counts()); }
 
+// The key must hold every field the answer depends on: the structured bindings below name every
+// field of the structs, so that a field added to them stops the build here until it is keyed too.
 CacheKey& CacheKey::add(const ExactLimits& limits) {
-    return add(limits.max_seconds)
-        .add(static_cast<std::uint64_t>(limits.max_memory_bytes))
-        .add(static_cast<std::uint64_t>(limits.forecast));
+    const auto& [max_seconds, max_memory_bytes, forecast] = limits;
+    return add(max_seconds).add(static_cast<std::uint64_t>(max_memory_bytes)).add(static_cast<std::uint64_t>(forecast));
 }
 
 CacheKey& CacheKey::add(const SimulationOptions& options) {
-    return add(options.trials).add(options.seed).add(options.statistic).add(options.max_work);
+    const auto& [trials, seed, statistic, order, max_work] = options;
+    return add(trials).add(seed).add(statistic).add(order).add(max_work);
 }
 
 ResultCache::ResultCache(std::size_t capacity_bytes) : capacity_(capacity_bytes) {}

@@ -9,6 +9,7 @@
 #include <uno/lbnames.h>
 
 #include "assoc_functions.hpp"
+#include "office_collation.hpp"
 #include "uno_values.hpp"
 
 namespace assoc::calc {
@@ -85,7 +86,8 @@ private:
     css::lang::Locale locale_;
 };
 
-css::uno::Reference<css::uno::XInterface> SAL_CALL create(const css::uno::Reference<css::uno::XComponentContext>&) {
+css::uno::Reference<css::uno::XInterface> SAL_CALL create(const css::uno::Reference<css::uno::XComponentContext>& context) {
+    set_office_context(context);  // the collator that puts labels in order comes from the office
     return static_cast<cppu::OWeakObject*>(new AssocAddIn);
 }
 

@@ -4,27 +4,35 @@
 #include <string>
 
 #include "assoc/breslow_day.hpp"
+#include "assoc/common_risk_ratio.hpp"
 #include "assoc/cell_p_values.hpp"
 #include "assoc/chi_squared_distribution.hpp"
+#include "assoc/cochrans_q.hpp"
 #include "assoc/count_table.hpp"
 #include "assoc/counts_from_records.hpp"
 #include "assoc/effect_size.hpp"
 #include "assoc/error.hpp"
 #include "assoc/exact_test.hpp"
 #include "assoc/expected_counts.hpp"
+#include "assoc/generalized_mantel_haenszel.hpp"
 #include "assoc/goodness_of_fit.hpp"
 #include "assoc/levels.hpp"
 #include "assoc/mantel_haenszel.hpp"
 #include "assoc/monte_carlo.hpp"
 #include "assoc/odds_ratio.hpp"
+#include "assoc/ordinal_measures.hpp"
+#include "assoc/ordinal_test.hpp"
 #include "assoc/paired_tests.hpp"
+#include "assoc/pairwise_comparisons.hpp"
 #include "assoc/power.hpp"
+#include "assoc/rates.hpp"
 #include "assoc/report.hpp"
 #include "assoc/risk_ratio.hpp"
 #include "assoc/selection_impact.hpp"
 #include "assoc/trend_test.hpp"
 #include "assoc_functions.hpp"
 #include "check.hpp"
+#include "office_collation.hpp"
 #include "remembered.hpp"
 
 namespace assoc::calc {
@@ -33,9 +41,9 @@ namespace {
 // A cell must not freeze the office for long, and Calc recalculates add-in cells whenever a document
 // loads: the exact test stops after 5 seconds or 400 MB of working memory (the office's peak memory
 // grows by about as much; the core's own defaults are 20 seconds and 1 GB), with an error that
-// points to ASSOC.SIMULATE; a table it cannot finish within them is refused at once (see
-// freeman_halton.cpp). Its answers and refusals are remembered (extension/cache/), so an unchanged
-// table is not computed again on the next recalculation or load.
+// points to ASSOC.SIMULATE(range; ; ; "exact"); a table it cannot finish within them is refused at
+// once (see freeman_halton.cpp). Its answers and refusals are remembered (extension/cache/), so an
+// unchanged table is not computed again on the next recalculation or load.
 const ExactLimits worksheet_exact_limits{5.0, 400'000'000};
 
 std::vector<double> ratio_row(const RatioEstimate& ratio) {
@@ -85,6 +93,8 @@ double strength(const CellGrid& range, Measure measure) {
     case Measure::phi: return phi_coefficient(table);
     case Measure::contingency: return contingency_coefficient(table);
     case Measure::w: return cohens_w(table);
+    case Measure::gamma: return goodman_kruskal_gamma(table);
+    case Measure::tau_b: return kendall_tau_b(table);
     }
     throw Error("unknown measure");
 }
@@ -93,9 +103,10 @@ double exact(const CellGrid& range, Side side) {
     return shared_exact_p_value(read_count_table(range), side, worksheet_exact_limits);
 }
 
-std::vector<double> simulate(const CellGrid& range, double trials, double seed, Method method) {
+std::vector<double> simulate(const CellGrid& range, double trials, double seed, SimulationMethod method) {
     SimulationOptions options = simulation_options(trials, seed);
-    options.statistic = method;
+    options.statistic = method == SimulationMethod::g ? Method::likelihood_ratio : Method::pearson;
+    if (method == SimulationMethod::exact) options.order = SimulationOrder::probability;
     // Remembered (keyed by the counts and every option): the same seed gives the same answer.
     const SimulationResult result = remembered_monte_carlo_test(shared_result_cache(), read_count_table(range), options);
     return {result.p_value, result.standard_error, static_cast<double>(result.trials)};
@@ -135,13 +146,13 @@ Matrix counts(const CodedLabels& row_labels, const CodedLabels& column_labels, c
               LevelOrder order) {
     // The core gives a row and a column to every label of the ranges, also to one whose records were
     // all skipped (the other label blank), so the table lines up with ASSOC.LEVELS.
-    const RecordCounts counted = counts_from_records(row_labels, column_labels, weights, order);
+    const RecordCounts counted = counts_from_records(row_labels, column_labels, weights, order, office_collation());
     remark(counted.feedback());
     return counted.counts;
 }
 
 CellGrid levels(const CodedLabels& labels, LevelOrder order) {
-    const std::vector<Cell> distinct = distinct_levels(labels, order);
+    const std::vector<Cell> distinct = distinct_levels(labels, order, office_collation());
     CellGrid column(distinct.size(), 1);
     for (std::size_t i = 0; i < distinct.size(); ++i) column.at(i, 0) = distinct[i];
     return column;
@@ -197,6 +208,69 @@ CellGrid report(const CellGrid& range, double alpha) {
         cells.at(i, 1) = lines[i].value;
     }
     return cells;
+}
+
+// --- The figures a memo needs: rates, a difference of rates, pairs of groups, a common risk ratio ---
+
+CellGrid rates(const CellGrid& range, double confidence) {
+    const RowRates result = row_rates(range, confidence);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    // A row without counts stays blank: a 0 would read as a rate of 0.
+    CellGrid cells(result.rows.size(), 4);
+    for (std::size_t r = 0; r < result.rows.size(); ++r) {
+        const RowRate& row = result.rows[r];
+        if (!row.has_counts) continue;
+        cells.at(r, 0) = Cell::number(row.total);
+        cells.at(r, 1) = Cell::number(row.rate.rate);
+        cells.at(r, 2) = Cell::number(row.rate.lower);
+        cells.at(r, 3) = Cell::number(row.rate.upper);
+    }
+    return cells;
+}
+
+std::vector<double> ratediff(const CellGrid& range, double confidence) {
+    const RateDifference result = rate_difference(range, confidence);
+    return {result.difference, result.lower, result.upper};
+}
+
+CellGrid pairwise(const CellGrid& range, PAdjustment adjust, PairwiseMethod method) {
+    const PairwiseComparisons result =
+        pairwise_comparisons(read_count_table(range), adjust, method, worksheet_exact_limits);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    CellGrid cells(result.pairs.size(), 4);
+    for (std::size_t k = 0; k < result.pairs.size(); ++k) {
+        const PairComparison& pair = result.pairs[k];
+        cells.at(k, 0) = Cell::text(pair.first_name);
+        cells.at(k, 1) = Cell::text(pair.second_name);
+        cells.at(k, 2) = Cell::number(pair.p_value);
+        cells.at(k, 3) = Cell::number(pair.adjusted_p_value);
+    }
+    return cells;
+}
+
+std::vector<double> stratarisk(const CellGrid& range, double confidence) {
+    const CommonRiskRatio result = common_risk_ratio(range, confidence);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    return {result.ratio.estimate, result.ratio.lower, result.ratio.upper};
+}
+
+// --- Ordered tables, association within r×c strata, repeated yes/no answers (issue 13) -------------
+
+std::vector<double> ordinal(const CellGrid& range, const CellGrid& row_scores, const CellGrid& column_scores) {
+    const OrdinalResult result = ordinal_test(range, row_scores, column_scores);
+    return {result.p_value, result.statistic, result.df, result.correlation};
+}
+
+std::vector<double> within(const CellGrid& strata) {
+    const GeneralAssociationResult result = general_association_test(strata);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    return {result.p_value, result.statistic, result.df};
+}
+
+std::vector<double> repeated(const CellGrid& answers, const Cell& yes) {
+    const RepeatedResult result = cochrans_q_test(answers, yes);
+    for (const std::string& sentence : result.remarks) remark(sentence);
+    return {result.p_value, result.statistic, result.df};
 }
 
 }  // namespace cell_functions

@@ -132,6 +132,15 @@ TEST(RememberedSimulation, ComputesAgainWhenTheSeedTheTrialsTheStatisticOrOneCou
     EXPECT_EQ(cache.statistics().hits, 0u);
 }
 
+TEST(RememberedSimulation, ComputesAgainWhenTheOrderOfTablesChanges) {
+    ResultCache cache(1'000'000);
+    SimulationOptions o = options(2000, 7, Method::pearson);
+    remembered_monte_carlo_test(cache, three_by_three(), o);
+    o.order = SimulationOrder::probability;  // ASSOC.SIMULATE with "exact"
+    expect_same(remembered_monte_carlo_test(cache, three_by_three(), o), monte_carlo_test(three_by_three(), o));
+    EXPECT_EQ(cache.statistics().misses, 2u);
+}
+
 TEST(RememberedSimulation, ComputesAgainWhenTheWorkCapChanges) {
     ResultCache cache(1'000'000);
     SimulationOptions o = options(2000, 7, Method::pearson);

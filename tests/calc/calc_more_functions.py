@@ -98,7 +98,8 @@ class ExactTest(CalcTestCase, ErrorCheckMixin):
         text = self.words("H2", f'=ASSOC.CHECK({table}; "exact")')
         # It would run out of both; which one the refusal names depends on which is foreseen first.
         self.assertRegex(text, "needs more (memory|time) than allowed")
-        self.assertIn("use ASSOC.SIMULATE for a Monte Carlo p-value instead", text)
+        self.assertIn('use ASSOC.SIMULATE(range; ; ; "exact") for a Monte Carlo estimate of the exact p-value instead',
+                      text)
         self.sheet.getCellRangeByName("H2").clearContents(0xFFFF)
         self.assertLess(time.monotonic() - started, 30)
         # The office still answers, and the simulated p-value works on the same table.

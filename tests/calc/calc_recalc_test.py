@@ -79,7 +79,8 @@ class RememberedAnswers(CalcTestCase):
         self.assertEqual(refused.getError(), 502)
         words = self.words("H2", f'=ASSOC.CHECK({table};"exact")')
         self.assertIn("ASSOC.EXACT cannot be used here: the exact test for this table needs more", words)
-        self.assertIn("use ASSOC.SIMULATE for a Monte Carlo p-value instead", words)
+        self.assertIn('use ASSOC.SIMULATE(range; ; ; "exact") for a Monte Carlo estimate of the exact p-value instead',
+                      words)
         for _ in range(2):
             self.recalculate()
             self.assertEqual(self.sheet.getCellRangeByName("H1").getError(), 502)

@@ -178,7 +178,38 @@ class Promotions(SampleCase, unittest.TestCase):
                          self.reference["pearson"], "report")
 
 
-class HumanResources(SampleCase, unittest.TestCase):
+class DepartmentChecks:
+    """The Departments sheet of hr_review.fods (mixed into HumanResources): rates with intervals, the
+    pairwise table, Design against Assembly and the common risk ratio within offices, against
+    statsmodels, scipy and R (samples_generate.py, section hr_departments)."""
+    departments = REFERENCE["hr_departments"]
+
+    def test_department_inputs_are_those_of_the_reference(self):
+        table = self.values("DepartmentTable")[1:]
+        self.assertEqual([row[0] for row in table], self.departments["departments"])
+        self.assertEqual([row[1:] for row in table], self.departments["counts"])
+
+    def test_department_rates_have_the_wilson_intervals_of_statsmodels(self):
+        self.assertClose([self.row("DepartmentPValue")[0]], [self.departments["pearson"][2]], "Pearson p")
+        for got, want in zip(self.values("DepartmentRates"), self.departments["rates"]):
+            self.assertClose(got, want, "ASSOC.RATES")
+            self.assertTrue(got[2] <= got[1] <= got[3], "the interval holds the rate")
+
+    def test_pairwise_table_matches_scipy_with_holms_adjustment(self):
+        pairs = self.values("DepartmentPairs")
+        self.assertEqual([row[:2] for row in pairs], self.departments["pairs"])
+        self.assertClose([row[2] for row in pairs], self.departments["pair_p_values"], "pair p-values")
+        self.assertClose([row[3] for row in pairs], self.departments["pair_holm"], "Holm-adjusted")
+
+    def test_design_against_assembly_pooled_and_within_offices_matches_statsmodels(self):
+        self.assertClose(self.row("DesignAssemblyDifference"), self.departments["design_assembly_difference"],
+                         "ASSOC.RATEDIFF")
+        self.assertClose(self.row("DesignAssemblyRiskRatio"), self.departments["design_assembly_risk_ratio"],
+                         "ASSOC.RISKRATIO")
+        self.assertClose(self.row("CommonRiskRatio"), self.departments["common_risk_ratio"], "ASSOC.STRATARISK")
+
+
+class HumanResources(DepartmentChecks, SampleCase, unittest.TestCase):
     workbook = "hr_review.fods"
     reference = REFERENCE["hr"]
 
@@ -287,6 +318,47 @@ class Invoices(SampleCase, unittest.TestCase):
     def test_paired_tests_match_statsmodels(self):
         self.assertClose(self.row("PairedResult"), self.reference["paired_corrected"], "McNemar")
         self.assertClose(self.row("PairedExact"), self.reference["paired_exact"], "exact binomial")
+
+
+class StaffSurvey(SampleCase, unittest.TestCase):
+    workbook = "staff_survey.fods"
+    reference = REFERENCE["staff_survey"]
+    record_sheets = ("Wave answers",)
+    without_heat_map = {"Waves": "repeated yes/no answers (Cochran's Q): no test of independence, so no residuals"}
+
+    def test_inputs_are_those_of_the_reference(self):
+        table = self.values("TenureTable")
+        self.assertEqual([row[0] for row in table[1:]], self.reference["bands"])
+        self.assertEqual([row[1:] for row in table[1:]], self.reference["counts"])
+        self.assertEqual([row[0] for row in self.values("TenureYears")], self.reference["years"])
+        self.assertEqual(len(self.values("WaveAnswers")) - 1, self.reference["staff"])
+
+    def test_ordered_tests_match_statsmodels_and_scipy(self):
+        self.assertClose(self.row("TenureOrdinal"), self.reference["ordinal"], "ASSOC.ORDINAL")
+        self.assertClose(self.row("TenureOrdinalYears"), self.reference["ordinal_years"], "ASSOC.ORDINAL with years")
+        self.assertClose(self.row("TenurePearson"), [self.reference["pearson"][2]], "ASSOC.PVALUE")
+        self.assertClose(self.row("TenureGamma"), [self.reference["gamma"]], "gamma (pairs counted with numpy)")
+        self.assertClose(self.row("TenureTauB"), [self.reference["tau_b"]], "tau-b (scipy kendalltau)")
+        # The point of the sheet: the ordered test finds what Pearson's test misses.
+        self.assertLess(self.row("TenureOrdinal")[0], 0.001)
+        self.assertGreater(self.row("TenurePearson")[0], 0.05)
+
+    def test_within_offices_matches_r_mantelhaen_test(self):
+        # R is given Harbour's one-row stratum too; it adds nothing there, as ASSOC.WITHIN sets it aside.
+        self.assertClose(self.row("WithinResult"), self.reference["within"], "ASSOC.WITHIN")
+
+    def test_the_simulation_ordered_as_the_exact_test_estimates_its_p_value(self):
+        self.assertEqual([row[1:] for row in self.values("LakeviewTable")[1:]], self.reference["lakeview"])
+        exact = self.row("LakeviewExact")[0]
+        self.assertClose([exact], [self.reference["lakeview_exact"]], "exact (R fisher.test)", 1e-7)
+        p, standard_error, trials = self.row("LakeviewSimulatedExact")
+        self.assertEqual(trials, 100000)
+        self.assertLess(abs(p - exact), 4 * standard_error)
+
+    def test_survey_waves_match_statsmodels_and_r(self):
+        self.assertClose(self.row("WaveRepeated"), self.reference["repeated"], "Cochran's Q (statsmodels)")
+        self.assertClose(self.row("TwoWaveRepeated"), self.reference["march_july_repeated"], "two waves")
+        self.assertClose(self.row("TwoWavePaired"), self.reference["march_july_mcnemar"], "McNemar (R)")
 
 
 def main():

@@ -220,9 +220,12 @@ TEST(CountsFromRecords, RejectsRecordsThatAreAllBlank) {
 }
 
 TEST(CountsFromRecords, RejectsATableLargerThanTheCellLimit) {
-    expect_error([] { counts_from_records(grid({{"a", "b", "c"}}), grid({{1, 2, 3}}), CellGrid(), LevelOrder::sorted, 8); },
-                 "the labels give 3 row levels and 3 column levels, a table of 9 cells; Assoc builds tables of at "
-                 "most 8 cells");
+    expect_error(
+        [] {
+            counts_from_records(grid({{"a", "b", "c"}}), grid({{1, 2, 3}}), CellGrid(), LevelOrder::sorted,
+                                unicode_collation(), 8);
+        },
+        "the labels give 3 row levels and 3 column levels, a table of 9 cells; Assoc builds tables of at most 8 cells");
 }
 
 TEST(CountsFromRecords, CountsFurtherLabelsThatDifferOnlyInCapitalsWithoutNamingThem) {

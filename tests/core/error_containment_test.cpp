@@ -9,8 +9,14 @@
 #include <vector>
 
 #include "assoc/chi_squared_distribution.hpp"
+#include "assoc/common_risk_ratio.hpp"
 #include "assoc/effect_size.hpp"
 #include "assoc/expected_counts.hpp"
+#include "assoc/generalized_mantel_haenszel.hpp"
+#include "assoc/ordinal_measures.hpp"
+#include "assoc/ordinal_test.hpp"
+#include "assoc/pairwise_comparisons.hpp"
+#include "assoc/rates.hpp"
 #include "assoc/residuals.hpp"
 #include "assoc/statistics.hpp"
 #include "assoc/validity.hpp"
@@ -132,5 +138,99 @@ TEST(ErrorContainment, TablesReadWithoutTheTwoByTwoRequirementFailWithAssocError
         returns_or_throws_error([&] { cramers_v(table); }, "V");
         returns_or_throws_error([&] { cramers_v_corrected(table); }, "corrected V");
         returns_or_throws_error([&] { check_validity(table); }, "validity");  // an empty table crashed here
+    }
+}
+
+// The tests for ordered tables and r×c strata on the same awkward tables (each table also as two
+// strata: itself and itself reversed).
+TEST(ErrorContainment, TheOrderedAndStratifiedTestsReturnANumberOrAnAssocErrorOnAwkwardTables) {
+    int table_number = 0;
+    for (const Matrix& counts : awkward_counts()) {
+        const std::string name = "table " + std::to_string(++table_number);
+        CountTable table;
+        if (!returns_or_throws_error([&] { table = CountTable::from_counts(counts); }, name)) continue;
+        auto finite = [&](double value, const std::string& what) { EXPECT_FALSE(std::isnan(value)) << what << " on " << name; };
+        returns_or_throws_error([&] { finite(ordinal_test(table).statistic, "M²"); }, name);
+        returns_or_throws_error([&] { finite(ordinal_test(table).p_value, "ordinal p"); }, name);
+        returns_or_throws_error([&] { finite(goodman_kruskal_gamma(table), "gamma"); }, name);
+        returns_or_throws_error([&] { finite(kendall_tau_b(table), "tau-b"); }, name);
+        LongStrata strata;
+        strata.row_labels.assign(counts.rows(), "");
+        strata.column_labels.assign(counts.columns(), "");
+        Matrix reversed(counts.rows(), counts.columns());
+        for (std::size_t r = 0; r < counts.rows(); ++r)
+            for (std::size_t c = 0; c < counts.columns(); ++c)
+                reversed(r, c) = counts(counts.rows() - 1 - r, c);
+        strata.strata = {{"A", counts}, {"B", reversed}};
+        returns_or_throws_error([&] { finite(general_association_test(strata).statistic, "generalized CMH"); }, name);
+    }
+}
+
+// Rates, rate differences, pairwise comparisons and the common risk ratio read ranges themselves:
+// awkward counts as cells, 2 or 4 columns so that every one of them reads them.
+namespace {
+
+CellGrid grid_of(const std::vector<std::vector<double>>& rows) {
+    CellGrid cells(rows.size(), rows.front().size());
+    for (std::size_t r = 0; r < rows.size(); ++r)
+        for (std::size_t c = 0; c < rows[r].size(); ++c) cells.at(r, c) = Cell::number(rows[r][c]);
+    return cells;
+}
+
+const std::vector<std::vector<std::vector<double>>> awkward = {
+    {{1e300, 1e-300}, {1e-300, 1e300}},
+    {{1.7e308, 1e-300}, {1e-300, 1e-300}},
+    {{1e200, 1e200}, {1e200, 2e200}},
+    {{5e-324, 5e-324}, {5e-324, 1e-323}},
+    {{0.001, 0}, {0, 0.002}},
+    {{1e-6, 10}, {1e-7, 10}},
+    {{1, 1e17}, {1e17, 1e17}},
+    {{0, 5}, {5, 0}},
+    {{1e300, 1e-300, 1e-300, 1e300}, {5e-324, 1, 1, 5e-324}},
+    {{1e308, 1e308, 1, 1}, {2, 3, 1e-300, 4}},
+};
+
+void expect_finite(double value, const std::string& what) { EXPECT_TRUE(std::isfinite(value)) << what; }
+
+}  // namespace
+
+TEST(ErrorContainment, RatesPairsAndTheCommonRiskRatioReturnFiniteNumbersOrAnAssocErrorOnAwkwardCounts) {
+    int number = 0;
+    for (const auto& rows : awkward) {
+        const std::string name = "table " + std::to_string(++number);
+        const CellGrid range = grid_of(rows);
+        returns_or_throws_error([&] {
+            for (const RowRate& row : row_rates(range).rows) {
+                if (!row.has_counts) continue;
+                expect_finite(row.rate.rate, name);
+                EXPECT_LE(0.0, row.rate.lower) << name;
+                EXPECT_LE(row.rate.lower, row.rate.rate) << name;
+                EXPECT_LE(row.rate.rate, row.rate.upper) << name;
+                EXPECT_LE(row.rate.upper, 1.0) << name;
+            }
+        }, name + " rates");
+        returns_or_throws_error([&] {
+            const RateDifference d = rate_difference(range);
+            expect_finite(d.lower, name);
+            expect_finite(d.upper, name);
+            EXPECT_LE(-1.0, d.lower) << name;
+            EXPECT_LE(d.lower, d.difference) << name;
+            EXPECT_LE(d.difference, d.upper) << name;
+            EXPECT_LE(d.upper, 1.0) << name;
+        }, name + " difference");
+        returns_or_throws_error([&] {
+            for (PairwiseMethod method : {PairwiseMethod::pearson, PairwiseMethod::exact})
+                for (const PairComparison& pair :
+                     pairwise_comparisons(read_count_table(range), PAdjustment::holm, method, {2.0, 100'000'000}).pairs) {
+                    EXPECT_TRUE(pair.p_value >= 0 && pair.p_value <= 1) << name;
+                    EXPECT_TRUE(pair.adjusted_p_value >= pair.p_value && pair.adjusted_p_value <= 1) << name;
+                }
+        }, name + " pairs");
+        returns_or_throws_error([&] {
+            const CommonRiskRatio ratio = common_risk_ratio(range);
+            expect_finite(ratio.ratio.estimate, name);
+            expect_finite(ratio.ratio.lower, name);
+            expect_finite(ratio.ratio.upper, name);
+        }, name + " common risk ratio");
     }
 }

@@ -96,7 +96,7 @@ TEST(ExactPValue, StopsAtTheMemoryLimitAndSuggestsASimulation) {
     expect_error([&] {
         exact_p_value(counts_table({{6, 4, 8, 8, 5, 5}, {2, 15, 6, 8, 8, 4}, {0, 3, 9, 2, 4, 3}}), Side::two_sided, limits);
     }, "the exact test for this table needs more memory than allowed (the limit is 20 seconds and 1 MB of working "
-       "memory); use ASSOC.SIMULATE for a Monte Carlo p-value instead");
+       "memory); use ASSOC.SIMULATE(range; ; ; \"exact\") for a Monte Carlo estimate of the exact p-value instead");
 }
 
 // A column of 2 beside columns of 22,000 and 23,000: the last two columns alone have about 10⁸
@@ -105,7 +105,8 @@ TEST(ExactPValue, StopsAtTheMemoryLimitAndSuggestsASimulation) {
 TEST(ExactPValue, StopsATableWithATinyColumnBesideHugeOnesAtItsLimits) {
     const ExactLimits limits{2.0, 200'000'000};
     const std::string limits_text = " than allowed (the limit is 2 seconds and 200 MB of working memory); use "
-                                    "ASSOC.SIMULATE for a Monte Carlo p-value instead";
+                                    "ASSOC.SIMULATE(range; ; ; \"exact\") for a Monte Carlo estimate of the exact "
+                                    "p-value instead";
     try {
         exact_p_value(counts_table({{1, 10000, 5000}, {1, 5000, 10000}, {0, 7000, 8000}}), Side::two_sided, limits);
         ADD_FAILURE() << "expected the work cap to stop the test";
@@ -142,4 +143,23 @@ TEST(ExactPValue, StopsAtTheTimeLimitAndSuggestsASimulation) {
     } catch (const Error& error) {
         EXPECT_NE(std::string(error.what()).find("more time than allowed"), std::string::npos) << error.what();
     }
+}
+
+// The tie margin (docs/guide.md, "Ties in the exact test"): a table up to 1e-7 (relative) more probable
+// than the observed one counts as no more probable. In [[9999, 10001], [10001, 10001]] the only more
+// probable table, a = 10000, is more probable by 10001² / (10000 · 10002) − 1 ≈ 1e-8 (exact ratio of
+// hypergeometric probabilities), so every table counts: p = 1, the sum of all probabilities (identity).
+TEST(ExactPValue, CountsATableUpTo1e7MoreProbableAsNoMoreProbable) {
+    EXPECT_NEAR_REL(exact_p_value(counts_table({{9999, 10001}, {10001, 10001}})), 1.0, 1e-12);
+}
+
+// Beyond the margin: in [[999, 1001], [1001, 1001]] the table a = 1000 is more probable by
+// 1001² / (1000 · 1002) − 1 ≈ 1e-6, so it alone is left out, and the two-sided p is the two tails
+// around it: P(a ≤ 999) + P(a ≥ 1001) (definition), the lower p of this table plus the upper p of
+// [[1001, 999], [999, 1003]] (checked against scipy and R by the tests above).
+TEST(ExactPValue, LeavesOutATableMoreProbableByMoreThanTheMargin) {
+    const double lower = exact_p_value(counts_table({{999, 1001}, {1001, 1001}}), Side::lower);
+    const double upper = exact_p_value(counts_table({{1001, 999}, {999, 1003}}), Side::upper);
+    EXPECT_NEAR_REL(exact_p_value(counts_table({{999, 1001}, {1001, 1001}})), lower + upper, 1e-12);
+    EXPECT_LT(lower + upper, 0.98);
 }

@@ -19,7 +19,7 @@ std::vector<Cell> texts(std::initializer_list<const char*> values) {
 }
 }  // namespace
 
-TEST(Levels, ListsNumbersAscendingBeforeTextsSortedWithoutRegardToCase) {
+TEST(Levels, ListsNumbersAscendingBeforeTextsSortedWithoutRegardToCase) {  // order of texts: text_collation_test
     const auto levels = distinct_levels(grid({{"north"}, {10}, {"East"}, {2}, {"west"}, {"East"}, {2}}));
     EXPECT_EQ(levels, (std::vector<Cell>{Cell::number(2), Cell::number(10), Cell::text("East"), Cell::text("north"),
                                          Cell::text("west")}));
@@ -31,9 +31,9 @@ TEST(Levels, ListsLevelsInTheOrderTheyFirstAppearWhenAsked) {
 }
 
 TEST(Levels, CountsTextsThatDifferOnlyInCapitalsAsDifferentLevels) {
-    const auto levels = distinct_levels(grid({{"sales"}, {"Sales"}, {"SALES"}, {"sales"}}));
-    // Same letters ignoring case: ordered by exact characters (capitals have the lower codes).
-    EXPECT_EQ(levels, texts({"SALES", "Sales", "sales"}));
+    const auto levels = distinct_levels(grid({{"SALES"}, {"Sales"}, {"sales"}, {"SALES"}}));
+    // Same letters: lower case first (the Unicode Collation Algorithm's tertiary level; text_collation_test).
+    EXPECT_EQ(levels, texts({"sales", "Sales", "SALES"}));
 }
 
 TEST(Levels, CountsTheNumberFiveAndTheTextFiveAsDifferentLevels) {

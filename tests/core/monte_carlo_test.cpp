@@ -201,3 +201,49 @@ TEST(SimulationOptions, RejectsAnUnknownStatistic) {
     expect_error([] { simulation_options(std::nullopt, std::nullopt, std::string("yates")); },
                  "the statistic must be \"pearson\" or \"g\", not \"yates\"");
 }
+
+// --- Ordered by probability ("exact"): estimates the exact test's p-value -------------------------
+// Expected values: the Fisher (probability-ordering) p-values of small_sample_generate.py's complete
+// enumeration, which equal R 4.2.2 fisher.test; a simulated p must lie within 4 standard errors.
+
+namespace {
+SimulationOptions by_probability(std::uint64_t trials, std::uint64_t seed) {
+    SimulationOptions options = with(trials, seed);
+    options.order = SimulationOrder::probability;
+    return options;
+}
+
+void expect_close_to_fisher(const CountTable& t, double exact_p) {
+    const std::uint64_t trials = 100'000;
+    const SimulationResult result = monte_carlo_test(t, by_probability(trials, 20240));
+    EXPECT_NEAR(result.p_value, exact_p, 4 * std::sqrt(exact_p * (1 - exact_p) / static_cast<double>(trials)));
+}
+}  // namespace
+
+TEST(MonteCarloTest, ByProbabilityAgreesWithTheExactTestOfTheTeaTastingTable) {
+    expect_close_to_fisher(table({{3, 1}, {1, 3}}), 34.0 / 70.0);  // published_values.md section 2
+}
+
+TEST(MonteCarloTest, ByProbabilityAgreesWithTheExactTestOfAThreeByFourTable) {
+    // The table on which ordering by X² estimates a different p-value (0.030 rather than 0.036).
+    expect_close_to_fisher(three_by_four(), ref::exact_three_by_four_fisher_p);
+}
+
+TEST(MonteCarloTest, ByProbabilityAgreesWithTheExactTestOfASparseThreeByThreeTable) {
+    expect_close_to_fisher(three_by_three(), ref::exact_three_by_three_fisher_p);
+}
+
+// Exact identity: the observed table is always at least as extreme as itself, so with B trials the
+// p-value is at least 1/(B + 1); a table of the largest probability gives p = 1 in every trial
+// that draws a table of no greater probability, which for [[2, 2], [2, 2]] is every table.
+TEST(MonteCarloTest, ByProbabilityCountsEveryTableForTheMostProbableTable) {
+    const SimulationResult result = monte_carlo_test(table({{2, 2}, {2, 2}}), by_probability(1000, 3));
+    EXPECT_EQ(result.at_least_as_large, 1000u);
+    EXPECT_EQ(result.p_value, 1.0);
+}
+
+TEST(MonteCarloTest, ByProbabilityReportsTheObservedTablesProbability) {
+    // Fisher (1935): the tea table [[3, 1], [1, 3]] has probability 16/70 given its margins.
+    const SimulationResult result = monte_carlo_test(table({{3, 1}, {1, 3}}), by_probability(100, 1));
+    EXPECT_NEAR_REL(result.statistic, 16.0 / 70.0, 1e-12);
+}

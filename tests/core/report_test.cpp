@@ -180,7 +180,8 @@ TEST(AssociationReport, SaysWhyTheExactTestStoppedAtItsLimitsAndPointsToTheSimul
     const auto lines = association_report(read_count_table(grid({{5, 3, 2}, {4, 6, 1}, {2, 2, 7}})), options);
     EXPECT_EQ(text(lines, "p-value, exact test"),
               "Not computed: the exact test for this table needs more memory than allowed (the limit is 2 seconds "
-              "and 0.001 MB of working memory); use ASSOC.SIMULATE for a Monte Carlo p-value instead.");
+              "and 0.001 MB of working memory); use ASSOC.SIMULATE(range; ; ; \"exact\") for a Monte Carlo estimate of "
+              "the exact p-value instead.");
 }
 
 TEST(AssociationReport, SaysWeightedCountsHaveNoExactPValue) {

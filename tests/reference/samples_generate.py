@@ -7,7 +7,7 @@ repository root after rebuilding the samples:
     /usr/bin/python3 tests/reference/samples_generate.py
 
 Tools: scipy 1.10.1, numpy 1.24.2, statsmodels 0.13.5 (Debian 12 python3-scipy, python3-numpy,
-python3-statsmodels) and R 4.2.2 (Rscript: fisher.test, prop.trend.test). The workbooks' data are
+python3-statsmodels) and R 4.2.2 (Rscript: fisher.test, prop.trend.test, mantelhaen.test, mcnemar.test). The workbooks' data are
 invented (Larkspur Components Ltd is a fictional company).
 
 Only typed cells are read: the pooled table, the size bands and the other formula cells of the
@@ -15,6 +15,7 @@ workbooks are recomputed here from their inputs, so that a wrong formula in a sa
 difference rather than being copied into the reference.
 """
 
+import itertools
 import json
 import math
 import pathlib
@@ -28,6 +29,7 @@ import scipy.stats as st
 import statsmodels
 from statsmodels.stats.contingency_tables import StratifiedTable, Table, Table2x2, mcnemar
 from statsmodels.stats.multitest import multipletests
+from statsmodels.stats.proportion import confint_proportions_2indep, proportion_confint
 
 ROOT = pathlib.Path(__file__).resolve().parents[2]
 SAMPLES = ROOT / "samples"
@@ -197,6 +199,55 @@ def hr():
     }
 
 
+def hr_departments():
+    """The Departments sheet of hr_review.fods: promotion rates by department with Wilson intervals
+    (statsmodels proportion_confint), every pair of departments (scipy chi2_contingency without
+    correction, Holm's adjustment by statsmodels multipletests, checked against R p.adjust), Design
+    against Assembly as a difference with Newcombe's interval (statsmodels confint_proportions_2indep) and
+    as a risk ratio (statsmodels Table2x2), and the common risk ratio within the offices of the Offices
+    sheet (statsmodels StratifiedTable.riskratio_pooled; the interval from the variance of Greenland &
+    Robins (1985), Biometrics 41:55-68, written out in numpy)."""
+    path = SAMPLES / "hr_review.fods"
+    body = []
+    for row in block(sheet_cells(path, "Departments"), "A6", 3, 12):  # the typed rows below the header
+        if row[1] is None:
+            break
+        body.append(row)
+    counts = [[int(a), int(b)] for _, a, b in body]
+    rates = []
+    for promoted, not_promoted in counts:
+        n = promoted + not_promoted
+        lower, upper = proportion_confint(promoted, n, alpha=0.05, method="wilson")
+        rates.append([float(n), promoted / n, float(lower), float(upper)])
+    pairs, p_values = [], []
+    for (i, first), (j, second) in itertools.combinations(enumerate(counts), 2):
+        pairs.append([body[i][0], body[j][0]])
+        p_values.append(pearson([first, second])[2])
+    holm = [float(p) for p in multipletests(p_values, method="holm")[1]]
+    r_holm = r_numbers(f"p.adjust(c({', '.join(repr(p) for p in p_values)}), method = 'holm')")
+    assert all(math.isclose(a, b, rel_tol=1e-12) for a, b in zip(holm, r_holm)), (holm, r_holm)
+    (x1, y1), (x2, y2) = counts[0], counts[1]
+    lower, upper = confint_proportions_2indep(x1, x1 + y1, x2, x2 + y2, method="newcomb", compare="diff",
+                                              alpha=0.05)
+
+    offices = block(sheet_cells(path, "Offices"), "A6", 5, 4)
+    strata = np.array([[float(v) for v in row[1:]] for row in offices])
+    a, b, c, d = strata.T
+    n1, n0 = a + b, c + d
+    n = n1 + n0
+    r, s = np.sum(a * n0 / n), np.sum(c * n1 / n)
+    log_se = math.sqrt(np.sum((n1 * n0 * (a + c) - a * c * n) / n ** 2) / (r * s))
+    ratio = float(StratifiedTable([np.array([[w, x], [y, z]]) for w, x, y, z in strata]).riskratio_pooled)
+    z = float(st.norm.isf(0.025))
+    return {
+        "departments": [row[0] for row in body], "counts": counts, "pearson": pearson(counts), "rates": rates,
+        "pairs": pairs, "pair_p_values": p_values, "pair_holm": holm,
+        "design_assembly_difference": [x1 / (x1 + y1) - x2 / (x2 + y2), float(lower), float(upper)],
+        "design_assembly_risk_ratio": risk_ratio(counts[:2]),
+        "common_risk_ratio": [ratio, ratio * math.exp(-z * log_se), ratio * math.exp(z * log_se)],
+    }
+
+
 def finance():
     rows = sheet_cells(SAMPLES / "invoice_exceptions.fods", "Invoices")
     records = []
@@ -234,6 +285,50 @@ def finance():
     }
 
 
+def staff_survey():
+    """The staff-survey workbook (scripts/sample_staff_survey.py), with the tools and helpers of
+    ordered_generate.py: statsmodels (linear-by-linear test, Cochran's Q), scipy (Pearson, Kendall's tau-b
+    on the expanded data), numpy (pairs for gamma) and R (mantelhaen.test, fisher.test, mcnemar.test)."""
+    from ordered_generate import cochran, gamma_by_pairs, linear_by_linear, mantelhaen, tau_b
+    path = SAMPLES / "staff_survey.fods"
+    tenure_rows = sheet_cells(path, "By tenure")
+    body = block(tenure_rows, "A6", 6, 5)
+    counts = [[int(v) for v in row[1:]] for row in body]
+    years = [row[0] for row in block(tenure_rows, "H6", 1, 5)]
+
+    long = []
+    for row in sheet_cells(path, "Within offices")[5:]:
+        if not row or row[0] is None:
+            break
+        long.append(row[:5])
+    offices = list(dict.fromkeys(row[0] for row in long))
+    bands = list(dict.fromkeys(row[1] for row in long))
+    strata = [[next(([int(v) for v in r[2:5]] for r in long if r[0] == office and r[1] == band), [0, 0, 0])
+               for band in bands] for office in offices]
+    lakeview = strata[offices.index("Lakeview")]
+
+    answers = []
+    for row in sheet_cells(path, "Wave answers")[1:]:
+        if not row or row[0] is None:
+            break
+        answers.append([(row + [None] * 4)[c] or "" for c in (1, 2, 3)])
+    complete = [[1 if a == "Yes" else 0 for a in row] for row in answers if "" not in row]
+    two = [[1 if a == "Yes" else 0 for a in row[:2]] for row in answers if "" not in row[:2]]
+    pairs = [[sum(1 for a, b in two if (a, b) == (x, y)) for y in (1, 0)] for x in (1, 0)]
+    mcnemar_statistic, mcnemar_p = r_numbers(
+        f"unlist(mcnemar.test({r_matrix(pairs)}, correct = FALSE)[c('statistic', 'p.value')])")
+    return {
+        "bands": [row[0] for row in body], "counts": counts, "years": years,
+        "ordinal": linear_by_linear(counts), "ordinal_years": linear_by_linear(counts, years),
+        "pearson": pearson(counts), "gamma": gamma_by_pairs(counts)[2], "tau_b": tau_b(counts),
+        "offices": offices, "office_bands": bands, "strata": strata, "within": mantelhaen(strata),
+        "lakeview": lakeview, "lakeview_exact": r_numbers(f"fisher.test({r_matrix(lakeview)})$p.value")[0],
+        "staff": len(answers), "complete": len(complete), "repeated": cochran(complete),
+        "march_july_pairs": pairs, "march_july_repeated": cochran(two),
+        "march_july_mcnemar": [mcnemar_p, mcnemar_statistic, 1.0],
+    }
+
+
 def main():
     r_version = subprocess.run(["Rscript", "-e", "cat(R.version.string)"], check=True, capture_output=True,
                                text=True).stdout
@@ -242,7 +337,9 @@ def main():
         "tools": {"scipy": scipy.__version__, "numpy": np.__version__, "statsmodels": statsmodels.__version__,
                   "R": r_version},
         "quick_start": quick_start(), "promotions": promotions(), "hr": hr(), "finance": finance(),
+        "staff_survey": staff_survey(),
     }
+    data["hr_departments"] = hr_departments()
     OUT.write_text(json.dumps(data, indent=1, ensure_ascii=False) + "\n")
     print(f"wrote {OUT}")
 

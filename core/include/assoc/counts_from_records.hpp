@@ -10,6 +10,7 @@
 #include "assoc/count_table.hpp"
 #include "assoc/levels.hpp"
 #include "assoc/matrix.hpp"
+#include "assoc/text_collation.hpp"
 
 namespace assoc {
 
@@ -41,18 +42,21 @@ struct RecordCounts {
 // blank is skipped (and counted in skipped_blank); its weight is not read, but its other label is
 // still a level, so the table has a row and a column for every label of the two ranges, as
 // distinct_levels lists them (a label whose records were all skipped gets zeros). Levels are
-// identified as described in levels.hpp and listed in `order`. Throws Error when the table would
+// identified as described in levels.hpp and listed in `order` (texts in the order of `collation`
+// when sorted, as distinct_levels lists them). Throws Error when the table would
 // have more than `max_cells` cells.
 //
 // Cost: one array lookup per label and record, plus one hash lookup per distinct spelling:
 // independent of the number of levels.
 RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabels& column_labels,
                                  const CellGrid& weights = CellGrid(), LevelOrder order = LevelOrder::sorted,
+                                 const TextCollation& collation = unicode_collation(),
                                  std::size_t max_cells = 1'000'000);
 
 // The same, from ranges of cells (coded first with code_labels: one hash lookup per label).
 RecordCounts counts_from_records(const CellGrid& row_labels, const CellGrid& column_labels,
                                  const CellGrid& weights = CellGrid(), LevelOrder order = LevelOrder::sorted,
+                                 const TextCollation& collation = unicode_collation(),
                                  std::size_t max_cells = 1'000'000);
 
 }  // namespace assoc

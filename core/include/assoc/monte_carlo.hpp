@@ -19,10 +19,18 @@ inline constexpr std::uint64_t default_simulation_seed = 1;
 // Tables above this total are refused: the chi-squared p-value is reliable long before.
 inline constexpr double max_simulation_total = 1e9;
 
+// What makes a random table at least as extreme as the observed one.
+enum class SimulationOrder {
+    statistic,    // its statistic (SimulationOptions::statistic) is at least the observed one
+    probability,  // it is no more probable than the observed table (within ASSOC.EXACT's tie margin,
+                  // exact_tie_tolerance), as the exact test orders tables: the p-value estimates ASSOC.EXACT's
+};
+
 struct SimulationOptions {
     std::uint64_t trials = default_simulation_trials;
     std::uint64_t seed = default_simulation_seed;
     Method statistic = Method::pearson;  // pearson or likelihood_ratio (G²); yates is refused
+    SimulationOrder order = SimulationOrder::statistic;
     // Work cap, in units of about one step of the search for a cell's count (about 6 ns here;
     // drawing a cell costs 20 units more, a cell's share of the statistic 2): 1e9 is about 6 seconds.
     double max_work = 1e9;
@@ -33,13 +41,15 @@ struct SimulationResult {
     double standard_error = 0.0;    // √(p (1 − p) / trials), the Monte Carlo error of p
     std::uint64_t trials = 0;
     std::uint64_t at_least_as_large = 0;  // k: simulated statistics ≥ the observed one
-    double statistic = 0.0;         // the observed statistic
+    double statistic = 0.0;         // the observed statistic; by probability: the observed table's probability
     Method method = Method::pearson;
 };
 
 // Draws `trials` random tables with the table's row and column totals (each table as likely as
 // under independence given the totals) and counts those whose statistic is at least the observed
-// one, less a relative tolerance of 1e-7 so that ties by rounding count as ties.
+// one, less a relative tolerance of 1e-7 so that ties by rounding count as ties. By probability,
+// it counts those whose probability ∏R! ∏C! / (n! ∏x!) is at most the observed table's times
+// (1 + exact_tie_tolerance), the tables the two-sided exact test adds up.
 // Needs whole counts. The tables are drawn row by row, cell by cell, each cell from its conditional
 // hypergeometric distribution (an exact sampler, equivalent to Patefield's AS 159) driven by
 // std::mt19937_64, whose output the C++ standard fixes: the same seed gives the same p-value on

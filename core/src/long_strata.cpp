@@ -1,0 +1,155 @@
+#include "assoc/long_strata.hpp"
+
+#include <cmath>
+#include <map>
+#include <string>
+#include <tuple>
+#include <utility>
+
+#include "assoc/error.hpp"
+#include "assoc/format.hpp"
+
+namespace assoc {
+namespace {
+
+std::string range_row(std::size_t row) { return "row " + std::to_string(row + 1); }
+
+// A label as the range shows it: texts as they are, numbers written out.
+std::string label_text(const Cell& cell) { return cell.is_text() ? cell.as_text() : format_number(cell.as_number(), 15); }
+
+// Labels are compared as cells: the number 5 and the text "5" differ (as in ASSOC.COUNTS).
+struct LabelKey {
+    bool is_text;
+    double number;
+    std::string text;
+    explicit LabelKey(const Cell& cell)
+        : is_text(cell.is_text()), number(cell.is_number() ? cell.as_number() : 0.0), text(cell.is_text() ? cell.as_text() : "") {}
+    friend bool operator<(const LabelKey& a, const LabelKey& b) {
+        return std::tie(a.is_text, a.number, a.text) < std::tie(b.is_text, b.number, b.text);
+    }
+};
+
+bool is_blank_row(const CellGrid& range, std::size_t row) {
+    for (std::size_t c = 0; c < range.columns(); ++c)
+        if (!range.at(row, c).is_blank()) return false;
+    return true;
+}
+
+bool is_header(const CellGrid& range) {
+    bool text_count_column = false;
+    for (std::size_t c = 0; c < range.columns(); ++c) {
+        const Cell& cell = range.at(0, c);
+        if (cell.is_number()) return false;
+        text_count_column = text_count_column || (c >= 2 && cell.is_text());
+    }
+    return text_count_column;
+}
+
+std::string quoted(const std::string& label) { return "\"" + label + "\""; }
+
+}  // namespace
+
+LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
+    require(!range.empty(), "the range is empty; select the strata in the long layout (stratum, row label, counts)");
+    require(range.columns() >= 4,
+            "the range needs a column of stratum labels, a column of row labels and at least 2 columns of counts "
+            "(one per column category); this range has " +
+                std::to_string(range.columns()) + (range.columns() == 1 ? " column" : " columns"));
+    const std::size_t categories = range.columns() - 2;
+    const bool header = is_header(range);
+
+    LongStrata result;
+    result.column_labels.assign(categories, "");
+    if (header)
+        for (std::size_t c = 0; c < categories; ++c)
+            if (range.at(0, c + 2).is_text()) result.column_labels[c] = range.at(0, c + 2).as_text();
+
+    std::map<LabelKey, std::size_t> row_index;      // row label → its row in every stratum's table
+    std::map<LabelKey, std::size_t> stratum_index;  // stratum label → its stratum
+    // Per stratum, the rows of its table as (row label index, range row), and the counts in order.
+    struct Pending {
+        std::vector<std::pair<std::size_t, std::size_t>> rows;
+    };
+    std::vector<Pending> pending;
+    std::vector<std::vector<double>> counts;  // per stratum: row after row of its range rows
+    // Per row label, the stratum and range row where it was last seen: strata are runs, so a label
+    // seen again in the same stratum is a repeat.
+    std::vector<std::size_t> row_last_stratum, row_last_range_row;
+    std::size_t last_stratum = static_cast<std::size_t>(-1);
+
+    for (std::size_t r = header ? 1 : 0; r < range.rows(); ++r) {
+        if (is_blank_row(range, r)) {
+            ++result.empty_rows;
+            continue;
+        }
+        const Cell& stratum = range.at(r, 0);
+        const Cell& row = range.at(r, 1);
+        if (stratum.is_blank())
+            throw Error(range_row(r) + " has no stratum label in column 1; give every row its stratum's label (a blank "
+                                       "is not read as the label above it)");
+        if (row.is_blank()) throw Error(range_row(r) + " has no row label in column 2; every row of counts needs one");
+
+        const auto [found, is_new] = stratum_index.emplace(LabelKey(stratum), result.strata.size());
+        if (is_new) {
+            result.strata.push_back({label_text(stratum), Matrix()});
+            pending.emplace_back();
+            counts.emplace_back();
+        } else if (found->second != last_stratum) {
+            throw Error("the stratum " + quoted(label_text(stratum)) + " comes back at " + range_row(r) +
+                        " after rows of another stratum; keep each stratum's rows together (sort the range by its "
+                        "first column)");
+        }
+        const std::size_t k = found->second;
+        last_stratum = k;
+
+        const auto [row_found, new_row] = row_index.emplace(LabelKey(row), result.row_labels.size());
+        const std::size_t label = row_found->second;
+        if (new_row) {
+            result.row_labels.push_back(label_text(row));
+            row_last_stratum.push_back(k);
+            row_last_range_row.push_back(r);
+        } else if (row_last_stratum[label] == k) {
+            throw Error("the row label " + quoted(label_text(row)) + " appears twice in the stratum " +
+                        quoted(label_text(stratum)) + " (" + range_row(row_last_range_row[label]) + " and " +
+                        range_row(r) + "); give each row of a stratum once");
+        } else {
+            row_last_stratum[label] = k;
+            row_last_range_row[label] = r;
+        }
+        pending[k].rows.emplace_back(label, r);
+
+        for (std::size_t c = 0; c < categories; ++c) {
+            const Cell& cell = range.at(r, c + 2);
+            double value = 0.0;
+            if (!cell.is_blank()) {
+                // The message is built only on failure: a range can hold a million counts.
+                const auto fail = [&](const char* reason) {
+                    throw Error(range_row(r) + ", column " + std::to_string(c + 3) + " holds " + cell.describe() + reason);
+                };
+                if (!cell.is_number()) fail("; counts must be numbers");
+                value = cell.as_number();
+                if (!std::isfinite(value)) fail("; counts must be ordinary numbers");
+                if (value < 0) fail("; counts cannot be negative");
+            }
+            counts[k].push_back(value);
+        }
+    }
+    require(!result.strata.empty(), "the range holds no rows of counts");
+    const double cells = static_cast<double>(result.strata.size()) * static_cast<double>(result.row_labels.size()) *
+                         static_cast<double>(categories);
+    require(cells <= static_cast<double>(max_cells),
+            "the strata make " + format_count(cells) + " count cells (strata × row labels × columns); at most " +
+                format_count(static_cast<double>(max_cells)) + " can be read");
+
+    for (std::size_t k = 0; k < result.strata.size(); ++k) {
+        Matrix table(result.row_labels.size(), categories);
+        for (std::size_t i = 0; i < pending[k].rows.size(); ++i)
+            for (std::size_t c = 0; c < categories; ++c) table(pending[k].rows[i].first, c) = counts[k][i * categories + c];
+        result.strata[k].counts = std::move(table);
+    }
+    return result;
+}
+
+std::string long_stratum_name(const LongStratum& stratum) { return "stratum " + quoted(stratum.label); }
+
+}  // namespace assoc

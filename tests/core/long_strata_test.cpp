@@ -1,0 +1,80 @@
+// Reading r×c strata from the long layout (stratum label, row label, one count per column category).
+// The tables are invented.
+#include <gtest/gtest.h>
+
+#include "assoc/long_strata.hpp"
+#include "test_support.hpp"
+
+using namespace assoc;
+using assoc::test::expect_error;
+using assoc::test::grid;
+
+TEST(LongStrata, ReadsAHeaderRowAndTheStrataInTheirOrder) {
+    const LongStrata read = read_long_strata(grid({{"Office", "Department", "Low", "High"},
+                                                   {"Riverside", "Design", 3, 5},
+                                                   {"Riverside", "Assembly", 7, 2},
+                                                   {"Northgate", "Assembly", 4, 4},
+                                                   {"Northgate", "Design", 1, 6}}));
+    ASSERT_EQ(read.strata.size(), 2u);
+    EXPECT_EQ(read.strata[0].label, "Riverside");
+    EXPECT_EQ(read.strata[1].label, "Northgate");
+    EXPECT_EQ(read.row_labels, (std::vector<std::string>{"Design", "Assembly"}));
+    EXPECT_EQ(read.column_labels, (std::vector<std::string>{"Low", "High"}));
+    // Northgate's rows come in the other order; each lands in its label's row.
+    EXPECT_EQ(read.strata[1].counts(0, 1), 6.0);
+    EXPECT_EQ(read.strata[1].counts(1, 0), 4.0);
+}
+
+TEST(LongStrata, GivesAStratumWithoutSomeRowLabelARowOfZeros) {
+    const LongStrata read = read_long_strata(grid({{"A", "x", 1, 2}, {"A", "y", 3, 4}, {"B", "y", 5, 6}, {"B", "z", 7, 8}}));
+    ASSERT_EQ(read.row_labels.size(), 3u);
+    EXPECT_EQ(read.strata[1].counts(0, 0), 0.0);
+    EXPECT_EQ(read.strata[1].counts(2, 1), 8.0);
+    EXPECT_EQ(read.column_labels, (std::vector<std::string>{"", ""}));
+}
+
+TEST(LongStrata, ReadsNumbersAsLabelsAndBlankCountsAsZero) {
+    const LongStrata read = read_long_strata(grid({{2024, 1, 4, nullptr}, {2024, 2, nullptr, 3}}));
+    EXPECT_EQ(read.strata[0].label, "2024");
+    EXPECT_EQ(read.row_labels, (std::vector<std::string>{"1", "2"}));
+    EXPECT_EQ(read.strata[0].counts(0, 1), 0.0);
+}
+
+TEST(LongStrata, SkipsAndCountsWhollyBlankRows) {
+    const LongStrata read = read_long_strata(grid({{"A", "x", 1, 2}, {nullptr, nullptr, nullptr, nullptr}, {"A", "y", 3, 4}}));
+    EXPECT_EQ(read.empty_rows, 1u);
+    EXPECT_EQ(read.strata.size(), 1u);
+}
+
+TEST(LongStrata, RefusesAStratumWhoseRowsAreNotTogether) {
+    expect_error([] { read_long_strata(grid({{"A", "x", 1, 2}, {"B", "x", 3, 4}, {"A", "y", 5, 6}})); },
+                 "the stratum \"A\" comes back at row 3 after rows of another stratum; keep each stratum's rows "
+                 "together (sort the range by its first column)");
+}
+
+TEST(LongStrata, RefusesARowLabelGivenTwiceInAStratum) {
+    expect_error([] { read_long_strata(grid({{"A", "x", 1, 2}, {"A", "x", 3, 4}})); },
+                 "the row label \"x\" appears twice in the stratum \"A\" (row 1 and row 2); give each row of a stratum once");
+}
+
+TEST(LongStrata, RefusesARowWithoutAStratumLabel) {
+    expect_error([] { read_long_strata(grid({{"A", "x", 1, 2}, {nullptr, "y", 3, 4}})); },
+                 "row 2 has no stratum label in column 1; give every row its stratum's label (a blank is not read as "
+                 "the label above it)");
+}
+
+TEST(LongStrata, RefusesTextAmongTheCounts) {
+    expect_error([] { read_long_strata(grid({{"A", "x", 1, 2}, {"A", "y", "n/a", 4}})); },
+                 "row 2, column 3 holds the text \"n/a\"; counts must be numbers");
+}
+
+TEST(LongStrata, RefusesARangeWithTooFewColumns) {
+    expect_error([] { read_long_strata(grid({{"A", "x", 1}, {"A", "y", 3}})); },
+                 "the range needs a column of stratum labels, a column of row labels and at least 2 columns of counts "
+                 "(one per column category); this range has 3 columns");
+}
+
+TEST(LongStrata, RefusesMoreCountCellsThanItReads) {
+    expect_error([] { read_long_strata(grid({{"A", "x", 1, 2}, {"B", "y", 3, 4}, {"C", "z", 5, 6}}), 12); },
+                 "the strata make 18 count cells (strata × row labels × columns); at most 12 can be read");
+}
