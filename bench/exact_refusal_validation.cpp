@@ -26,31 +26,12 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/exact_test.hpp"
+#include "exact_suite.hpp"
 
 namespace {
 
-struct Table {
-    std::string name;
-    assoc::Matrix counts;
-};
-
-std::vector<Table> read_suite(const char* path) {
-    std::ifstream in(path);
-    std::vector<Table> suite;
-    std::string line;
-    while (std::getline(in, line)) {
-        if (line.empty() || line[0] == '#') continue;
-        std::istringstream fields(line);
-        Table t;
-        std::size_t rows = 0, columns = 0;
-        fields >> t.name >> rows >> columns;
-        t.counts = assoc::Matrix(rows, columns);
-        for (std::size_t r = 0; r < rows; ++r)
-            for (std::size_t c = 0; c < columns; ++c) fields >> t.counts(r, c);
-        suite.push_back(t);
-    }
-    return suite;
-}
+using Table = assoc::bench::SuiteTable;
+using assoc::bench::read_suite;
 
 double total_of(const assoc::Matrix& m) {
     double n = 0;
@@ -131,7 +112,7 @@ double load_average() {
 
 int main(int argc, char** argv) {
     if (argc < 2) {
-        std::fprintf(stderr, "usage: exact_refusal_validation SUITE [--per-shape K] [--seed S] [--seconds X] [--megabytes M]\n");
+        std::fprintf(stderr, "usage: exact_refusal_validation SUITE [--per-shape K] [--seed S] [--seconds X] [--megabytes M] [--list]\n");
         return 2;
     }
     int per_shape = 4;
