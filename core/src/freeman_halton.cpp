@@ -758,7 +758,8 @@ private:
     //   40 times as long as the one before);
     // - the futures left to build, at their pace so far (20 ns a value before it is known);
     // and refuses, with the limit's own message, as soon as that cannot fit in the time left. The
-    // processor time is turned into time on the clock by the share of it the test has had so far.
+    // processor time is turned into time on the clock by the share of it the test has had so far
+    // (at least a quarter).
     // Each part is a lower estimate, so that a table that would finish is not refused; a table
     // whose cost only shows late (many stages that grow slowly) is still refused at the limit.
     void begin_stage(std::size_t k, double units, bool last) {
@@ -805,7 +806,9 @@ private:
         const double future_rate =
             built_future_values_ >= 1e5 ? futures_seconds_ / built_future_values_ : default_future_rate;
         seconds_left += futures_left * future_rate;
-        const double slowdown = cpu >= 0.02 ? std::max(1.0, wall / cpu) : 1.0;
+        // The share is taken as at least a quarter: a test starved of the processor for a moment
+        // (a busy machine) would otherwise see every remaining step magnified many times.
+        const double slowdown = cpu >= 0.05 ? std::clamp(wall / cpu, 1.0, max_slowdown) : 1.0;
         if (wall + seconds_left * slowdown > limits_.max_seconds) fail("time");
         // The futures still to build keep at least half their bytes once equal values merge.
         if (static_cast<double>(memory_) + std::max(0.0, planned_future_bytes_ - built_future_bytes_) >
@@ -813,6 +816,7 @@ private:
             fail("memory");
     }
     static constexpr double early_forward_rate = 15e-9, settle_rate = 1e-9, default_future_rate = 20e-9;
+    static constexpr double max_slowdown = 4;
 
     void check_time() {
         next_time_check_ = work_ + (1u << 12);  // the clock is cheap; check often so limits hold closely
