@@ -28,8 +28,8 @@
 // is counted in bytes before it is allocated, and the clock is read every few thousand steps of
 // every loop whose length is not already bounded by the memory counted. And a table that cannot
 // finish within the cap is refused as soon as that shows, not when the cap is reached: each stage
-// counts its work before doing it, and a forecast of the time (and memory) still needed is
-// checked against what is left (see "The forecast" below; bench/exact_refusal_validation.cpp
+// counts its work before doing it, and a forecast of the time still needed is checked against
+// what is left (see "The forecast" below; bench/exact_refusal_validation.cpp
 // measures how early it refuses and that it does not refuse tables that would finish).
 #include "freeman_halton.hpp"
 
@@ -321,12 +321,14 @@ private:
                                std::size_t cheap_first, std::size_t cheap_end, std::size_t fills_from,
                                std::size_t fills_to) {
         const double log_total = log_total_future(k, node);
-        if (fills_from == fills_to) {
+        const bool planned = fills_from < fills_to;
+        if (!planned) {
             scratch_fills_.clear();  // it keeps its capacity, which stays counted
             collect_fills(k, node, scratch_fills_);
+            fills_from = 0;
+            fills_to = scratch_fills_.size();
         }
-        const std::vector<Fill>& fills = fills_from == fills_to ? scratch_fills_ : planned_fills_;
-        if (fills_from == fills_to) fills_to = fills.size(), fills_from = 0;
+        const std::vector<Fill>& fills = planned ? planned_fills_ : scratch_fills_;
         struct Child {
             const FutureList* futures;
             double fill_value;
@@ -515,7 +517,6 @@ private:
         std::vector<Past> values = k + 2 == columns_.size() ? last_two_columns(node) : combined_futures(k, node);
         built_future_values_ += static_cast<double>(values.size());
         merge_equal_values(values);
-        built_future_bytes_ += 16 * static_cast<double>(values.size());
         take(future_node_bytes() + 4 * values.size() * sizeof(double));
         FutureList list;
         list.log_values.reserve(values.size());
@@ -717,29 +718,26 @@ private:
         });
     }
 
-    // The number of values futures_of(k, node) will hold before equal values merge (memoised).
+    // A lower bound on the values futures_of(k, node) builds (the measure of its work), counted
+    // without building them (memoised): a list over the last two columns builds one value per fill
+    // of its column; a combined list at least one per fill (each list it is made of holds a value
+    // or more; how many survive the merging of equal values is not known in advance).
     double future_size(std::size_t k, const NodeKey& node) {
         auto& memo = future_sizes_[k - meeting_];
-        if (auto found = memo.find(node); found != memo.end()) return found->second.values;
-        // The values built (before equal ones merge, the measure of the work), and a lower bound
-        // on those kept: all of a list over the last two columns (equal values are rare there), and
-        // at least the longest of the lists a combined list is made of (one of them shifted).
-        double size = 0, kept = 0;
+        if (auto found = memo.find(node); found != memo.end()) return found->second;
+        double size = 0;
         if (k + 2 == columns_.size()) {
-            size = kept = count_fills(node, columns_[k], std::numeric_limits<double>::infinity());
+            size = count_fills(node, columns_[k], std::numeric_limits<double>::infinity());
         } else {
             std::vector<NodeKey> children;
             for_each_fill(node, columns_[k], [&](const NodeKey& child, double, double) { push(children, child); });
-            for (const NodeKey& child : children) {
-                size += future_size(k + 1, child);
-                kept = std::max(kept, future_sizes_[k + 1 - meeting_].find(child)->second.kept);
-            }
+            for (const NodeKey& child : children) future_size(k + 1, child);
+            size = static_cast<double>(children.size());
             release(children);
         }
-        take(map_node_bytes<std::unordered_map<NodeKey, FutureSize, NodeKeyHash>>());
-        memo.emplace(node, FutureSize{size, kept});
+        take(map_node_bytes<std::unordered_map<NodeKey, double, NodeKeyHash>>());
+        memo.emplace(node, size);
         planned_future_values_ += size;
-        planned_future_bytes_ += 16 * kept;  // a kept value takes 32 bytes (four doubles); half of it
         return size;
     }
 
@@ -810,10 +808,6 @@ private:
         // (a busy machine) would otherwise see every remaining step magnified many times.
         const double slowdown = cpu >= 0.05 ? std::clamp(wall / cpu, 1.0, max_slowdown) : 1.0;
         if (wall + seconds_left * slowdown > limits_.max_seconds) fail("time");
-        // The futures still to build keep at least half their bytes once equal values merge.
-        if (static_cast<double>(memory_) + std::max(0.0, planned_future_bytes_ - built_future_bytes_) >
-            static_cast<double>(limits_.max_memory_bytes))
-            fail("memory");
     }
     static constexpr double early_forward_rate = 15e-9, settle_rate = 1e-9, default_future_rate = 20e-9;
     static constexpr double max_slowdown = 4;
@@ -843,10 +837,7 @@ private:
     double log_k_ = 0, threshold_ = 0;
     std::size_t meeting_ = 0;  // the first stage whose nodes keep all their futures
     std::vector<std::unordered_map<NodeKey, FutureList, NodeKeyHash>> futures_;
-    struct FutureSize {
-        double values, kept;
-    };
-    std::vector<std::unordered_map<NodeKey, FutureSize, NodeKeyHash>> future_sizes_;
+    std::vector<std::unordered_map<NodeKey, double, NodeKeyHash>> future_sizes_;
     std::vector<unsigned> rows_, capacity_, fill_, child_;
     std::vector<Fill> planned_fills_, scratch_fills_;
     std::size_t memory_ = 0;  // bytes of working memory held, as counted by take and give_back
@@ -859,7 +850,6 @@ private:
     double stage_started_ = 0, stage_futures_seconds_ = 0;
     double forward_rate_ = early_forward_rate;
     double planned_future_values_ = 0, built_future_values_ = 0;
-    double planned_future_bytes_ = 0, built_future_bytes_ = 0;
     std::size_t stage_ = 0;
     bool last_stage_ = false;
     double window_units_ = 0, window_seconds_ = 0;

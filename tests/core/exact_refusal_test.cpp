@@ -40,7 +40,8 @@ TEST(ExactRefusal, RefusesATableOfTwoHundredThousandCountsAtOnceEvenWithTenMinut
 }
 
 // bench/exact_suite.txt "4x4_n80" (invented): the futures of its last two columns hold about
-// 530,000 values, at least 8 MB once built; with 5 MB it is refused before building them.
+// 530,000 values, more than 5 MB; the refusal names the memory, and comes at the memory limit,
+// not after ten minutes.
 TEST(ExactRefusal, RefusesATableWhoseFuturesCannotFitInTheMemoryLimit) {
     expect_error([] {
         exact_p_value(counts_table({{6, 3, 0, 4}, {4, 6, 1, 6}, {5, 2, 4, 7}, {7, 2, 6, 17}}), Side::two_sided,
