@@ -75,6 +75,9 @@ class Options:
     # Words of other functions that these arguments refuse with a specific message (not just
     # "unknown"), so that a mix-up explains itself.
     refused: Dict[str, str] = field(default_factory=dict)
+    # A C++ function that turns a range (an assoc::CellGrid) given instead of a word into cpp_type; ""
+    # when the argument takes words only.
+    from_range: str = ""
 
 
 @dataclass
@@ -166,11 +169,12 @@ ADJUSTMENTS = Options("adjustment", "adjustment", "assoc::PAdjustment", [
     Word("none", "no adjustment: each cell on its own", "assoc::PAdjustment::none"),
 ], include="assoc/p_value_adjustment.hpp")
 
-LEVEL_ORDERS = Options("level_order", "order", "assoc::LevelOrder", [
+LEVEL_ORDERS = Options("level_order", "order", "assoc::LevelOrdering", [
     Word("sorted", "numbers ascending, then texts in alphabetical order as the office's language reads it "
-                   "(case and accents only break ties)", "assoc::LevelOrder::sorted"),
-    Word("first", "in the order in which the labels first appear", "assoc::LevelOrder::first_seen"),
-], include="assoc/levels.hpp")
+                   "(case and accents only break ties)", "assoc::LevelOrdering(assoc::LevelOrder::sorted)"),
+    Word("first", "in the order in which the labels first appear",
+         "assoc::LevelOrdering(assoc::LevelOrder::first_seen)"),
+], include="assoc/levels.hpp", from_range="assoc::LevelOrdering::from_range")
 
 CONTINUITY = Options("continuity", "correction", "assoc::Continuity", [
     Word("corrected", "with the continuity correction of ½", "assoc::Continuity::corrected"),
@@ -196,7 +200,7 @@ TABLE = Argument(
     "table", "table",
     "The range of counts: one row per category of one variable, one column per category of the other. "
     "A first row and a first column of text labels are read as headers. Blank cells count as 0; "
-    "rows and columns of zeros are set aside.")
+    "rows and columns of zeros, and rows and columns labelled as totals, are set aside.")
 
 TWO_BY_TWO = Argument(
     "table", "table",
@@ -214,7 +218,8 @@ STRATA_RANGE = Argument(
     "strata", "range",
     "The 2×2 tables of the strata (for example one per department): either one row per stratum with its "
     "four counts a, b, c, d (row 1: a, b; row 2: c, d), or the 2×2 tables stacked in two columns. A first "
-    "row and a first column of text labels are read as headers.")
+    "row and a first column of text labels are read as headers; stacked tables may name their strata in a "
+    "label column before the group labels.")
 
 
 FUNCTIONS = [
@@ -399,19 +404,26 @@ FUNCTIONS = [
          Argument("column_labels", "labels",
                   "One row or column of labels, as long as row_labels: the columns of the table."),
          Argument("weights", "optional_range",
-                  "Optional. One number of 0 or more per record, as long as the labels; each record counts once "
-                  "when omitted."),
-         Argument("order", "option", "Optional. The order of the rows and columns.", options=LEVEL_ORDERS)],
+                  "Optional. One number of 0 or more per record, as long as the labels: how many people or items "
+                  "the record stands for (a frequency weight, never an amount such as pay); a record with a blank "
+                  "weight is skipped. Each record counts once when omitted."),
+         Argument("order", "option", "Optional. The order of the rows and columns: a range that lists the labels "
+                                     "in the wanted order (an answer scale: Poor, Fair, Good, Excellent), or a word.",
+                  options=LEVEL_ORDERS)],
         "array", "the counts only, one row per label of ASSOC.LEVELS(row_labels) and one column per label of "
                  "ASSOC.LEVELS(column_labels), in the same order",
         ["The result holds no labels, so it can go straight into the other ASSOC functions. For a table with "
          "headers, put ASSOC.LEVELS(row_labels) in the column to its left and "
          "TRANSPOSE(ASSOC.LEVELS(column_labels)) in the row above it (both with the same order), and give the "
          "whole block to ASSOC.REPORT.",
-         "A record with a blank label is skipped. Labels are compared exactly: \"Sales\", \"sales\" and "
-         "\"Sales \" are three labels (ASSOC.CHECK with \"counts\" points out labels that differ only in "
-         "capitals), and the number 5 and the text \"5\" are two. A label whose records are all skipped gets a "
-         "row (or column) of zeros, which the other functions set aside.",
+         "A record with a blank label (or a blank weight) is skipped. Labels that differ only by spaces at "
+         "their start or end are one label (\"No\" and \"No \"); otherwise labels are compared exactly: "
+         "\"Sales\" and \"sales\" are two labels, and the number 5 and the text \"5\" are two (ASSOC.CHECK "
+         "with \"counts\" points out both). A label whose records are all skipped gets a row (or column) of "
+         "zeros, which the other functions set aside.",
+         "Whole columns (B:B) may be given: the blank cells below the last record are no records, and a first "
+         "cell that holds a text found nowhere else in the column is its header and is left out (ASSOC.CHECK "
+         "says so). A weight that is negative, or text, is an error that names its row.",
          "The order of the rows and columns is that of ASSOC.LEVELS (see there for how texts are sorted)."],
         "=ASSOC.COUNTS(B2:B200; C2:C200)"),
     Function(
@@ -419,9 +431,15 @@ FUNCTIONS = [
         "The distinct labels of a row or column of records, blanks left out: the row or column headers of "
         "ASSOC.COUNTS.",
         [Argument("labels", "labels", "One row or column of labels, one per record."),
-         Argument("order", "option", "Optional. The order of the labels.", options=LEVEL_ORDERS)],
-        "cells", "a column of labels (numbers stay numbers)",
-        ["Use TRANSPOSE(ASSOC.LEVELS(…)) for a row.",
+         Argument("order", "option", "Optional. The order of the labels: a range that lists them in the wanted "
+                                     "order (an answer scale: Poor, Fair, Good, Excellent), or a word.",
+                  options=LEVEL_ORDERS)],
+        "cells", "a column of labels (numbers stay numbers); labels that are all texts compare equal to typed "
+                 "text in `=`, MATCH, VLOOKUP, COUNTIF and EXACT",
+        ["Use TRANSPOSE(ASSOC.LEVELS(…)) for a row, and ROWS(ASSOC.LEVELS(…)) for the number of labels (the "
+         "size of the range to select for the array). With an order range, every label it lists is a level, "
+         "also one that no record holds, and a label it lacks is an error that names it. Labels are read as "
+         "ASSOC.COUNTS reads them (spaces at the ends left out, a whole column's header left out).",
          "Sorted texts follow the Unicode Collation Algorithm through LibreOffice's own collator for the locale "
          "setting (Tools ▸ Options ▸ Language Settings ▸ Languages): letters first, without regard to case or "
          "accents, so \"Éclair\" comes between \"apple\" and \"zeta\"; then accents (\"resume\" before "
@@ -446,6 +464,12 @@ FUNCTIONS = [
          "stratum. Strata without counts in both rows and both columns add nothing and are left out "
          "(ASSOC.CHECK with \"strata\" names them). ASSOC.HOMOGENEITY tests whether one common odds ratio fits "
          "all strata.",
+         "In stacked tables the labels tell which rows form a stratum: a first label column that names the "
+         "strata (blank meaning \"as above\"), a stratum's name on its first row, its name on each of its rows, "
+         "or group labels that repeat (Women, Men, Women, Men). A stratum that does not have exactly 2 rows is "
+         "an error that names it and its rows; a stratum whose groups come in the other order is matched by "
+         "their labels. Without labels (or with labels that are all different) the rows are taken two by two, "
+         "and ASSOC.CHECK says so when there are labels. Rows labelled as totals are left out.",
          "The continuity correction never exceeds the difference it corrects: the statistic is "
          "(|D| − min(½, |D|))² / V, with D the sum over strata of observed minus expected top-left counts and V "
          "its variance, so when |D| is below ½ the statistic is 0 and the p-value 1. The correction allows for "
@@ -473,7 +497,10 @@ FUNCTIONS = [
         "row", "one row: the p-value, the statistic, the degrees of freedom; a plain entry shows the p-value",
         ["With \"exact\" the statistic is the smaller of the two counts of changes and the degrees of freedom "
          "are 0 (a binomial test has none). Rows and columns of zeros are kept, since row i and column i must "
-         "stay the same category.",
+         "stay the same category; rows and columns labelled as totals are left out.",
+         "When both the rows and the columns carry labels, the columns are matched to the rows by their labels "
+         "(spaces at the ends and capitals aside), whatever their order; labels that do not match are an error "
+         "that names them. With labels on one side only, the columns must come in the rows' order.",
          "Bowker's test adds (n_ij − n_ji)² / (n_ij + n_ji) over the pairs of categories, and a pair in which "
          "nobody changed either way (n_ij = n_ji = 0) is left out with its degree of freedom: it says nothing "
          "about symmetry, and its term would be 0 / 0. The degrees of freedom are the number of pairs with "
@@ -498,14 +525,21 @@ FUNCTIONS = [
         "ASSOC.IMPACT", "impact",
         "Selection rates by group and their ratio to the highest group's rate, flagging groups below a "
         "threshold (four-fifths by default).",
-        [Argument("selected", "range", "One row or column: the number selected in each group."),
+        [Argument("selected", "range", "One row or column: the number selected in each group; a text header "
+                                       "at its start is allowed."),
          Argument("considered", "range", "One row or column as long as selected: the number considered "
-                                         "(applicants, candidates) in each group."),
+                                         "(applicants, candidates) in each group; a text header at its start is "
+                                         "allowed."),
          Argument("threshold", "number", "Optional. The ratio below which a group is flagged, above 0 and at "
                                          "most 1; 0.8 (four-fifths) when omitted.", default=0.8)],
         "cells", "one row per group: the selection rate, the ratio to the highest rate, and a flag text when the "
-                 "ratio is below the threshold (empty otherwise); enter it over 3 columns and one row per group",
-        ["The four-fifths rule of thumb comes from the US Uniform Guidelines on Employee Selection Procedures, "
+                 "ratio is below the threshold (empty otherwise); a group with no one considered has an empty rate "
+                 "and ratio and its reason as the text; enter it over 3 columns and one row per group",
+        ["A header in the first cells is left out, and so are the blank cells after the last group (whole columns "
+         "such as B:B may be given); the result has one row per group below the header. A group whose two cells "
+         "are blank, or with 0 considered, has no selection rate: its row is left empty with its reason, and the "
+         "other groups are compared.",
+         "The four-fifths rule of thumb comes from the US Uniform Guidelines on Employee Selection Procedures, "
          "29 CFR 1607.4(D). It is a screening rule, not a test: with few people a large difference can be "
          "chance, and with many a small one can matter. Follow applicable law and policy and seek qualified "
          "advice."],
@@ -527,8 +561,15 @@ FUNCTIONS = [
          "with its defaults is left out when another one can). The verdict on the chi-squared test is given "
          "for functions that take a table of counts for the test of independence.",
          "For a function that takes two ranges (ASSOC.COUNTS, ASSOC.IMPACT), give ASSOC.CHECK one range with "
-         "the two side by side as columns, in the order of the arguments; for one that takes only numbers "
-         "(ASSOC.POWER), give its numbers in one row or column."],
+         "the two side by side as columns, in the order of the arguments (for ASSOC.COUNTS a third column of "
+         "weights may follow); for one that takes only numbers (ASSOC.POWER), give its numbers in one row or "
+         "column. An order given as a range (ASSOC.LEVELS, ASSOC.COUNTS) goes in one more column after them "
+         "(for ASSOC.COUNTS after the weights' column, blank when there are no weights).",
+         "The verdict is \"Doubtful\" whenever the table itself is ambiguous, whatever its expected counts: "
+         "counts that are not whole numbers (weighted data), a line labelled as data that holds the sum of the "
+         "others, rows that each add up to exactly 100. It names the rows and columns set aside (empty ones and "
+         "totals) in a short summary, and points to ASSOC.PAIRED when the rows and the columns carry the same "
+         "labels. An unknown word gets the nearest words Assoc knows."],
         '=ASSOC.CHECK(A1:D3; "exact")'),
     Function(
         "ASSOC.REPORT", "report",
@@ -539,13 +580,23 @@ FUNCTIONS = [
         "cells", "a two-column array of labels and values, one row per line of the report (22 lines); enter it "
                  "as an array formula over 2 columns and 22 rows",
         ["When the corner cell of a table with both headers names the variables as \"rows / columns\" "
-         "(for example \"Department / Outcome\"), the conclusion uses those names.",
+         "(for example \"Department / Outcome\"), the conclusion uses those names; a corner without \"/\" is "
+         "a title and is not used.",
+         "When independence is rejected, the conclusion says how strong the association is, in words, from "
+         "Cramér's V turned into Cohen's w = V·√(min(rows, columns) − 1): below 0.1 very weak, from 0.1 weak, "
+         "from 0.3 moderate, from 0.5 strong (Cohen's conventions for w, 1988; \"very weak\" for less than "
+         "small is common practice). So a tiny p-value from a very large table can read \"very weak\". When "
+         "the interval of V is 0 to 0 (X² below the 2.5% point of its distribution under independence), the "
+         "conclusion explains it.",
          "The exact p-value is computed when the counts are whole and the test finishes within 2 seconds and "
          "100 MB of memory; otherwise its line says why not (ASSOC.EXACT allows 5 seconds and 400 MB, "
          "ASSOC.SIMULATE estimates the p-value). Like ASSOC.EXACT's, the exact line is remembered for an "
          "unchanged table while LibreOffice runs. The cells "
          "that stand out are the (at most 3) cells with the largest adjusted residuals beyond ±2, named by "
-         "their labels.",
+         "their labels (or by their row and column in the range); in a table of two columns (rows) only the "
+         "first column's (row's) cells are named, since the other's only repeat them with the sign turned.",
+         "In LibreOffice 7.4 the texts of the report compare unequal to typed text (it also holds numbers; see "
+         "the guide's workbook habits): use G5&\"\" to compare a line's label or text.",
          "The 95% interval of Cramér's V inverts the noncentral chi-squared distribution of X²: the limits "
          "λ_L and λ_U of its noncentrality are those with P(X² ≥ observed | λ) = 2.5% and 97.5%, and each "
          "becomes V = √(λ / (n (min(r, c) − 1))), at most 1; a limit is 0 when even λ = 0 makes the observed "

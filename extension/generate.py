@@ -287,6 +287,8 @@ def read_argument(argument):
     if argument.kind == "number":
         fallback = "std::nullopt" if argument.default is None else repr(float(argument.default))
         return f'read_number({argument.name}, "{argument.name}", {fallback})'
+    if argument.kind == "option" and argument.options.from_range:
+        return f"{words_variable(argument.options)}.read({argument.name}, {argument.options.from_range})"
     if argument.kind == "option":
         return f"{words_variable(argument.options)}.read({argument.name})"
     return f"to_cell({argument.name})"
@@ -297,11 +299,18 @@ def trial_body(function, option_argument=None, word=None):
     whole range, one with several gets a column each, one without ranges reads its numbers from the
     cells; everything else takes its default (or `word` for `option_argument`)."""
     ranges = ranges_of(function)
+    optional = [a for a in function.arguments if a.kind == "optional_range"]
     numbers = [a for a in function.arguments if a.kind == "number"]
+    # An option that also takes a range (the order of ASSOC.LEVELS): its list may come as the last column.
+    listed = next((a for a in function.arguments if a.kind == "option" and a.options.from_range), None)
     name = cpp_string(function.name)
     statements = []
-    if len(ranges) > 1:
-        statements.append(f"const auto parts = split_columns(range, {len(ranges)}, {name});")
+    split = len(ranges) > 1 or (ranges and listed is not None)
+    if split:
+        # Side by side: one column per range, then (when given) one per optional range (COUNTS' weights),
+        # then the list of an option that takes one.
+        extra = len(optional) + (1 if listed is not None else 0)
+        statements.append(f"const auto parts = split_columns(range, {len(ranges)}, {extra}, {name});")
     if not ranges:
         required = sum(1 for a in numbers if a.default is None)
         names = ", ".join(cpp_string(a.name) for a in numbers)
@@ -309,8 +318,10 @@ def trial_body(function, option_argument=None, word=None):
     values = []
     for argument in function.arguments:
         if argument.kind in REQUIRED_RANGE_KINDS:
-            part = "range" if len(ranges) == 1 else f"parts[{ranges.index(argument)}]"
+            part = f"parts[{ranges.index(argument)}]" if split else "range"
             values.append(f"assoc::code_labels({part})" if argument.kind == "labels" else part)
+        elif argument.kind == "optional_range" and split:
+            values.append(f"parts[{len(ranges) + optional.index(argument)}]")
         elif argument.kind == "optional_range":
             values.append("assoc::CellGrid()")
         elif argument.kind == "number" and ranges:
@@ -319,9 +330,14 @@ def trial_body(function, option_argument=None, word=None):
             i = numbers.index(argument)
             values.append(f"numbers[{i}]" if argument.default is None
                           else f"(numbers.size() > {i} ? numbers[{i}] : {float(argument.default)!r})")
+        elif argument.kind == "option" and argument is option_argument:
+            values.append(word_value(argument.options, word))
+        elif argument.kind == "option" and argument is listed and split:
+            order = f"parts[{len(ranges) + len(optional)}]"
+            values.append(f"({order}.empty() ? {omitted_value(argument.options)} : "
+                          f"{argument.options.from_range}({order}))")
         elif argument.kind == "option":
-            values.append(word_value(argument.options, word) if argument is option_argument
-                          else omitted_value(argument.options))
+            values.append(omitted_value(argument.options))
         else:
             values.append("assoc::Cell::blank()")
     # Through to_any, as the UNO method does, so that a result that is not a finite number fails here too.
@@ -422,6 +438,17 @@ category of the other.
   a header column. Labels are used in messages and in the conclusion of `ASSOC.REPORT`.
 - Blank cells count as 0. A row or column of zeros is set aside: it takes no part in the test and is
   mentioned by `ASSOC.CHECK`. Array results keep the shape of the body and show 0 there.
+- Totals are never tested as counts. A row or column labelled as a total ("Total", "Grand total",
+  "Subtotal", "Sum", "All", "Summe", "Gesamt", "Somme", "Totale", "Totaal", "Totalt", … in any case) is
+  set aside like an empty one. A first or last row or column without a label that holds the sum of the
+  others is refused (label it "Total", or leave it out); one labelled as data is kept and makes the
+  verdict of `ASSOC.CHECK` "Doubtful".
+- Percentages and shares are not counts: rows (or columns) that each add up to 100 or to 1, or a table
+  that adds up to 100 or 1, with entries that are not whole numbers, are refused. Counts that are not
+  whole numbers (weighted data) are never called "Sound".
+- Labels are read without the spaces at their start and end. Messages count rows and columns of the
+  range as selected, a header row or column being number 1, and name them by their labels where the
+  range has labels.
 - Text among the counts, negative counts, and a table with fewer than 2 rows or 2 columns holding
   counts are errors.
 - Trailing blank rows and columns are not part of a range: a whole-column reference (`A:E`), a
@@ -438,7 +465,7 @@ Option words may be written in upper or lower case; an omitted option takes the 
 (where the choice depends on the table, the function says so).
 When a function cannot compute a result for its input it shows **Err:502**. `ASSOC.CHECK` with the
 same table (and the same option word) explains why in plain words. An unknown option word is such an
-error; its message lists the accepted words.
+error; its message names the nearest accepted words.
 
 Functions that return several values (arrays, or one row of parts with the headline value first) are
 entered as array formulas (Ctrl+Shift+Enter) over a range of the right size; entered in a single

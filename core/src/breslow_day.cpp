@@ -33,7 +33,8 @@ double fitted_a(const Stratum& t, double psi) {
 
 HomogeneityResult breslow_day_test(const Strata& strata) {
     HomogeneityResult result;
-    result.remarks = detail::uninformative_strata_remarks(strata);
+    result.remarks = strata.remarks;
+    for (std::string& remark : detail::uninformative_strata_remarks(strata)) result.remarks.push_back(std::move(remark));
     for (const Stratum& t : strata.tables) result.strata_used += t.informative() ? 1 : 0;
     require(result.strata_used >= 2,
             "the test of equal odds ratios needs at least 2 strata with counts in both rows and both columns");

@@ -10,7 +10,13 @@ namespace assoc {
 std::string Cell::describe() const {
     switch (kind_) {
     case Kind::blank: return "a blank";
-    case Kind::text: return "the text \"" + text_ + "\"";
+    case Kind::text: {
+        // Shown as typed (its spaces are part of what is wrong), but never more than 40 characters.
+        if (text_.size() <= 40) return "the text \"" + text_ + "\"";
+        std::size_t cut = 40;
+        while (cut > 0 && (static_cast<unsigned char>(text_[cut]) & 0xC0) == 0x80) --cut;  // a UTF-8 boundary
+        return "the text \"" + text_.substr(0, cut) + "…\"";
+    }
     case Kind::number:
         if (std::isnan(number_)) return "a value that is not a number";
         if (std::isinf(number_)) return "an infinite value";

@@ -11,6 +11,7 @@ namespace assoc {
 CommonRiskRatio common_risk_ratio(const Strata& strata, double confidence) {
     detail::check_confidence(confidence);
     CommonRiskRatio result;
+    result.remarks = strata.remarks;  // how the strata were read (rows paired in order, totals left out)
     double r = 0.0, s = 0.0, numerator = 0.0;  // Σ a·n0/n, Σ c·n1/n, Σ (a·n1·d + c·n0·b)/n²
     for (std::size_t k = 0; k < strata.tables.size(); ++k) {
         const Stratum& t = strata.tables[k];

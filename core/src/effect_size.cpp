@@ -48,4 +48,18 @@ double contingency_coefficient(const CountTable& table) {
 
 double cohens_w(const CountTable& table) { return std::sqrt(pearson_statistic(table) / table.total()); }
 
+std::string strength_in_words(double cramers_v, const CountTable& table) {
+    const double k = static_cast<double>(std::min(table.rows(), table.columns())) - 1;
+    const double w = cramers_v * std::sqrt(k);
+    if (w < 0.1) return "very weak";
+    if (w < 0.3) return "weak";
+    if (w < 0.5) return "moderate";
+    return "strong";
+}
+
+std::string strength_bands() {
+    return "Cohen's bands for w = V·√(min(rows, columns) − 1): below 0.1 very weak, from 0.1 weak, from 0.3 "
+           "moderate, from 0.5 strong";
+}
+
 }  // namespace assoc

@@ -15,15 +15,18 @@ namespace {
 std::string values_phrase(std::size_t n) { return std::to_string(n) + (n == 1 ? " value" : " values"); }
 
 // One row or one column of numbers, with the labels a table may have; zeros are kept in place.
-std::vector<double> read_line(const CellGrid& range) {
+// `counts_only`: percentages and shares are refused (observed counts), or allowed (expected shares).
+std::vector<double> read_line(const CellGrid& range, bool counts_only) {
     ReadOptions options;
     options.require_two_by_two = false;
+    options.counts_only = counts_only;
     const CountTable table = read_count_table(range, options);
-    require(table.body_rows() == 1 || table.body_columns() == 1,
-            "select one row or one column of numbers; this range has " + std::to_string(table.body_rows()) +
-                " rows and " + std::to_string(table.body_columns()) + " columns of numbers");
-    // read_count_table sets all-zero rows aside; a category observed 0 times still counts here.
-    return table.to_body_shape(table.counts()).values();
+    // Total lines are left out; a category observed 0 times still counts here.
+    const Matrix counts = table.category_counts();
+    require(counts.rows() == 1 || counts.columns() == 1,
+            "select one row or one column of numbers; this range has " + std::to_string(counts.rows()) +
+                " rows and " + std::to_string(counts.columns()) + " columns of numbers");
+    return counts.values();
 }
 
 void check_values(const std::vector<double>& values, const char* what) {
@@ -83,11 +86,11 @@ GoodnessOfFit goodness_of_fit(const std::vector<double>& observed, const std::ve
 }
 
 GoodnessOfFit goodness_of_fit(const CellGrid& observed, const CellGrid& expected, double estimated) {
-    const std::vector<double> observed_values = read_line(observed);
+    const std::vector<double> observed_values = read_line(observed, true);
     std::vector<double> expected_values;
     if (!expected.empty()) {
         try {
-            expected_values = read_line(expected);
+            expected_values = read_line(expected, false);
         } catch (const Error& error) {
             // The reader's messages speak of counts; say which range they are about.
             throw Error(std::string("in the expected range: ") + error.what());

@@ -5,56 +5,85 @@
 #include <cmath>
 #include <cstddef>
 #include <cstdint>
+#include <limits>
 #include <string>
 #include <string_view>
 #include <unordered_map>
+#include <utility>
 #include <vector>
 
 #include "assoc/cell.hpp"
 #include "assoc/coded_labels.hpp"
 #include "assoc/error.hpp"
 #include "assoc/levels.hpp"
+#include "assoc/wording.hpp"
 #include "assoc/text_collation.hpp"
 
 namespace assoc::detail {
 
-// A blank cell, or a text of no characters, is no label: its record is skipped.
+// A blank cell, or a text of no characters or only spaces, is no label: its record is skipped.
 inline bool is_blank_label(const Cell& cell) {
-    return cell.is_blank() || (cell.is_text() && cell.as_text().empty());
+    return cell.is_blank() || (cell.is_text() && trimmed_label(cell.as_text()).empty());
 }
 
 class LevelIndex {
 public:
-    // The index of `label` (a finite number or a non-empty text), adding it when it is new.
-    // The cell must outlive the index: texts are keyed by views into it.
+    static constexpr std::uint32_t none = std::numeric_limits<std::uint32_t>::max();
+
+    // The index of `label` (a finite number or a text that is not only spaces), adding it when it is
+    // new. Texts are keyed without the spaces at their ends, so "No" and "No " are one level (shown
+    // as "No"). The cell must outlive the index: texts are keyed by views into it.
     std::uint32_t intern(const Cell& label) {
         const auto next = static_cast<std::uint32_t>(levels_.size());
         if (label.is_text()) {
-            const auto [where, added] = texts_.try_emplace(std::string_view(label.as_text()), next);
-            if (added) levels_.push_back(&label);
+            const std::string_view key = trimmed_label(label.as_text());
+            const auto [where, added] = texts_.try_emplace(key, next);
+            if (added) add(label, key.size() == label.as_text().size() ? label : Cell::text(std::string(key)));
+            else if (label.as_text() != spelled_[where->second]->as_text()) note_spaces(where->second, label);
             return where->second;
         }
         // + 0.0 turns −0 into +0, so both land on one level.
         const auto [where, added] = numbers_.try_emplace(label.as_number() + 0.0, next);
-        if (added) levels_.push_back(&label);
+        if (added) add(label, Cell::number(label.as_number() + 0.0));
         return where->second;
     }
+    // The index of the level `label` would be, or `none`.
+    std::uint32_t find(const Cell& label) const;
 
     std::size_t size() const { return levels_.size(); }
 
+    // Whether any level is among the labels of a listed order.
+    bool any_listed(const LevelOrdering& order) const;
+    // For a listed order: refuses the levels the list lacks (an Error naming them), then adds the listed
+    // labels that no record holds as levels of their own. Returns a sentence naming those (or "").
+    // `order` must outlive the index. `what` is e.g. "row labels".
+    std::string add_listed(const LevelOrdering& order, const std::string& what);
+
     // For each index, the level's position when the levels are listed in `order` (texts in the
     // order of `collation` when sorted).
-    std::vector<std::uint32_t> positions(LevelOrder order, const TextCollation& collation) const;
+    std::vector<std::uint32_t> positions(const LevelOrdering& order, const TextCollation& collation) const;
     // The levels, listed in `order`.
-    std::vector<Cell> listed(LevelOrder order, const TextCollation& collation) const;
-    // Sentences about labels that look alike but are counted apart: texts that differ only in
-    // capitals, and a text that reads like one of the numbers. `what` is e.g. "row labels".
+    std::vector<Cell> listed(const LevelOrdering& order, const TextCollation& collation) const;
+    // Sentences about labels that look alike: texts merged because they differ only by spaces at
+    // their ends, texts that differ only in capitals (counted apart), and a text that reads like one
+    // of the numbers. `what` is e.g. "row labels".
     std::vector<std::string> lookalike_remarks(const std::string& what) const;
 
 private:
+    void add(const Cell& spelling, Cell level) {
+        spelled_.push_back(&spelling);
+        levels_.push_back(std::move(level));
+    }
+    void note_spaces(std::uint32_t level, const Cell& spelling) {
+        if (space_merges_++ == 0) first_space_merge_ = {spelled_[level]->as_text(), spelling.as_text()};
+    }
+
     std::unordered_map<std::string_view, std::uint32_t> texts_;
     std::unordered_map<double, std::uint32_t> numbers_;
-    std::vector<const Cell*> levels_;  // in order of first appearance
+    std::vector<Cell> levels_;           // trimmed, in order of first appearance
+    std::vector<const Cell*> spelled_;   // each level's first spelling
+    std::size_t space_merges_ = 0;       // spellings merged with another that differs only by end spaces
+    std::pair<std::string, std::string> first_space_merge_;
 };
 
 // Throws the Error for a label that is an infinite or not-a-number value.
@@ -89,6 +118,7 @@ public:
         return level;
     }
     const LevelIndex& index() const { return index_; }
+    LevelIndex& index() { return index_; }
 
 private:
     static constexpr std::uint32_t unassigned = CodedLabels::blank - 1;

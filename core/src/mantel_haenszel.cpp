@@ -8,6 +8,7 @@
 #include "assoc/chi_squared_distribution.hpp"
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "assoc/wording.hpp"
 #include "boost_policy.hpp"
 #include "common_odds_ratio.hpp"
 
@@ -35,12 +36,12 @@ double common_odds_ratio(const Strata& strata) {
 }
 
 std::vector<std::string> uninformative_strata_remarks(const Strata& strata) {
-    std::vector<std::string> remarks;
+    std::vector<std::string> names;
     for (std::size_t k = 0; k < strata.tables.size(); ++k)
-        if (!strata.tables[k].informative())
-            remarks.push_back("The " + stratum_name(strata, k) +
-                              " has an empty row or column and adds nothing to the test.");
-    return remarks;
+        if (!strata.tables[k].informative()) names.push_back(stratum_name(strata, k).substr(8));  // "3 (Legal)"
+    if (names.empty()) return {};
+    if (names.size() == 1) return {"The stratum " + names[0] + " has an empty row or column and adds nothing to the test."};
+    return {"The strata " + name_list(names) + " have an empty row or column and add nothing to the test."};
 }
 
 }  // namespace detail
@@ -50,7 +51,8 @@ MantelHaenszelResult mantel_haenszel_test(const Strata& strata, Continuity conti
             "the confidence level must lie between 0 and 1, not " + format_number(confidence));
     MantelHaenszelResult result;
     result.confidence = confidence;
-    result.remarks = detail::uninformative_strata_remarks(strata);
+    result.remarks = strata.remarks;
+    for (std::string& remark : detail::uninformative_strata_remarks(strata)) result.remarks.push_back(std::move(remark));
 
     double difference = 0.0, variance = 0.0;
     // Sums for the Robins–Breslow–Greenland variance: R = Σ ad/n, S = Σ bc/n and the P·R, P·S + Q·R,

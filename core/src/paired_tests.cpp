@@ -9,6 +9,7 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "assoc/wording.hpp"
 #include "boost_policy.hpp"
 
 namespace assoc {
@@ -40,6 +41,63 @@ PairedResult exact_mcnemar(double b, double c) {
     const boost::math::binomial_distribution<double, detail::Policy> discordant(b + c, 0.5);
     result.p_value = std::min(1.0, 2 * boost::math::cdf(discordant, result.statistic));
     return result;
+}
+
+// For each row of categories (in order), the position among the category columns of the column with
+// the same label. Without labels on both sides: the same position.
+std::vector<std::size_t> columns_matching_rows(const CountTable& read, std::vector<std::string>& remarks) {
+    const std::size_t k = read.category_rows().size();
+    std::vector<std::size_t> same_place(k);
+    for (std::size_t i = 0; i < k; ++i) same_place[i] = i;
+    if (!read.has_row_labels() || !read.has_column_labels()) return same_place;
+
+    std::vector<std::string> rows, columns;
+    for (std::size_t r : read.category_rows()) rows.push_back(read.body_row_labels()[r]);
+    for (std::size_t c : read.category_columns()) columns.push_back(read.body_column_labels()[c]);
+    const auto require_labels = [](const std::vector<std::string>& labels, const char* side) {
+        std::vector<std::string> seen;
+        for (const std::string& label : labels) {
+            require(!label.empty(), std::string("a ") + side + " of the paired table has no label; row i and column i "
+                                    "must be the same category, so give every row and every column its label (or "
+                                    "give labels on one side only and keep the same order)");
+            const std::string key = folded_label(label);
+            require(std::find(seen.begin(), seen.end(), key) == seen.end(),
+                    std::string("the ") + side + "s of the paired table carry the label " + quoted_label(label) +
+                        " twice; each category needs one row and one column");
+            seen.push_back(key);
+        }
+    };
+    require_labels(rows, "row");
+    require_labels(columns, "column");
+
+    std::vector<std::size_t> column_of_row(k);
+    std::vector<std::string> rows_only, columns_only;
+    for (std::size_t r = 0; r < k; ++r) {
+        const auto match = std::find_if(columns.begin(), columns.end(),
+                                        [&](const std::string& column) { return folded_label(column) == folded_label(rows[r]); });
+        if (match == columns.end()) rows_only.push_back(quoted_label(rows[r]));
+        else column_of_row[r] = static_cast<std::size_t>(match - columns.begin());
+    }
+    for (const std::string& column : columns)
+        if (std::none_of(rows.begin(), rows.end(), [&](const std::string& row) { return folded_label(row) == folded_label(column); }))
+            columns_only.push_back(quoted_label(column));
+    if (!rows_only.empty() || !columns_only.empty()) {
+        std::vector<std::string> parts;
+        if (!rows_only.empty()) parts.push_back("the rows have " + name_list(rows_only, 4) + ", which no column has");
+        if (!columns_only.empty())
+            parts.push_back("the columns have " + name_list(columns_only, 4) + ", which no row has");
+        std::string found;
+        for (const std::string& part : parts) found += "; " + part;
+        throw Error("a paired table needs the same categories as rows and as columns, matched by their labels" + found +
+                    ". Give the rows and the columns the same labels");
+    }
+    if (column_of_row != same_place) {
+        std::vector<std::string> order;
+        for (std::size_t r = 0; r < k; ++r) order.push_back(quoted_label(columns[column_of_row[r]]));
+        remarks.push_back("The columns were matched to the rows by their labels: they are in another order than "
+                          "the rows, and were read as " + name_list(order, 6) + ".");
+    }
+    return column_of_row;
 }
 
 }  // namespace
@@ -84,8 +142,16 @@ PairedResult paired_test(const CellGrid& table, std::optional<PairedMethod> meth
     ReadOptions options;
     options.require_two_by_two = false;  // a category nobody chose is still a row and a column
     const CountTable read = read_count_table(table, options);
-    require(read.body_rows() == read.body_columns(), not_square(read.body_rows(), read.body_columns()));
-    return paired_test(read.to_body_shape(read.counts()), method);
+    const Matrix counts = read.category_counts();
+    require(counts.rows() == counts.columns(), not_square(counts.rows(), counts.columns()));
+    std::vector<std::string> remarks;
+    const std::vector<std::size_t> column_of_row = columns_matching_rows(read, remarks);
+    Matrix square(counts.rows(), counts.columns());
+    for (std::size_t r = 0; r < counts.rows(); ++r)
+        for (std::size_t c = 0; c < counts.columns(); ++c) square(r, c) = counts(r, column_of_row[c]);
+    PairedResult result = paired_test(square, method);
+    result.remarks = std::move(remarks);
+    return result;
 }
 
 }  // namespace assoc

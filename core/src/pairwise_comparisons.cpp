@@ -60,8 +60,9 @@ PairwiseComparisons pairwise_comparisons(const CountTable& table, PAdjustment ad
     const std::vector<std::string> names = detail::body_row_names(table);
     PairwiseComparisons result;
     for (const SetAside& aside : table.set_aside_rows()) {
-        std::string sentence = detail::row_reference(aside.index, names[aside.index]) +
-                               " has no counts and takes no part in the comparisons.";
+        std::string sentence = detail::row_reference(table, aside.index, names[aside.index]) +
+                               (aside.why == SetAside::Why::total ? " is a total and takes no part in the comparisons."
+                                                                  : " has no counts and takes no part in the comparisons.");
         sentence[0] = 'R';
         result.remarks.push_back(sentence);
     }

@@ -104,10 +104,17 @@ RowRates row_rates(const CellGrid& range, double confidence) {
         row.name = names[r];
         for (std::size_t c = 0; c < table.body_columns(); ++c) row.total += body(r, c);
         row.has_counts = row.total > 0;
+        const bool total_line =
+            std::any_of(table.set_aside_rows().begin(), table.set_aside_rows().end(), [&](const SetAside& aside) {
+                return aside.index == r && aside.why == SetAside::Why::total;
+            });
         if (row.has_counts) {
             row.rate = wilson(body(r, 0), row.total, z);
         } else {
-            std::string sentence = detail::row_reference(r, row.name) + " has no counts, so it has no rate; its line stays empty.";
+            std::string sentence = detail::row_reference(table, r, row.name) +
+                                   (total_line ? " is a total of the other rows, so it has no rate of its own; its "
+                                                 "line stays empty."
+                                               : " has no counts, so it has no rate; its line stays empty.");
             sentence[0] = 'R';
             result.remarks.push_back(sentence);
         }
@@ -126,16 +133,18 @@ RateDifference rate_difference(double count1, double total1, double count2, doub
 RateDifference rate_difference(const CellGrid& range, double confidence) {
     detail::check_confidence(confidence);
     const CountTable table = read_rate_table(range);
-    require(table.body_rows() == 2 && table.body_columns() == 2,
+    // Total rows and columns are left out; the two groups and two outcomes must remain.
+    const Matrix body = table.category_counts();
+    require(body.rows() == 2 && body.columns() == 2,
             "the rate difference needs a 2×2 table (two groups, the outcome of interest and the rest); this range "
             "has " +
-                std::to_string(table.body_rows()) + (table.body_rows() == 1 ? " row" : " rows") + " and " +
-                std::to_string(table.body_columns()) + (table.body_columns() == 1 ? " column" : " columns") +
+                std::to_string(body.rows()) + (body.rows() == 1 ? " row" : " rows") + " and " +
+                std::to_string(body.columns()) + (body.columns() == 1 ? " column" : " columns") +
                 " of counts");
-    const Matrix body = table.to_body_shape(table.counts());
     const std::vector<std::string> names = detail::body_row_names(table);
     for (std::size_t r = 0; r < 2; ++r)
-        require(body(r, 0) + body(r, 1) > 0, detail::row_reference(r, names[r]) +
+        require(body(r, 0) + body(r, 1) > 0, detail::row_reference(table, table.category_rows()[r],
+                                                                   names[table.category_rows()[r]]) +
                                                  " has no counts, so it has no rate to compare; the rate difference "
                                                  "needs counts in both rows");
     return newcombe(body(0, 0), body(0, 0) + body(0, 1), body(1, 0), body(1, 0) + body(1, 1), confidence);

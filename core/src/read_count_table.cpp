@@ -7,6 +7,8 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "assoc/wording.hpp"
+#include "total_lines.hpp"
 
 namespace assoc {
 namespace {
@@ -46,6 +48,8 @@ bool looks_like_years(std::size_t length, CellAt cell_at) {
 std::string plural(std::size_t n, const char* word) {
     return std::to_string(n) + " " + word + (n == 1 ? "" : "s");
 }
+
+std::string label_of(const Cell& cell) { return cell.is_text() ? std::string(trimmed_label(cell.as_text())) : std::string(); }
 
 }  // namespace
 
@@ -88,7 +92,15 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
             }
             // The message is built only on failure: tables can have a million cells.
             auto fail = [&](const char* reason) {
-                throw Error(cell_name(range_row, range_column) + " holds " + cell.describe() + reason);
+                // Rows and columns of the range as selected, with their labels where the range has them.
+                const auto label = [](const Cell& header) {
+                    return header.is_text() && !trimmed_label(header.as_text()).empty()
+                               ? " (" + quoted_label(header.as_text()) + ")"
+                               : std::string();
+                };
+                const std::string row = "row " + std::to_string(range_row + 1) + (header_column ? label(range.at(range_row, 0)) : "");
+                const std::string column = "column " + std::to_string(range_column + 1) + (header_row ? label(range.at(0, range_column)) : "");
+                throw Error(row + ", " + column + " holds " + cell.describe() + reason);
             };
             if (!cell.is_number()) fail("; counts must be numbers");
             const double value = cell.as_number();
@@ -98,32 +110,42 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
         }
     }
 
-    const std::string years_hint = " holds whole numbers that look like years, and they were read as counts; if they "
+    // A fixed text (building a string here would cost an allocation on every call).
+    const char* const years_hint = " holds whole numbers that look like years, and they were read as counts; if they "
                                    "are labels, enter them as text (type an apostrophe first: '2024) or add a text header";
     if (!header_row && looks_like_years(body_columns, [&](std::size_t c) -> const Cell& {
             return range.at(0, first_body_column + c);
         }))
-        table.reading_remarks_.push_back("Row 1" + years_hint + ".");
+        table.reading_remarks_.push_back(std::string("Row 1") + years_hint + ".");
     if (!header_column && looks_like_years(body_rows, [&](std::size_t r) -> const Cell& {
             return range.at(first_body_row + r, 0);
         }))
-        table.reading_remarks_.push_back("Column 1" + years_hint + ".");
+        table.reading_remarks_.push_back(std::string("Column 1") + years_hint + ".");
 
     table.has_column_labels_ = header_row;
     table.has_row_labels_ = header_column;
     table.body_column_labels_.assign(body_columns, "");
     table.body_row_labels_.assign(body_rows, "");
     if (header_row)
-        for (std::size_t c = 0; c < body_columns; ++c) {
-            const Cell& cell = range.at(0, first_body_column + c);
-            if (cell.is_text()) table.body_column_labels_[c] = cell.as_text();
-        }
+        for (std::size_t c = 0; c < body_columns; ++c) table.body_column_labels_[c] = label_of(range.at(0, first_body_column + c));
     if (header_column)
-        for (std::size_t r = 0; r < body_rows; ++r) {
-            const Cell& cell = range.at(first_body_row + r, 0);
-            if (cell.is_text()) table.body_row_labels_[r] = cell.as_text();
-        }
-    table.finish(body, options);
+        for (std::size_t r = 0; r < body_rows; ++r) table.body_row_labels_[r] = label_of(range.at(first_body_row + r, 0));
+
+    // Totals and percentages: what the author did not mean as counts.
+    detail::TotalLines totals;
+    if (!options.find_totals) {
+        totals.rows.assign(body_rows, false);
+        totals.columns.assign(body_columns, false);
+    } else {
+        const detail::BodySide rows{"row", "column", &table.body_row_labels_, header_column, first_body_row + 1};
+        const detail::BodySide columns{"column", "row", &table.body_column_labels_, header_row, first_body_column + 1};
+        totals = detail::find_total_lines(body, rows, columns);
+        table.doubts_ = totals.doubts;
+    }
+    if (options.counts_only)
+        for (std::string& doubt : detail::refuse_percentages(body, totals.rows, totals.columns))
+            table.doubts_.push_back(std::move(doubt));
+    table.finish(std::move(body), options, totals.rows, totals.columns);
     return table;
 }
 
@@ -140,18 +162,21 @@ CountTable CountTable::from_counts(const Matrix& counts, const ReadOptions& opti
     CountTable table;
     table.body_row_labels_.assign(counts.rows(), "");
     table.body_column_labels_.assign(counts.columns(), "");
-    table.finish(counts, options);
+    table.finish(counts, options, std::vector<bool>(counts.rows(), false), std::vector<bool>(counts.columns(), false));
     return table;
 }
 
-// Sets aside all-zero rows and columns, then fills the totals of what is kept.
-void CountTable::finish(const Matrix& body, const ReadOptions& options) {
-    body_rows_ = body.rows();
-    body_columns_ = body.columns();
+// Sets aside total lines and all-zero rows and columns, then fills the totals of what is kept.
+void CountTable::finish(Matrix body, const ReadOptions& options, const std::vector<bool>& total_rows,
+                        const std::vector<bool>& total_columns) {
+    body_ = std::move(body);  // kept, not copied: a sheet may read thousands of small tables
+    body_rows_ = body_.rows();
+    body_columns_ = body_.columns();
     std::vector<double> body_row_totals(body_rows_, 0.0), body_column_totals(body_columns_, 0.0);
     for (std::size_t r = 0; r < body_rows_; ++r)
         for (std::size_t c = 0; c < body_columns_; ++c) {
-            const double value = body(r, c);
+            if (total_rows[r] || total_columns[c]) continue;
+            const double value = body_(r, c);
             body_row_totals[r] += value;
             body_column_totals[c] += value;
             whole_counts_ = whole_counts_ && value == std::floor(value);
@@ -159,26 +184,38 @@ void CountTable::finish(const Matrix& body, const ReadOptions& options) {
     // Room for everything at once: a sheet may read thousands of small tables per recalculation.
     kept_rows_.reserve(body_rows_);
     kept_columns_.reserve(body_columns_);
+    category_rows_.reserve(body_rows_);
+    category_columns_.reserve(body_columns_);
     row_labels_.reserve(body_rows_);
     column_labels_.reserve(body_columns_);
     for (std::size_t r = 0; r < body_rows_; ++r) {
-        if (body_row_totals[r] > 0) kept_rows_.push_back(r);
-        else set_aside_rows_.push_back({r, body_row_labels_[r]});
+        if (!total_rows[r]) category_rows_.push_back(r);
+        if (total_rows[r]) set_aside_rows_.push_back({r, body_row_labels_[r], SetAside::Why::total, range_row(r)});
+        else if (body_row_totals[r] > 0) kept_rows_.push_back(r);
+        else set_aside_rows_.push_back({r, body_row_labels_[r], SetAside::Why::no_counts, range_row(r)});
     }
     for (std::size_t c = 0; c < body_columns_; ++c) {
-        if (body_column_totals[c] > 0) kept_columns_.push_back(c);
-        else set_aside_columns_.push_back({c, body_column_labels_[c]});
+        if (!total_columns[c]) category_columns_.push_back(c);
+        if (total_columns[c]) set_aside_columns_.push_back({c, body_column_labels_[c], SetAside::Why::total, range_column(c)});
+        else if (body_column_totals[c] > 0) kept_columns_.push_back(c);
+        else set_aside_columns_.push_back({c, body_column_labels_[c], SetAside::Why::no_counts, range_column(c)});
     }
 
     if (options.require_two_by_two) {
-        auto shortfall = [](std::size_t kept, std::size_t aside, const char* word) {
+        auto shortfall = [](std::size_t kept, const std::vector<SetAside>& aside, const char* word) {
             std::string message = "the table has " + std::string(kept == 0 ? "no" : "only 1") + " " + word +
                                   " with counts";
-            if (aside > 0) message += " (" + plural(aside, word) + " with all zeros set aside)";
+            const auto totals = static_cast<std::size_t>(std::count_if(
+                aside.begin(), aside.end(), [](const SetAside& line) { return line.why == SetAside::Why::total; }));
+            const std::size_t empty = aside.size() - totals;
+            std::vector<std::string> parts;
+            if (empty > 0) parts.push_back(plural(empty, word) + " with all zeros");
+            if (totals > 0) parts.push_back(plural(totals, word) + " of totals");
+            if (!parts.empty()) message += " (" + name_list(parts) + " set aside)";
             return message + "; a test of association needs at least 2 rows and 2 columns with counts";
         };
-        if (kept_rows_.size() < 2) throw Error(shortfall(kept_rows_.size(), set_aside_rows_.size(), "row"));
-        if (kept_columns_.size() < 2) throw Error(shortfall(kept_columns_.size(), set_aside_columns_.size(), "column"));
+        if (kept_rows_.size() < 2) throw Error(shortfall(kept_rows_.size(), set_aside_rows_, "row"));
+        if (kept_columns_.size() < 2) throw Error(shortfall(kept_columns_.size(), set_aside_columns_, "column"));
     }
 
     counts_ = Matrix(kept_rows_.size(), kept_columns_.size());
@@ -187,7 +224,7 @@ void CountTable::finish(const Matrix& body, const ReadOptions& options) {
     for (std::size_t r = 0; r < kept_rows_.size(); ++r) {
         row_totals_[r] = body_row_totals[kept_rows_[r]];
         row_labels_.push_back(body_row_labels_[kept_rows_[r]]);
-        for (std::size_t c = 0; c < kept_columns_.size(); ++c) counts_(r, c) = body(kept_rows_[r], kept_columns_[c]);
+        for (std::size_t c = 0; c < kept_columns_.size(); ++c) counts_(r, c) = body_(kept_rows_[r], kept_columns_[c]);
     }
     for (std::size_t c = 0; c < kept_columns_.size(); ++c) {
         column_totals_[c] = body_column_totals[kept_columns_[c]];
@@ -206,6 +243,13 @@ void CountTable::finish(const Matrix& body, const ReadOptions& options) {
                 "the counts are too small, or too far apart in size, to compute with (an expected count falls "
                 "below 1e-308); multiply them all by a common factor or round the smallest to 0");
     }
+}
+
+Matrix CountTable::category_counts() const {
+    Matrix counts(category_rows_.size(), category_columns_.size());
+    for (std::size_t r = 0; r < category_rows_.size(); ++r)
+        for (std::size_t c = 0; c < category_columns_.size(); ++c) counts(r, c) = body_(category_rows_[r], category_columns_[c]);
+    return counts;
 }
 
 Matrix CountTable::to_body_shape(const Matrix& kept, double fill) const {

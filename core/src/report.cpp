@@ -15,6 +15,7 @@
 #include "assoc/residuals.hpp"
 #include "assoc/statistics.hpp"
 #include "assoc/validity.hpp"
+#include "assoc/wording.hpp"
 
 namespace assoc {
 namespace {
@@ -116,11 +117,16 @@ void add_validity(const Findings& f, Lines& lines) {
     lines.text("Validity", f.validity.summary());
 }
 
-// "Sales", or "row 2" (its place in the range's body) when the table has no labels there.
-std::string side_name(const char* side, const std::vector<std::string>& labels, const std::vector<std::size_t>& kept,
-                      std::size_t index) {
-    if (index < labels.size() && !labels[index].empty()) return labels[index];
-    return std::string(side) + " " + std::to_string(kept[index] + 1);
+// "Sales", or "row 3" (its row in the range as selected, a header row being row 1) when the table has
+// no label there.
+std::string row_name(const CountTable& table, std::size_t index) {
+    if (!table.row_labels()[index].empty()) return short_label(table.row_labels()[index]);
+    return "row " + std::to_string(table.range_row(table.kept_rows()[index]));
+}
+
+std::string column_name(const CountTable& table, std::size_t index) {
+    if (!table.column_labels()[index].empty()) return short_label(table.column_labels()[index]);
+    return "column " + std::to_string(table.range_column(table.kept_columns()[index]));
 }
 
 std::string one_decimal(double value) {
@@ -153,8 +159,7 @@ void add_standouts(const Findings& f, Lines& lines) {
     for (std::size_t k = 0; k < named; ++k) {
         const std::size_t r = beyond[k] / z.columns(), c = beyond[k] % z.columns();
         const double residual = z(r, c);
-        text += (k == 0 ? "" : "; ") + side_name("row", f.table.row_labels(), f.table.kept_rows(), r) + " × " +
-                side_name("column", f.table.column_labels(), f.table.kept_columns(), c) + ": " +
+        text += (k == 0 ? "" : "; ") + row_name(f.table, r) + " × " + column_name(f.table, c) + ": " +
                 (residual > 0 ? "more" : "fewer") + " than expected (adjusted residual " + one_decimal(residual) + ")";
     }
     if (beyond.size() > named)
@@ -170,10 +175,18 @@ std::string describe_side(const char* side, bool has_labels, const std::vector<s
     const std::size_t shown = 4;
     for (std::size_t i = 0; i < labels.size() && i < shown; ++i) {
         if (labels[i].empty()) return text;
-        names += (i > 0 ? ", " : "") + labels[i];
+        names += (i > 0 ? ", " : "") + short_label(labels[i], 24);
     }
     if (labels.size() > shown) names += ", …";
     return text + " (" + names + ")";
+}
+
+// Cramér's V as a memo writes it: 0.10, 0.35; below 0.1 with two significant digits (0.0017).
+std::string v_in_words(double value) {
+    char buffer[32];
+    if (value >= 0.1 || value == 0) std::snprintf(buffer, sizeof buffer, "%.2f", value);
+    else std::snprintf(buffer, sizeof buffer, "%.2g", value);
+    return buffer;
 }
 
 void add_conclusion(const Findings& f, Lines& lines) {
@@ -186,9 +199,21 @@ void add_conclusion(const Findings& f, Lines& lines) {
                                     : names.columns;
     const std::string p = "(p = " + format_p_value(f.pearson.p_value) + ")";
     std::string text = "At the " + level(f.options.alpha) + " level, ";
-    text += f.independence_rejected ? rows + " and " + columns + " appear associated " + p + "."
+    text += f.independence_rejected ? rows + " and " + columns + " appear associated " + p
                                     : "the data do not show an association between " + rows + " and " + columns +
                                           " " + p + ".";
+    if (f.independence_rejected) {
+        // A significant result may still be a tiny effect: say how strong it is, in words.
+        const double v = cramers_v(f.table);
+        const std::string strength = strength_in_words(v, f.table);
+        const bool small = strength == "very weak" || strength == "weak";
+        text += std::string(small ? ", but the association is " : ", and the association is ") + strength +
+                ": Cramér's V is " + v_in_words(v) + " (" + strength_bands() + ").";
+    }
+    if (f.v_interval.value && f.v_interval.value->upper == 0)
+        text += " Cramér's V's 95% interval is 0 to 0 because X² is smaller than independence itself gives in 97.5% of "
+                "samples: the counts are closer to independence than chance usually leaves them (check that they "
+                "were not balanced on purpose); it does not mean that V is exactly 0.";
     if (f.validity.exact_test_recommended) {
         text += " The chi-squared approximation is doubtful for this table (see the validity line), so this "
                 "p-value may be unreliable";
@@ -203,15 +228,9 @@ void add_caution(const Findings&, Lines& lines) {
                "For decisions about people, follow applicable law and policy and seek qualified advice.");
 }
 
-std::string trimmed(const std::string& text) {
-    const std::size_t first = text.find_first_not_of(" \t");
-    if (first == std::string::npos) return "";
-    return text.substr(first, text.find_last_not_of(" \t") - first + 1);
-}
-
 // "Department" reads as "department" inside a sentence; "HR band" keeps its capitals.
 std::string in_sentence(const std::string& name) {
-    std::string text = trimmed(name);
+    std::string text = short_label(name, 40);
     if (text.size() >= 2 && text[0] >= 'A' && text[0] <= 'Z' && text[1] >= 'a' && text[1] <= 'z')
         text[0] = static_cast<char>(text[0] - 'A' + 'a');
     return text;
@@ -247,8 +266,12 @@ VariableNames variable_names_from_corner(const CellGrid& range, const CountTable
         return names;
     const std::string& corner = range.at(0, 0).as_text();
     const std::size_t separator = corner.find_first_of("/\\");
+    // Without a separator the corner is a title ("Headcount", "2024"), not the names of the variables.
+    if (separator == std::string::npos) return names;
     names.rows = in_sentence(corner.substr(0, separator));
-    if (separator != std::string::npos) names.columns = in_sentence(corner.substr(separator + 1));
+    names.columns = in_sentence(corner.substr(separator + 1));
+    // Both names, or neither: "Department /" names only one side and would read oddly.
+    if (names.rows.empty() || names.columns.empty()) return {};
     return names;
 }
 

@@ -1,6 +1,7 @@
 #pragma once
 // Names of the rows of a table's body for results and messages: the row's label, or "row k" when
-// the range has no label for it (k its 1-based place in the body, counting rows of zeros too).
+// the range has no label for it (k its 1-based row in the range as selected, a header row being row
+// 1, as every message counts rows).
 #include <cstddef>
 #include <string>
 #include <vector>
@@ -12,16 +13,17 @@ namespace assoc::detail {
 // One name per row of the body (kept and set-aside rows alike), in the order of the range.
 inline std::vector<std::string> body_row_names(const CountTable& table) {
     std::vector<std::string> names(table.body_rows());
-    for (std::size_t i = 0; i < table.kept_rows().size(); ++i) names[table.kept_rows()[i]] = table.row_labels()[i];
-    for (const SetAside& aside : table.set_aside_rows()) names[aside.index] = aside.label;
-    for (std::size_t r = 0; r < names.size(); ++r)
-        if (names[r].empty()) names[r] = "row " + std::to_string(r + 1);
+    for (std::size_t r = 0; r < names.size(); ++r) {
+        names[r] = table.body_row_labels()[r];
+        if (names[r].empty()) names[r] = "row " + std::to_string(table.range_row(r));
+    }
     return names;
 }
 
-// "row 3" or "row 3 (Legal)": a row named in a message by its place and its name from body_row_names.
-inline std::string row_reference(std::size_t body_row, const std::string& name) {
-    const std::string place = "row " + std::to_string(body_row + 1);
+// "row 3" or "row 3 (Legal)": a row named in a message by its row in the range and its name from
+// body_row_names.
+inline std::string row_reference(const CountTable& table, std::size_t body_row, const std::string& name) {
+    const std::string place = "row " + std::to_string(table.range_row(body_row));
     return name == place ? place : place + " (" + name + ")";
 }
 

@@ -66,7 +66,7 @@ TrendResult trend_test(const CellGrid& table, const CellGrid& scores) {
     ReadOptions options;
     options.require_two_by_two = false;  // a category nobody is in still has its score
     const CountTable read = read_count_table(table, options);
-    const Matrix body = read.to_body_shape(read.counts());
+    const Matrix body = read.category_counts();  // every category keeps its place; totals are left out
     std::vector<double> score_values;
     if (!scores.empty()) {
         const detail::CellLine line(scores, "scores");

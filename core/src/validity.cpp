@@ -1,30 +1,65 @@
 #include "assoc/validity.hpp"
 
 #include <algorithm>
-#include <cctype>
 #include <cmath>
 
+#include "ascii_case.hpp"
 #include "assoc/error.hpp"
 #include "assoc/expected_counts.hpp"
 #include "assoc/format.hpp"
 #include "assoc/ratio_estimate.hpp"
+#include "assoc/wording.hpp"
 
 namespace assoc {
 namespace {
 
-std::string describe_set_aside(const std::vector<SetAside>& lines, const char* word) {
-    std::string names;
-    for (std::size_t i = 0; i < lines.size(); ++i) {
-        if (i > 0) names += (i + 1 == lines.size()) ? " and " : ", ";
-        names += lines[i].label.empty() ? std::to_string(lines[i].index + 1) : "\"" + lines[i].label + "\"";
+std::string capitalised(std::string text) {
+    if (!text.empty() && text[0] >= 'a' && text[0] <= 'z') text[0] = static_cast<char>(text[0] - 'a' + 'A');
+    return text;
+}
+
+// "The row "Legal" has no counts and was set aside.", "Rows 7–40 have no counts and were set aside.":
+// labelled lines by their labels (a handful, the rest counted), the others by their row numbers in runs.
+std::string describe_set_aside(const std::vector<SetAside>& all, const char* word, SetAside::Why why) {
+    std::vector<std::string> labelled;
+    std::vector<std::size_t> numbers;
+    for (const SetAside& line : all) {
+        if (line.why != why) continue;
+        if (line.label.empty()) numbers.push_back(line.range_number);
+        else labelled.push_back(quoted_label(line.label));
     }
-    const bool one = lines.size() == 1;
-    const bool labelled = std::any_of(lines.begin(), lines.end(), [](const SetAside& line) { return !line.label.empty(); });
-    // "The row \"Legal\" has …", but "Row 2 has …" (not "The row 2").
-    std::string noun = std::string(word) + (one ? "" : "s");
-    noun = labelled ? "The " + noun : static_cast<char>(std::toupper(static_cast<unsigned char>(noun[0]))) + noun.substr(1);
-    return noun + " " + names + (one ? " has" : " have") +
-           " no counts and " + (one ? "was" : "were") + " set aside.";
+    const std::size_t count = labelled.size() + numbers.size();
+    if (count == 0) return "";
+    const bool one = count == 1;
+    std::vector<std::string> names;
+    const std::size_t shown = 5;
+    for (std::size_t i = 0; i < labelled.size() && i < shown; ++i) names.push_back(labelled[i]);
+    if (labelled.size() > shown) names.push_back(format_count(static_cast<double>(labelled.size() - shown)) + " more");
+    if (!numbers.empty()) names.push_back(numbered_lines(word, numbers));
+    std::string text = labelled.empty() ? capitalised(name_list(names, names.size()))
+                                        : "The " + std::string(word) + (one ? " " : "s ") + name_list(names, names.size());
+    if (why == SetAside::Why::total) return text + (one ? " is a total and was set aside." : " are totals and were set aside.");
+    return text + (one ? " has no counts and was set aside." : " have no counts and were set aside.");
+}
+
+// When the rows and the columns carry the same set of labels, the table may classify the same people
+// twice, and then the paired test is the one that fits.
+std::string same_labels_remark(const CountTable& table) {
+    if (!table.has_row_labels() || !table.has_column_labels()) return "";
+    std::vector<std::string> rows, columns, shown;
+    for (std::size_t r : table.category_rows()) {
+        rows.push_back(folded_label(table.body_row_labels()[r]));
+        shown.push_back(quoted_label(table.body_row_labels()[r]));
+    }
+    for (std::size_t c : table.category_columns()) columns.push_back(folded_label(table.body_column_labels()[c]));
+    if (rows.size() < 2 || rows.size() != columns.size()) return "";
+    if (std::any_of(rows.begin(), rows.end(), [](const std::string& label) { return label.empty(); })) return "";
+    std::sort(rows.begin(), rows.end());
+    std::sort(columns.begin(), columns.end());
+    if (rows != columns || std::adjacent_find(rows.begin(), rows.end()) != rows.end()) return "";
+    return "The rows and the columns carry the same labels (" + name_list(shown, 4) +
+           "): if the table counts the same people twice (before and after, or by two raters), the paired test "
+           "(ASSOC.PAIRED) fits it, not this test of independence.";
 }
 
 }  // namespace
@@ -49,35 +84,59 @@ ValidityCheck check_validity(const CountTable& table) {
     check.whole_counts = table.whole_counts();
     check.set_aside_rows = table.set_aside_rows();
     check.set_aside_columns = table.set_aside_columns();
+    check.doubts = table.doubts();
+    if (!check.whole_counts)
+        check.doubts.push_back(
+            "Some counts are not whole numbers (weighted data): the chi-squared p-value treats them as counts of "
+            "independent people or items, so it is right only for frequency weights (each weight the number of "
+            "people a record stands for), never for amounts such as pay or invoice values, nor for survey weights; "
+            "exact tests need whole counts.");
     check.remarks = table.reading_remarks();
     if (needs_zero_cell_correction(table)) check.remarks.push_back(zero_cell_correction_remark());
+    const std::string paired = same_labels_remark(table);
+    if (!paired.empty()) check.remarks.push_back(paired);
     return check;
 }
 
 std::string ValidityCheck::summary() const {
-    std::string text;
+    std::string expectation;
     const std::string smallest = "the smallest expected count is " + format_number(smallest_expected, 3);
     if (!exact_test_recommended) {
-        text = "Sound: " + smallest + " and ";
-        text += cells_below_five == 0 ? "no cell expects fewer than 5, so the chi-squared approximation can be trusted."
-                                      : format_count(static_cast<double>(cells_below_five)) + " of " +
-                                            format_count(static_cast<double>(cells)) +
-                                            " cells expect fewer than 5, within Cochran's rule (at most 20%, none below 1).";
+        expectation = smallest + " and ";
+        expectation += cells_below_five == 0
+                           ? "no cell expects fewer than 5, so the chi-squared approximation can be trusted."
+                           : format_count(static_cast<double>(cells_below_five)) + " of " +
+                                 format_count(static_cast<double>(cells)) +
+                                 " cells expect fewer than 5, within Cochran's rule (at most 20%, none below 1).";
     } else {
-        text = "Doubtful: " + smallest + ", and " + format_count(static_cast<double>(cells_below_five)) + " of " +
-               format_count(static_cast<double>(cells)) + " cells (" +
-               format_number(100.0 * share_below_five, 3) + "%) expect fewer than 5";
-        text += std::string("; Cochran's rule asks for none below 1 and at most 20% below 5") +
-                (any_below_one ? " (some cells expect fewer than 1)." : ".");
-        text += whole_counts ? " Use the exact test (ASSOC.EXACT) or a simulated p-value (ASSOC.SIMULATE) instead."
-                             : " Combine sparse categories or collect more data.";
+        expectation = smallest + ", and " + format_count(static_cast<double>(cells_below_five)) + " of " +
+                      format_count(static_cast<double>(cells)) + " cells (" +
+                      format_number(100.0 * share_below_five, 3) + "%) expect fewer than 5";
+        expectation += std::string("; Cochran's rule asks for none below 1 and at most 20% below 5") +
+                       (any_below_one ? " (some cells expect fewer than 1)." : ".");
+        expectation += whole_counts ? " Use the exact test (ASSOC.EXACT) or a simulated p-value (ASSOC.SIMULATE) instead."
+                                    : " Combine sparse categories or collect more data.";
+    }
+    std::string text;
+    if (doubts.empty()) {
+        text = (exact_test_recommended ? "Doubtful: " : "Sound: ") + expectation;
+    } else {
+        text = "Doubtful:";
+        for (const std::string& doubt : doubts) text += " " + doubt;
+        // With the doubts first, the expected counts are only a further fact.
+        if (!exact_test_recommended && cells_below_five == 0)
+            expectation = smallest + " and no cell expects fewer than 5.";
+        text += " " + capitalised(expectation);
     }
     if (blank_cells > 0)
         text += " " + format_count(static_cast<double>(blank_cells)) + (blank_cells == 1 ? " blank cell was" : " blank cells were") +
                 " read as 0.";
-    if (!set_aside_rows.empty()) text += " " + describe_set_aside(set_aside_rows, "row");
-    if (!set_aside_columns.empty()) text += " " + describe_set_aside(set_aside_columns, "column");
-    if (!whole_counts) text += " Some counts are not whole numbers (weighted data); exact tests need whole counts.";
+    for (SetAside::Why why : {SetAside::Why::total, SetAside::Why::no_counts}) {
+        const std::string rows = describe_set_aside(set_aside_rows, "row", why);
+        const std::string columns = describe_set_aside(set_aside_columns, "column", why);
+        if (!rows.empty()) text += " " + rows;
+        if (!columns.empty()) text += " " + columns;
+    }
     for (const std::string& remark : remarks) text += " " + remark;
     return text;
 }

@@ -143,7 +143,7 @@ double samplesize(double w, double power, double df, double alpha) {
 }
 
 Matrix counts(const CodedLabels& row_labels, const CodedLabels& column_labels, const CellGrid& weights,
-              LevelOrder order) {
+              LevelOrdering order) {
     // The core gives a row and a column to every label of the ranges, also to one whose records were
     // all skipped (the other label blank), so the table lines up with ASSOC.LEVELS.
     const RecordCounts counted = counts_from_records(row_labels, column_labels, weights, order, office_collation());
@@ -151,10 +151,11 @@ Matrix counts(const CodedLabels& row_labels, const CodedLabels& column_labels, c
     return counted.counts;
 }
 
-CellGrid levels(const CodedLabels& labels, LevelOrder order) {
-    const std::vector<Cell> distinct = distinct_levels(labels, order, office_collation());
-    CellGrid column(distinct.size(), 1);
-    for (std::size_t i = 0; i < distinct.size(); ++i) column.at(i, 0) = distinct[i];
+CellGrid levels(const CodedLabels& labels, LevelOrdering order) {
+    const LevelList list = level_list(labels, order, office_collation());
+    for (const std::string& sentence : list.remarks) remark(sentence);
+    CellGrid column(list.levels.size(), 1);
+    for (std::size_t i = 0; i < list.levels.size(); ++i) column.at(i, 0) = list.levels[i];
     return column;
 }
 
@@ -172,6 +173,7 @@ std::vector<double> homogeneity(const CellGrid& range) {
 
 std::vector<double> paired(const CellGrid& range, std::optional<PairedMethod> method) {
     const PairedResult result = paired_test(range, method);
+    for (const std::string& sentence : result.remarks) remark(sentence);
     return {result.p_value, result.statistic, result.df};
 }
 
@@ -182,13 +184,16 @@ std::vector<double> trend(const CellGrid& range, const CellGrid& scores) {
 
 CellGrid impact(const CellGrid& selected, const CellGrid& considered, double threshold) {
     const SelectionImpact result = selection_impact(selected, considered, threshold);
+    for (const std::string& sentence : result.remarks) remark(sentence);
     remark(selection_impact_caution());
     CellGrid rows(result.groups.size(), 3);
     for (std::size_t i = 0; i < result.groups.size(); ++i) {
         const GroupImpact& group = result.groups[i];
-        rows.at(i, 0) = Cell::number(group.selection_rate);
-        rows.at(i, 1) = Cell::number(group.impact_ratio);
-        if (group.below_threshold) rows.at(i, 2) = Cell::text(group.flag);
+        if (group.has_rate) {
+            rows.at(i, 0) = Cell::number(group.selection_rate);
+            rows.at(i, 1) = Cell::number(group.impact_ratio);
+        }
+        rows.at(i, 2) = group.flag.empty() ? Cell::blank() : Cell::text(group.flag);
     }
     return rows;
 }

@@ -5,6 +5,7 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/validity.hpp"
+#include "assoc/wording.hpp"
 #include "function_catalog.hpp"
 #include "option_words.hpp"
 
@@ -59,15 +60,19 @@ Outcome run(const FunctionTrial& trial, const CellGrid& range) {
     return outcome;
 }
 
+// An unknown word: the nearest words and function names (a few), not the whole list.
 std::string unknown_word(const std::string& typed) {
-    std::vector<std::string> words, names;
+    std::vector<std::string> candidates;
     for (const FunctionTrial& trial : function_trials()) {
-        if (trial.word == nullptr) names.push_back("\"" + short_name(trial.function) + "\"");
-        else if (trial.refusal == nullptr && std::find(words.begin(), words.end(), "\"" + std::string(trial.word) + "\"") == words.end())
-            words.push_back("\"" + std::string(trial.word) + "\"");
+        const std::string candidate = trial.word == nullptr ? short_name(trial.function) : std::string(trial.word);
+        if ((trial.word == nullptr || trial.refusal == nullptr) &&
+            std::find(candidates.begin(), candidates.end(), candidate) == candidates.end())
+            candidates.push_back(candidate);
     }
-    return "\"" + typed + "\" is not an option word or the name of an ASSOC function; the words are " + joined(words) +
-           ", and the functions are " + joined(names) + ".";
+    std::string text = quoted_label(typed) + " is not an option word or the name of an ASSOC function";
+    const std::vector<std::string> nearest = nearest_words(typed, candidates);
+    if (nearest.empty()) return text + "; the words and names are listed in the Function Wizard and in functions.md.";
+    return text + "; did you mean " + quoted_list(nearest, "or") + "?";
 }
 
 // One function tried on the range: named by the user (run with its defaults) or accepting the word.
@@ -88,14 +93,38 @@ RemarkCollector::RemarkCollector() : outer_(collecting) { collecting = &remarks_
 
 RemarkCollector::~RemarkCollector() { collecting = outer_; }
 
-std::vector<CellGrid> split_columns(const CellGrid& range, std::size_t count, const char* function) {
+std::vector<CellGrid> split_columns(const CellGrid& range, std::size_t count, std::size_t optional, const char* function) {
+    // A single range given as one row (the labels of ASSOC.LEVELS along a row) is that range, whole.
+    if (count == 1 && range.rows() == 1 && range.columns() > 1) {
+        std::vector<CellGrid> parts{range};
+        parts.resize(1 + optional);
+        return parts;
+    }
     // Fewer columns are blank ones: the range lost its trailing blank columns when it was read.
-    require(range.columns() <= count, std::string("to try ") + function + ", give ASSOC.CHECK its " + std::to_string(count) +
-                                          " ranges side by side as the columns of one range; this range has " +
-                                          std::to_string(range.columns()) + (range.columns() == 1 ? " column" : " columns"));
+    const std::size_t given = std::max(range.columns(), std::min(range.given_columns(), count + optional));
+    require(range.columns() <= count + optional,
+            std::string("to try ") + function + ", give ASSOC.CHECK its " + std::to_string(count) +
+                " ranges side by side as the columns of one range" +
+                (optional > 0 ? " (and " + std::string(optional == 1 ? "the optional one" : "the optional ones") +
+                                    " after them)"
+                              : std::string()) +
+                "; this range has " + std::to_string(range.columns()) + (range.columns() == 1 ? " column" : " columns"));
     std::vector<CellGrid> columns(count, CellGrid(range.rows(), 1));
+    for (std::size_t c = count; c < count + optional; ++c)
+        columns.push_back(c < given ? CellGrid(range.rows(), 1) : CellGrid());
     for (std::size_t c = 0; c < range.columns(); ++c)
         for (std::size_t r = 0; r < range.rows(); ++r) columns[c].at(r, 0) = range.at(r, c);
+    // Each column keeps the range's given height, so that a whole column is read as one; an optional
+    // column left blank is not given (the order after a blank column of weights).
+    for (std::size_t c = 0; c < columns.size(); ++c) {
+        CellGrid& column = columns[c];
+        if (column.empty()) continue;
+        if (c >= count && std::all_of(column.begin(), column.end(), [](const Cell& cell) { return cell.is_blank(); })) {
+            column = CellGrid();
+            continue;
+        }
+        column.set_given_shape(range.given_rows(), 1);
+    }
     return columns;
 }
 

@@ -43,9 +43,11 @@ extern const char* const function_category;
 const std::vector<FunctionInfo>& function_catalog();
 const std::vector<FunctionTrial>& function_trials();
 
-// For the trials of functions that take several ranges: the range's columns, one per range
-// argument (an error unless it has exactly `count` columns).
-std::vector<CellGrid> split_columns(const CellGrid& range, std::size_t count, const char* function);
+// For the trials of functions that take several ranges (or a range and an order given as a range):
+// the range's columns, one per range argument, then `optional` more when the range has more columns
+// (empty grids for those not given: optional ranges, then the list of an option that takes one); an
+// error when it has more columns than that. A single range given as one row is taken whole.
+std::vector<CellGrid> split_columns(const CellGrid& range, std::size_t count, std::size_t optional, const char* function);
 // For the trials of functions that take only numbers: the numbers of a single row or column,
 // at least `required` of them and at most one per name.
 std::vector<double> numbers_in_range(const CellGrid& range, std::size_t required,

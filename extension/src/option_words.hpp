@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "assoc/error.hpp"
+#include "assoc/wording.hpp"
 #include "uno_values.hpp"
 
 namespace assoc::calc {
@@ -39,6 +40,15 @@ public:
         return parse(cell.as_text());
     }
 
+    // The same, for an argument that also takes a range instead of a word (the order of ASSOC.LEVELS):
+    // a range (or an inline array) goes to `from_range`, read as to_cell_grid reads ranges.
+    template <class FromRange>
+    Value read(const css::uno::Any& argument, FromRange from_range) const {
+        AnyTable range;
+        if (argument >>= range) return from_range(to_cell_grid(range));
+        return read(argument);
+    }
+
     Value parse(const std::string& text) const {
         const std::string word = normalized_word(text);
         if (word.empty()) return omitted_;
@@ -46,7 +56,12 @@ public:
             if (word == known) return value;
         for (const auto& [turned_down, reason] : refused_)
             if (word == turned_down) throw Error("the " + what_ + " \"" + text + "\" cannot be used here: " + reason);
-        throw Error("the " + what_ + " \"" + text + "\" is unknown; the accepted words are " + accepted());
+        std::vector<std::string> words;
+        for (const auto& entry : words_) words.emplace_back(entry.first);
+        const std::vector<std::string> nearest = nearest_words(text, words);
+        throw Error("the " + what_ + " " + quoted_label(text) + " is unknown" +
+                    (nearest.empty() ? std::string() : " (did you mean " + quoted_list(nearest, "or") + "?)") +
+                    "; the accepted words are " + accepted());
     }
 
 private:

@@ -1,5 +1,6 @@
 #include "uno_values.hpp"
 
+#include <algorithm>
 #include <array>
 #include <cmath>
 #include <cstdint>
@@ -137,6 +138,7 @@ CellGrid to_cell_grid(const AnyTable& range) {
                     " cells up to its last value; Assoc reads tables of at most " +
                     format_count(static_cast<double>(cap)) + " counts");
     CellGrid grid(rows, used.columns);
+    grid.set_given_shape(all_rows, columns);  // a whole column keeps its height here (see CellGrid)
     // A table of counts holds few texts or none (its labels), and thousands of formulas may each
     // read one: the cache of converted texts is set up only when a text comes.
     std::unique_ptr<TextCells> texts;
@@ -219,6 +221,7 @@ CodedLabels to_coded_labels(const AnyTable& range) {
         for (const Any& value : row) coded.codes.push_back(coder.code(value));
     }
     coded.spellings = coder.take_spellings();
+    coded.whole_line = is_whole_line(coded.rows, coded.columns);
     return coded;
 }
 
@@ -263,6 +266,23 @@ Any to_any(const Matrix& values) {
 Any to_any(const std::string& text) { return Any(to_ou_string(text)); }
 
 Any to_any(const CellGrid& cells) {
+    // Calc 7.4 turns the texts of a string[][] result into texts of its shared string pool, as typed
+    // texts are, so `=`, EXACT, MATCH, VLOOKUP and COUNTIF find them. An any[][] result goes through
+    // ScSequenceToMatrix::CreateMixedMatrix, which wraps each text without the pool: it shows right
+    // but compares unequal to the same typed text (those comparisons match the pool's pointers). So a
+    // result of texts only (ASSOC.LEVELS of text labels) goes as string[][]; one that mixes numbers
+    // and texts has no such route (see the guide's workbook habits).
+    const bool all_text = std::none_of(cells.begin(), cells.end(), [](const Cell& cell) { return cell.is_number(); });
+    if (all_text) {
+        Sequence<Sequence<OUString>> texts(static_cast<sal_Int32>(cells.rows()));
+        Sequence<OUString>* rows = texts.getArray();
+        for (std::size_t r = 0; r < cells.rows(); ++r) {
+            rows[r].realloc(static_cast<sal_Int32>(cells.columns()));
+            OUString* out = rows[r].getArray();
+            for (std::size_t c = 0; c < cells.columns(); ++c) out[c] = to_ou_string(cells.at(r, c).as_text());
+        }
+        return Any(texts);
+    }
     Sequence<Sequence<Any>> result(static_cast<sal_Int32>(cells.rows()));
     Sequence<Any>* rows = result.getArray();
     for (std::size_t r = 0; r < cells.rows(); ++r) {
@@ -271,7 +291,9 @@ Any to_any(const CellGrid& cells) {
         for (std::size_t c = 0; c < cells.columns(); ++c) {
             const Cell& cell = cells.at(r, c);
             if (cell.is_number()) out[c] <<= finite(cell.as_number());
-            else out[c] <<= to_ou_string(cell.as_text());  // a blank is an empty text
+            // A blank stays void, an empty element of the array: `=X1=""` is then true, as for an empty
+            // cell (an empty text outside the pool would compare unequal to "").
+            else if (!cell.is_blank()) out[c] <<= to_ou_string(cell.as_text());
         }
     }
     return Any(result);

@@ -231,7 +231,11 @@ class ReportBlock(CalcTestCase):
         self.assertClose(lines["Critical X² at 5%"], 5.991464547107983, 1e-12, "critical (NIST, scipy)")
         self.assertTrue(lines["Decision at 5%"].startswith("Independence rejected"))
         self.assertClose(lines["Cramér's V"], 0.10443580236, 1e-10, "V (published_values.md section 3)")
-        self.assertEqual(lines["Conclusion"], "At the 5% level, gender and party appear associated (p = 3.0e-07).")
+        # V = 0.104 (published_values.md section 3) is w = 0.104 for two rows: weak by Cohen's bands.
+        self.assertEqual(lines["Conclusion"], "At the 5% level, gender and party appear associated (p = 3.0e-07), but "
+                                              "the association is weak: Cramér's V is 0.10 (Cohen's bands for w = "
+                                              "V·√(min(rows, columns) − 1): below 0.1 very weak, from 0.1 weak, from "
+                                              "0.3 moderate, from 0.5 strong).")
         self.assertIn("not proof of cause, nor of discrimination", lines["Caution"])
         self.assertEqual(block[-1][0], "Caution")
 
@@ -275,14 +279,14 @@ class BadInput(CalcTestCase):
     CASES = [
         ("text among the counts", [["", "Yes", "No"], ["North", 3, 7], ["South", 2, "n/a"]],
          "=ASSOC.STATISTIC({t})", None,
-         'Cannot use this table: row 3, column 3 holds the text "n/a"; counts must be numbers.'),
+         'Cannot use this table: row 3 ("South"), column 3 ("No") holds the text "n/a"; counts must be numbers.'),
         ("a negative count", [[4, 7], [2, -1]], "=ASSOC.PVALUE({t})", None,
          "Cannot use this table: row 2, column 2 holds the number -1; counts cannot be negative."),
         ("a table of one row", [[4, 5, 6]], "=ASSOC.DF({t})", None,
          "Cannot use this table: the table has only 1 row with counts; a test of association needs at least "
          "2 rows and 2 columns with counts."),
         ("an unknown method", THREE_BY_THREE, '=ASSOC.STATISTIC({t}; "chi")', '"chi"',
-         '"chi" is not an option word or the name of an ASSOC function; the words are "pearson", "g", "yates"'),
+         '"chi" is not an option word or the name of an ASSOC function; did you mean "phi"?'),
         ("an unknown residual kind", THREE_BY_THREE, '=ASSOC.RESIDUALS({t}; "studentized")', '"studentized"',
          '"studentized" is not an option word or the name of an ASSOC function'),
         ("yates on a 3×3 table", THREE_BY_THREE, '=ASSOC.STATISTIC({t}; "yates")', '"yates"',

@@ -417,18 +417,25 @@ class SelectionImpact(CalcTestCase, ErrorCheckMixin):
         # published_values.md section 9: rates .6, .4, .5; ratios 1, 2/3, 5/6; only G2 below 0.8 (29 CFR 1607.4(D)).
         self.assertAllClose([row[:2] for row in block], [list(v) for v in zip(self.IMPACT["rates"],
                                                                               self.IMPACT["ratios"])], 1e-14, "rates")
-        self.assertEqual([row[2] for row in block], ["", "below four-fifths of the highest rate", ""])
+        # The flag column as the cells show it (an unflagged group's flag is an empty element).
+        flags = self.sheet.getCellRangeByName("G1:G3")
+        self.assertEqual([flags.getCellByPosition(0, r).getString() for r in range(3)],
+                         ["", "below four-fifths of the highest rate", ""])
 
     def test_takes_another_threshold(self):
         selected = self.put(column(self.IMPACT["selected"]), column=1)
         considered = self.put(column(self.IMPACT["considered"]), column=2)
         block = self.array("E1:G3", f"=ASSOC.IMPACT({selected}; {considered}; 0.9)")
-        self.assertEqual([row[2] for row in block], ["", "below 90% of the highest rate", "below 90% of the highest rate"])
+        self.assertEqual(len(block), 3)
+        flags = self.sheet.getCellRangeByName("G1:G3")
+        self.assertEqual([flags.getCellByPosition(0, r).getString() for r in range(3)],
+                         ["", "below 90% of the highest rate", "below 90% of the highest rate"])
 
     def test_refuses_more_selected_than_considered_and_check_says_why_with_the_caution(self):
         self.put([[40, 30], [12, 30], [30, 60]], column=1)
         self.assertErrorExplained("=ASSOC.IMPACT(B1:B3; C1:C3)", '=ASSOC.CHECK(B1:C3; "impact")',
-                                  "ASSOC.IMPACT cannot be used here: group 1 has more selected (40) than considered (30)")
+                                  "ASSOC.IMPACT cannot be used here: the group in row 1 has more selected (40) than considered "
+                                  "(30)")
         self.put([[48, 80], [12, 30], [30, 60]], column=1, row=5)
         text = self.words("E9", '=ASSOC.CHECK(B6:C8; "impact")')
         self.assertTrue(text.startswith("ASSOC.IMPACT can be used on this range."), text)

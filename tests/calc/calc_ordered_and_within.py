@@ -108,7 +108,7 @@ class OrderedStrength(CalcTestCase, ErrorCheckMixin):
     def test_check_says_gamma_needs_a_table_of_counts(self):
         table = self.put([["Low", "High"], [3, "n/a"], [2, 5]])
         self.assertErrorExplained(f'=ASSOC.STRENGTH({table}; "gamma")', f'=ASSOC.CHECK({table}; "gamma")',
-                                  'row 2, column 2 holds the text "n/a"; counts must be numbers')
+                                  'row 2, column 2 ("High") holds the text "n/a"; counts must be numbers')
 
 
 class Within(CalcTestCase, ErrorCheckMixin):

@@ -17,7 +17,7 @@ from calc_more_functions import ErrorCheckMixin
 from calc_support import HERE, CalcTestCase, run_harness
 
 VALUES = json.loads((HERE / "rates_and_pairs_values.json").read_text())
-DEPARTMENTS = VALUES["departments"]  # 6 departments; Legal (row 3) has no counts
+DEPARTMENTS = VALUES["departments"]  # 6 departments; Legal (row 3 of the body, row 4 of the range) has no counts
 OFFICES = VALUES["offices"]
 
 
@@ -53,7 +53,8 @@ class Rates(CalcTestCase, ErrorCheckMixin):
         table = self.put(DEPARTMENTS)
         text = self.words("E1", f'=ASSOC.CHECK({table}; "rates")')
         self.assertIn("ASSOC.RATES can be used on this range.", text)
-        self.assertIn("Row 3 (Legal) has no counts, so it has no rate; its line stays empty.", text)
+        # Row 4 of the range: the header row is row 1.
+        self.assertIn("Row 4 (Legal) has no counts, so it has no rate; its line stays empty.", text)
 
     def test_refuse_a_single_column_and_check_says_why(self):
         table = self.put([["Promoted"], [12], [7]])

@@ -194,19 +194,27 @@ TEST(CountsFromRecords, RejectsWeightsOfAnotherLength) {
                  "the weights (1 cell) must be as long as the labels (2 cells)");
 }
 
-TEST(CountsFromRecords, RejectsANegativeWeight) {
+TEST(CountsFromRecords, RejectsANegativeWeightNamingItsRow) {
     expect_error([] { counts_from_records(grid({{"x"}, {"y"}}), grid({{"a"}, {"b"}}), grid({{1}, {-2}})); },
-                 "weight 2 of 2 holds the number -2; weights must be numbers of 0 or more");
+                 "the weight in row 2 is -2; a weight says how many people or items a record stands for, so it "
+                 "cannot be negative (leave out a record that undoes another, such as a credit note, or net the two)");
 }
 
-TEST(CountsFromRecords, RejectsATextWeight) {
-    expect_error([] { counts_from_records(grid({{"x"}, {"y"}}), grid({{"a"}, {"b"}}), grid({{"one"}, {1}})); },
-                 "weight 1 of 2 holds the text \"one\"; weights must be numbers of 0 or more");
+TEST(CountsFromRecords, RejectsATextWeightBelowTheFirstRow) {
+    expect_error([] { counts_from_records(grid({{"x"}, {"y"}}), grid({{"a"}, {"b"}}), grid({{1}, {"one"}})); },
+                 "the weight in row 2 holds the text \"one\"; weights must be numbers of 0 or more");
 }
 
-TEST(CountsFromRecords, RejectsABlankWeightOfACountedRecord) {
-    expect_error([] { counts_from_records(grid({{"x"}, {"y"}}), grid({{"a"}, {"b"}}), grid({{1}, {nullptr}})); },
-                 "weight 2 of 2 is blank; give every record a weight (0 leaves it out)");
+TEST(CountsFromRecords, SkipsARecordWithABlankWeightAndSaysWhich) {
+    const RecordCounts counts =
+        counts_from_records(grid({{"x"}, {"y"}, {"x"}}), grid({{"a"}, {"b"}, {"b"}}), grid({{1}, {nullptr}, {2}}));
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{1, 2, 0, 0}));
+    EXPECT_EQ(counts.skipped_weight, 1u);
+    EXPECT_NE(counts.feedback().find("Counted 2 of 3 records into 2 row levels and 2 column levels. 1 record has a "
+                                     "blank weight (row 2 of the ranges) and was skipped; give a weight of 0 to leave "
+                                     "a record out on purpose."),
+              std::string::npos)
+        << counts.feedback();
 }
 
 TEST(CountsFromRecords, RejectsATwoDimensionalRangeOfLabels) {

@@ -164,7 +164,7 @@ TEST(RowRates, LeavesARowOfZerosWithoutARateAndSaysWhy) {
     EXPECT_FALSE(rates.rows[1].has_counts);
     EXPECT_TRUE(rates.rows[2].has_counts);
     ASSERT_EQ(rates.remarks.size(), 1u);
-    EXPECT_EQ(rates.remarks[0], "Row 2 (Legal) has no counts, so it has no rate; its line stays empty.");
+    EXPECT_EQ(rates.remarks[0], "Row 3 (Legal) has no counts, so it has no rate; its line stays empty.");
 }
 
 TEST(RowRates, NamesAnUnlabelledRowOfZerosByItsPlace) {
@@ -206,7 +206,7 @@ TEST(RowRates, RejectsATableWithoutCounts) {
 
 TEST(RowRates, RejectsTextAmongTheCounts) {
     expect_error([] { row_rates(grid({{"", "Yes", "No"}, {"A", 3, "n/a"}})); },
-                 "row 2, column 3 holds the text \"n/a\"; counts must be numbers");
+                 "row 2 (\"A\"), column 3 (\"No\") holds the text \"n/a\"; counts must be numbers");
 }
 
 // ------------------------------------------------------------------------------ rate differences
@@ -283,7 +283,7 @@ TEST(RateDifference, AcceptsAColumnOfZerosAsRatesOfZero) {
 
 TEST(RateDifference, RejectsARowWithoutCounts) {
     expect_error([] { rate_difference(grid({{"", "Yes", "No"}, {"Design", 3, 4}, {"Legal", 0, 0}})); },
-                 "row 2 (Legal) has no counts, so it has no rate to compare; the rate difference needs counts in "
+                 "row 3 (Legal) has no counts, so it has no rate to compare; the rate difference needs counts in "
                  "both rows");
 }
 

@@ -76,7 +76,7 @@ TEST(ReadCountTable, AllowsWeightedCountsButSaysTheyAreNotWhole) {
 
 TEST(ReadCountTable, RejectsTextInTheBodyNamingTheCell) {
     expect_error([] { read_count_table(grid({{"", "A", "B"}, {"x", 1, 2}, {"y", "n/a", 4}})); },
-                 "row 3, column 2 holds the text \"n/a\"; counts must be numbers");
+                 "row 3 (\"y\"), column 2 (\"A\") holds the text \"n/a\"; counts must be numbers");
 }
 
 TEST(ReadCountTable, RejectsNegativeCountsNamingTheCell) {
@@ -163,9 +163,11 @@ TEST(ReadCountTable, RejectsAFirstColumnMixingLabelsAndNumbersNamingTheText) {
                  "row 2, column 1 holds the text \"x\"; counts must be numbers");
 }
 
+// Rows and columns count in the range as selected (a header row is row 1), and are named by their
+// labels too where the range has them.
 TEST(ReadCountTable, NamesTheCellByItsPlaceInTheRangeIncludingHeaders) {
     expect_error([] { read_count_table(grid({{"", "A", "B"}, {"x", 1, -2}, {"y", 3, 4}})); },
-                 "row 2, column 3 holds the number -2; counts cannot be negative");
+                 "row 2 (\"x\"), column 3 (\"B\") holds the number -2; counts cannot be negative");
     expect_error([] { read_count_table(grid({{1, 2}, {-0.5, 4}})); },
                  "row 2, column 1 holds the number -0.5; counts cannot be negative");
 }

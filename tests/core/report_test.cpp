@@ -141,15 +141,20 @@ TEST(AssociationReport, CarriesTheValidityVerdictOfTheCheck) {
     EXPECT_EQ(text(association_report(table), "Validity"), check_validity(table).summary());
 }
 
+// Agresti's table: V = 0.1044 (published_values.md section 3), w = V for two rows: weak by Cohen's bands.
+const std::string party_strength =
+    ", but the association is weak: Cramér's V is 0.10 (Cohen's bands for w = V·√(min(rows, columns) − 1): below "
+    "0.1 very weak, from 0.1 weak, from 0.3 moderate, from 0.5 strong).";
+
 TEST(AssociationReport, NamesTheVariablesOfTheCornerCellInTheConclusion) {
     EXPECT_EQ(text(report_of(party_range("Gender / Party")), "Conclusion"),
-              "At the 5% level, gender and party appear associated (p = 3.0e-07).");
+              "At the 5% level, gender and party appear associated (p = 3.0e-07)" + party_strength);
 }
 
 TEST(AssociationReport, NamesTheHeaderLabelsWhenTheCornerIsBlank) {
     EXPECT_EQ(text(report_of(party_range("")), "Conclusion"),
               "At the 5% level, the rows (Females, Males) and the columns (Democrat, Independent, Republican) "
-              "appear associated (p = 3.0e-07).");
+              "appear associated (p = 3.0e-07)" + party_strength);
 }
 
 TEST(AssociationReport, ShortensLongListsOfLabels) {
@@ -254,10 +259,21 @@ TEST(VariableNamesFromCorner, KeepsTheCapitalsOfAbbreviations) {
     EXPECT_EQ(names.columns, "promotion outcome");
 }
 
-TEST(VariableNamesFromCorner, NamesOnlyTheRowsWithoutASeparator) {
-    const CellGrid range = party_range("Gender");
+// A corner without "/" is a title ("Gender", "Headcount 2024"): reading it as the rows' name garbled the
+// conclusion ("headcount 2024 and the columns … appear associated"), so it names nothing.
+TEST(VariableNamesFromCorner, NameNothingWithoutASeparator) {
+    for (const char* corner : {"Gender", "Headcount 2024"}) {
+        const CellGrid range = party_range(corner);
+        const VariableNames names = variable_names_from_corner(range, read_count_table(range));
+        EXPECT_EQ(names.rows, "");
+        EXPECT_EQ(names.columns, "");
+    }
+}
+
+TEST(VariableNamesFromCorner, NameNothingWhenOneSideOfTheSeparatorIsEmpty) {
+    const CellGrid range = party_range("Gender /");
     const VariableNames names = variable_names_from_corner(range, read_count_table(range));
-    EXPECT_EQ(names.rows, "gender");
+    EXPECT_EQ(names.rows, "");
     EXPECT_EQ(names.columns, "");
 }
 

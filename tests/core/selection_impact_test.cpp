@@ -60,9 +60,21 @@ TEST(SelectionImpact, ComesWithACaution) {
     EXPECT_NE(selection_impact_caution().find("not proof of discrimination"), std::string::npos);
 }
 
-TEST(SelectionImpact, RejectsAGroupWithNobodyConsidered) {
+TEST(SelectionImpact, LeavesAGroupWithNobodyConsideredEmptyAndComparesTheOthers) {
+    const SelectionImpact impact = selection_impact(grid({{5}, {0}, {3}}), grid({{10}, {0}, {12}}));
+    ASSERT_EQ(impact.groups.size(), 3u);
+    EXPECT_FALSE(impact.groups[1].has_rate);
+    EXPECT_EQ(impact.groups[1].flag, "no one considered: no selection rate");
+    EXPECT_EQ(impact.groups[0].impact_ratio, 1.0);
+    EXPECT_EQ(impact.groups[2].impact_ratio, 0.5);  // (3/12) / (5/10), exact
+    EXPECT_EQ(impact.remarks, (std::vector<std::string>{
+                                  "No one is considered in the group in row 2, so its row of the result is left empty "
+                                  "(no selection rate); the other groups were compared."}));
+}
+
+TEST(SelectionImpact, RejectsFewerThanTwoGroupsWithPeopleConsidered) {
     expect_error([] { selection_impact(grid({{5}, {0}}), grid({{10}, {0}})); },
-                 "group 2 has 0 people considered, so it has no selection rate; leave it out");
+                 "comparing selection rates needs at least 2 groups with people considered; only 1 group has any");
 }
 
 TEST(SelectionImpact, RejectsAllRatesZero) {
@@ -72,7 +84,7 @@ TEST(SelectionImpact, RejectsAllRatesZero) {
 
 TEST(SelectionImpact, RejectsMoreSelectedThanConsidered) {
     expect_error([] { selection_impact(grid({{5}, {13}}), grid({{10}, {12}})); },
-                 "group 2 has more selected (13) than considered (12)");
+                 "the group in row 2 has more selected (13) than considered (12)");
 }
 
 TEST(SelectionImpact, RejectsRangesOfDifferentLengths) {
@@ -82,10 +94,32 @@ TEST(SelectionImpact, RejectsRangesOfDifferentLengths) {
 
 TEST(SelectionImpact, RejectsTextWhereACountIsNeeded) {
     expect_error([] { selection_impact(grid({{5}, {"few"}}), grid({{10}, {12}})); },
-                 "the selected count of group 2 is the text \"few\"; give a number of 0 or more");
+                 "the selected count of the group in row 2 is the text \"few\"; give a number of 0 or more (leave "
+                 "both cells blank for a group without counts)");
 }
 
 TEST(SelectionImpact, RejectsAThresholdAboveOne) {
     expect_error([] { selection_impact(grid({{5}, {3}}), grid({{10}, {12}}), 80); },
                  "the threshold must be above 0 and at most 1 (0.8 for four-fifths), not 80");
+}
+
+// Workbook ranges: a header in row 1, whole columns ending in blanks, a group without counts.
+TEST(SelectionImpact, ReadsHeadersAndLeavesOutTheBlanksAfterTheLastGroup) {
+    CellGrid selected = grid({{"Selected"}, {12}, {nullptr}, {5}, {9}});
+    CellGrid considered = grid({{"Considered"}, {40}, {nullptr}, {30}, {20}});
+    selected.set_given_shape(1'048'576, 1);
+    considered.set_given_shape(1'048'576, 1);
+    const SelectionImpact impact = selection_impact(selected, considered);
+    ASSERT_EQ(impact.groups.size(), 4u);
+    EXPECT_FALSE(impact.groups[1].has_rate);
+    EXPECT_EQ(impact.groups[1].flag, "no counts: no selection rate");
+    EXPECT_EQ(impact.highest_group, 3u);  // 9/20 = 0.45 is the highest rate
+    EXPECT_EQ(impact.remarks.front(), "Row 1 holds text and was read as a header; the result has one row per group "
+                                      "below it.");
+}
+
+TEST(SelectionImpact, RefusesAGroupWithOnlyOneOfItsCountsNamingItsRow) {
+    expect_error([] { selection_impact(grid({{"Selected"}, {12}, {nullptr}}), grid({{"Considered"}, {40}, {30}})); },
+                 "the selected count of the group in row 3 is blank; give a number of 0 or more (leave both cells "
+                 "blank for a group without counts)");
 }

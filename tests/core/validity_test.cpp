@@ -72,9 +72,21 @@ TEST(ValidityCheck, AdvisesCombiningCategoriesWhenCountsAreWeighted) {
     const ValidityCheck check = check_validity(table({{3.5, 1}, {1, 3}}));
     EXPECT_FALSE(check.whole_counts);
     EXPECT_EQ(check.summary(),
-              "Doubtful: the smallest expected count is 1.88, and 4 of 4 cells (100%) expect fewer than 5; Cochran's "
-              "rule asks for none below 1 and at most 20% below 5. Combine sparse categories or collect more data. "
-              "Some counts are not whole numbers (weighted data); exact tests need whole counts.");
+              "Doubtful: Some counts are not whole numbers (weighted data): the chi-squared p-value treats them as "
+              "counts of independent people or items, so it is right only for frequency weights (each weight the "
+              "number of people a record stands for), never for amounts such as pay or invoice values, nor for "
+              "survey weights; exact tests need whole counts. The smallest expected count is 1.88, and 4 of 4 cells "
+              "(100%) expect fewer than 5; Cochran's rule asks for none below 1 and at most 20% below 5. Combine "
+              "sparse categories or collect more data.");
+}
+
+// Weighted counts are never "Sound", however large: the p-value is only right for frequency weights.
+TEST(ValidityCheck, NeverCallsCountsThatAreNotWholeSound) {
+    const std::string summary = check_validity(table({{120.5, 80}, {90, 130.25}})).summary();
+    EXPECT_EQ(summary.rfind("Doubtful: Some counts are not whole numbers (weighted data)", 0), 0u) << summary;
+    // Smallest E: 200.5 · 210.25 / 420.75 = 100.19 (exact arithmetic).
+    EXPECT_NE(summary.find("The smallest expected count is 100 and no cell expects fewer than 5."), std::string::npos)
+        << summary;
 }
 
 TEST(ValidityCheck, ReportsBlanksAndSetAsideRowsAndColumnsByTheirLabels) {

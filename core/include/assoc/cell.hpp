@@ -48,12 +48,25 @@ public:
     std::size_t rows() const { return rows_; }
     std::size_t columns() const { return columns_; }
     bool empty() const { return rows_ == 0 || columns_ == 0; }
+    // The shape of the range as it was given, before the adapter left out its trailing blank rows and
+    // columns: a whole sheet column (A:A) keeps the sheet's height here. Equal to rows() and columns()
+    // unless set.
+    std::size_t given_rows() const { return given_rows_ > rows_ ? given_rows_ : rows_; }
+    std::size_t given_columns() const { return given_columns_ > columns_ ? given_columns_ : columns_; }
+    void set_given_shape(std::size_t rows, std::size_t columns) {
+        given_rows_ = rows;
+        given_columns_ = columns;
+    }
     Cell& at(std::size_t row, std::size_t column) { return cells_[row * columns_ + column]; }
+    // The cells row by row.
+    std::vector<Cell>::const_iterator begin() const { return cells_.begin(); }
+    std::vector<Cell>::const_iterator end() const { return cells_.end(); }
     const Cell& at(std::size_t row, std::size_t column) const { return cells_[row * columns_ + column]; }
 
 private:
     std::size_t rows_ = 0;
     std::size_t columns_ = 0;
+    std::size_t given_rows_ = 0, given_columns_ = 0;
     std::vector<Cell> cells_;
 };
 

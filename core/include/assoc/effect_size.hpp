@@ -1,4 +1,5 @@
 #pragma once
+#include <string>
 // Strength of association, on scales that do not grow with the sample size.
 // All use the uncorrected Pearson X²: a continuity correction is for the test, not the size.
 #include "assoc/count_table.hpp"
@@ -22,5 +23,13 @@ double contingency_coefficient(const CountTable& table);
 
 // Cohen's w = √(X² / n), the effect size that power calculations use.
 double cohens_w(const CountTable& table);
+
+// The strength of an association in words for a memo, from Cramér's V turned into Cohen's w =
+// V·√(min(r, c) − 1) (the same as √(X²/n)): below 0.1 "very weak", from 0.1 "weak", from 0.3
+// "moderate", from 0.5 "strong". The bands are Cohen's (1988, ch. 7) conventions for w: 0.1 small,
+// 0.3 medium, 0.5 large (from memory); "very weak" for less than small is common practice.
+std::string strength_in_words(double cramers_v, const CountTable& table);
+// Those bands in a few words, to go with strength_in_words.
+std::string strength_bands();
 
 }  // namespace assoc

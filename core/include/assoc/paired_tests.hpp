@@ -6,6 +6,7 @@
 #include <cstddef>
 #include <optional>
 #include <string>
+#include <vector>
 
 #include "assoc/cell.hpp"
 #include "assoc/matrix.hpp"
@@ -29,6 +30,8 @@ struct PairedResult {
     // Chi-squared methods: the pairs of cells compared. Exact: 0 (no chi-squared distribution).
     double df = 0.0;
     PairedMethod method = PairedMethod::corrected;  // the method applied
+    // How the table was read, for ASSOC.CHECK (e.g. columns matched to the rows by their labels).
+    std::vector<std::string> remarks;
 };
 
 // The paired test of a square table of counts (k ≥ 2 categories). The continuity correction never
@@ -39,8 +42,11 @@ struct PairedResult {
 PairedResult paired_test(const Matrix& square, std::optional<PairedMethod> method = std::nullopt);
 
 // Reads the table as read_count_table does (a header row and label column are allowed; empty
-// rows and columns are kept, since row i and column i must stay the same category), then tests
-// it. A table that is not square is an error: a corner of a larger table is never used.
+// rows and columns are kept, since row i and column i must stay the same category; total lines are
+// left out), then tests it. A table that is not square is an error: a corner of a larger table is
+// never used. When both the rows and the columns carry labels, the columns are matched to the rows
+// by their labels (trimmed, A–Z read as a–z), whatever their order; labels that do not match, or a
+// label missing or given twice, are an error that names them.
 PairedResult paired_test(const CellGrid& table, std::optional<PairedMethod> method = std::nullopt);
 
 }  // namespace assoc

@@ -29,12 +29,26 @@ struct Strata {
     std::vector<Stratum> tables;  // one 2×2 table per stratum, in the order of the range
     StrataLayout layout = StrataLayout::one_row_each;
     std::size_t blank_cells = 0;  // blank count cells, read as 0
+    // How the range was read, in sentences for ASSOC.CHECK: rows paired in order because the labels do
+    // not show the strata, rows of a stratum matched by their group labels, totals set aside.
+    std::vector<std::string> remarks;
 };
 
 // Reads strata from a range. The header row and label column are recognised as for
-// read_count_table (a first row or column of texts). The counts must be 4 columns (one
-// stratum per row) or 2 columns with an even number of rows (stacked 2×2 tables); any other
-// shape is an error, never reshaped. At least 2 strata are needed.
+// read_count_table (a first row or column of texts); total lines are left out. The counts must be
+// 4 columns (one stratum per row) or 2 columns (stacked 2×2 tables); any other shape is an error,
+// never reshaped. At least 2 strata are needed.
+//
+// In the stacked layout the labels say which rows form a stratum, and each stratum must have
+// exactly 2 rows (an error names a stratum that has another number, and its rows):
+// - two label columns (e.g. Office, Sex): the first names the stratum, blank meaning "as above";
+// - one label column: the stratum's name on its first row with blanks below it; or the stratum's
+//   name on each of its rows; or group labels that repeat (Women, Men, Women, Men: the period
+//   is the number of rows per stratum);
+// - no labels, or labels that are all different: the rows are taken two by two in order (a remark
+//   says so when there are labels). Labels that repeat in no such pattern are an error.
+// When the groups of each stratum carry labels, a stratum whose two rows come in the other order is
+// matched to the first stratum's order (and a remark says so).
 Strata read_strata(const CellGrid& range);
 
 // "stratum 3" or "stratum 3 (Legal)", for messages.

@@ -22,10 +22,15 @@ struct ValidityCheck {
     std::size_t blank_cells = 0;
     bool whole_counts = true;
     std::vector<SetAside> set_aside_rows, set_aside_columns;
+    // What makes the table itself doubtful, whatever its expected counts: counts that are not whole
+    // numbers, a line labelled as data that holds the sum of the others, rows that each add up to 100
+    // (see CountTable::doubts). Any of them makes the verdict "Doubtful".
+    std::vector<std::string> doubts;
     // Further remarks that other routines add (e.g. a correction they applied).
     std::vector<std::string> remarks;
 
     // The verdict in plain words, one paragraph: first "Sound:" or "Doubtful:", then the facts.
+    // Its length does not grow with the table: set-aside lines are named in a short summary.
     std::string summary() const;
 };
 

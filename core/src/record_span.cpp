@@ -1,0 +1,81 @@
+#include "record_span.hpp"
+
+#include <algorithm>
+
+#include "assoc/wording.hpp"
+
+namespace assoc::detail {
+namespace {
+
+bool is_text_code(const CodedLabels& labels, std::uint32_t code) {
+    return code != CodedLabels::blank && code < labels.spellings.size() && labels.spellings[code].is_text();
+}
+
+// Whether the first cell of `labels` is a text found nowhere else in positions 1 to end − 1.
+bool unique_text_at_start(const CodedLabels& labels, std::size_t end) {
+    if (labels.codes.empty() || !is_text_code(labels, labels.codes[0])) return false;
+    const std::string_view first = trimmed_label(labels.spellings[labels.codes[0]].as_text());
+    // Two spellings may hold the same text (copies of one text that the host did not share).
+    std::vector<bool> same(labels.spellings.size(), false);
+    for (std::size_t s = 0; s < labels.spellings.size(); ++s)
+        same[s] = labels.spellings[s].is_text() && trimmed_label(labels.spellings[s].as_text()) == first;
+    for (std::size_t i = 1; i < end && i < labels.codes.size(); ++i) {
+        const std::uint32_t code = labels.codes[i];
+        if (code != CodedLabels::blank && code < same.size() && same[code]) return false;
+    }
+    return true;
+}
+
+std::string first_cell_text(const CodedLabels& labels) {
+    if (labels.codes.empty() || !is_text_code(labels, labels.codes[0])) return "";
+    return quoted_label(labels.spellings[labels.codes[0]].as_text());
+}
+
+}  // namespace
+
+std::string record_place(const CodedLabels& labels, std::size_t i) {
+    return std::string(labels.rows == 1 && labels.columns > 1 ? "column " : "row ") + std::to_string(i + 1);
+}
+
+RecordSpan record_span(const std::vector<const CodedLabels*>& labels, const Cell* first_weight, std::size_t weights_end) {
+    RecordSpan span;
+    for (const CodedLabels* range : labels) {
+        std::size_t end = range->codes.size();
+        while (end > 0 && range->codes[end - 1] == CodedLabels::blank) --end;
+        span.end = std::max(span.end, end);
+    }
+    span.end = std::max(span.end, weights_end);
+    if (span.end < 2 || labels.empty()) return span;
+
+    const CodedLabels& shape = *labels.front();
+    const bool along_row = shape.rows == 1 && shape.columns > 1;
+    const std::string line = along_row ? "Column 1" : "Row 1";
+    std::vector<std::string> firsts;
+    for (const CodedLabels* range : labels) {
+        const std::string text = first_cell_text(*range);
+        if (!text.empty()) firsts.push_back(text);
+    }
+    const std::string what = firsts.size() > 1 ? " (" + name_list(firsts) + ")" : "";
+
+    for (const CodedLabels* range : labels) {
+        if (!range->whole_line || !unique_text_at_start(*range, span.end)) continue;
+        span.first = 1;
+        span.remarks.push_back(line + what + " was read as a header and left out, since " + first_cell_text(*range) +
+                               " is a text found nowhere else in its whole " + (along_row ? "row" : "column") +
+                               "; if it is a record, select the records as a range (for example " +
+                               (along_row ? "A1:Z1" : "A1:A500") + ") instead of the whole " +
+                               (along_row ? "row." : "column."));
+        return span;
+    }
+    if (first_weight != nullptr && first_weight->is_text() &&
+        std::all_of(labels.begin(), labels.end(), [](const CodedLabels* range) {
+            return range->codes.empty() || range->codes[0] == CodedLabels::blank || is_text_code(*range, range->codes[0]);
+        })) {
+        span.first = 1;
+        span.remarks.push_back(line + what + " was read as a header and left out, since its weight is the text " +
+                               quoted_label(first_weight->as_text()) + ".");
+    }
+    return span;
+}
+
+}  // namespace assoc::detail

@@ -1,0 +1,228 @@
+#include "total_lines.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include "assoc/error.hpp"
+#include "assoc/wording.hpp"
+
+namespace assoc::detail {
+namespace {
+
+// Lower case (A–Z), without surrounding spaces or a trailing colon.
+std::string folded_total_label(std::string_view label) {
+    std::string text = folded_label(label);
+    while (!text.empty() && (text.back() == ':' || text.back() == '.')) text.pop_back();
+    return std::string(trimmed_label(text));
+}
+
+const char* const total_words[] = {
+    // English
+    "total", "totals", "grand total", "sum", "sum total", "subtotal", "sub-total", "sub total", "all", "overall",
+    "total count",
+    // German
+    "summe", "gesamt", "insgesamt", "gesamtsumme", "zwischensumme", "alle",
+    // French
+    "totaux", "somme", "ensemble", "sous-total", "total général", "total general",
+    // Spanish and Portuguese
+    "totales", "suma", "total general", "soma", "total geral", "todos",
+    // Italian
+    "totale", "totali", "somma", "subtotale", "totale generale",
+    // Dutch
+    "totaal", "som", "subtotaal", "eindtotaal", "alle",
+    // Scandinavian
+    "totalt", "summa", "i alt", "samlet",
+    // Polish
+    "razem", "ogółem", "ogolem", "suma całkowita",
+};
+
+const char* const total_beginnings[] = {"total ",  "grand total", "subtotal ", "gesamt",
+                                                          "summe ",  "totale ",     "totaal ",   "totalt ",
+                                                          "sub-total "};
+
+// A view of the body's rows, or of its columns, as lines of numbers.
+struct Lines {
+    const Matrix& body;
+    bool rows;
+    std::size_t count() const { return rows ? body.rows() : body.columns(); }
+    std::size_t length() const { return rows ? body.columns() : body.rows(); }
+    double at(std::size_t line, std::size_t k) const { return rows ? body(line, k) : body(k, line); }
+    bool empty(std::size_t line) const {
+        for (std::size_t k = 0; k < length(); ++k)
+            if (at(line, k) != 0) return false;
+        return true;
+    }
+};
+
+bool same_amount(double a, double b) { return std::fabs(a - b) <= 1e-9 * std::max({1.0, std::fabs(a), std::fabs(b)}); }
+
+// Whether `line` holds the sum of `others` (leaving out `except`) at every position not excluded
+// by `skip`.
+bool holds_sum(const Lines& lines, std::size_t line, const std::vector<std::size_t>& others, const std::vector<bool>& skip,
+               std::size_t except = static_cast<std::size_t>(-1)) {
+    for (std::size_t k = 0; k < lines.length(); ++k) {
+        if (skip[k]) continue;
+        double sum = 0;
+        for (std::size_t other : others)
+            if (other != except) sum += lines.at(other, k);
+        if (!same_amount(lines.at(line, k), sum)) return false;
+    }
+    return true;
+}
+
+std::string line_name(const BodySide& side, std::size_t line) {
+    const std::string& label = (*side.labels)[line];
+    if (!label.empty()) return "the " + std::string(side.word) + " " + quoted_label(label);
+    return std::string(side.word) + " " + std::to_string(side.first_number + line);
+}
+
+std::string capitalised(std::string text) {
+    if (!text.empty() && text[0] >= 'a' && text[0] <= 'z') text[0] = static_cast<char>(text[0] - 'a' + 'A');
+    return text;
+}
+
+// Looks for total lines on one side: `total` gets the labelled ones and `skip` holds the labelled
+// totals of the other side, whose positions take no part in the sums.
+void find_on_side(const Lines& lines, const BodySide& side, std::vector<bool>& total, const std::vector<bool>& skip,
+                  std::vector<std::string>& doubts) {
+    std::vector<std::size_t> data;
+    data.reserve(lines.count());
+    for (std::size_t i = 0; i < lines.count(); ++i)
+        if (!total[i]) data.push_back(i);
+
+    // Labelled totals: the sum of the other lines, or of the lines since the previous total (a subtotal).
+    std::size_t block_start = 0;
+    for (std::size_t i = 0; i < lines.count(); ++i) {
+        if (!total[i]) continue;
+        std::vector<std::size_t> block;
+        for (std::size_t j = block_start; j < i; ++j)
+            if (!total[j]) block.push_back(j);
+        std::vector<std::size_t> after;
+        for (std::size_t j = i + 1; j < lines.count() && !total[j]; ++j) after.push_back(j);
+        block_start = i + 1;
+        if (holds_sum(lines, i, data, skip) || (!block.empty() && holds_sum(lines, i, block, skip)) ||
+            (!after.empty() && holds_sum(lines, i, after, skip)))
+            continue;
+        doubts.push_back(capitalised(line_name(side, i)) + " was set aside as a total, but it does not hold the sum of the "
+                         "other " + side.word + "s; check that it is a total and that no " + side.word + " is missing.");
+    }
+
+    // A first or last line that holds the sum of the others.
+    if (data.size() < 3) return;
+    // The other lines are `data` but the candidate, walked in place: this runs for every table read,
+    // thousands of times in a sheet of small tables.
+    for (std::size_t candidate : {data.back(), data.front()}) {
+        if (lines.empty(candidate)) continue;
+        std::size_t non_empty = 0;
+        for (std::size_t i : data)
+            if (i != candidate && !lines.empty(i)) ++non_empty;
+        // A sum that holds at a single position (a table of one row or column) is easily a coincidence:
+        // there it takes 3 other lines to tell a total.
+        std::size_t positions = 0;
+        for (std::size_t k = 0; k < lines.length(); ++k) {
+            double sum = 0;
+            for (std::size_t other : data)
+                if (other != candidate) sum += lines.at(other, k);
+            if (!skip[k] && sum != 0) ++positions;
+        }
+        if (non_empty < (positions >= 2 ? 2u : 3u) || !holds_sum(lines, candidate, data, skip, candidate)) continue;
+        const std::string& label = (*side.labels)[candidate];
+        if (label.empty()) {
+            std::vector<std::size_t> numbers;
+            for (std::size_t i : data)
+                if (i != candidate) numbers.push_back(side.first_number + i);
+            throw Error(line_name(side, candidate) + " holds the sum of " + numbered_lines(side.word, numbers) +
+                        " in every " + side.other_word + ", so it looks like a total, and a total must not be tested "
+                        "as if it held more counts; leave it out of the range, or label it \"Total\" (it is then set "
+                        "aside). If it does hold counts, give the " + side.word + "s labels");
+        }
+        doubts.push_back(capitalised(line_name(side, candidate)) + " holds the sum of the other " + side.word +
+                         "s in every " + side.other_word + ": if it is a total, leave it out of the range or label "
+                         "it \"Total\"; it was tested as counts.");
+        return;
+    }
+}
+
+}  // namespace
+
+bool is_total_label(std::string_view label) {
+    const std::string text = folded_total_label(label);
+    if (text.empty()) return false;
+    for (const char* word : total_words)
+        if (text == word) return true;
+    for (const char* beginning : total_beginnings) {
+        const std::string_view start(beginning);
+        if (text.size() > start.size() && text.compare(0, start.size(), start) == 0) return true;
+    }
+    return false;
+}
+
+TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns) {
+    TotalLines totals;
+    totals.rows.assign(body.rows(), false);
+    totals.columns.assign(body.columns(), false);
+    for (std::size_t r = 0; r < body.rows(); ++r) totals.rows[r] = rows.labelled && is_total_label((*rows.labels)[r]);
+    for (std::size_t c = 0; c < body.columns(); ++c)
+        totals.columns[c] = columns.labelled && is_total_label((*columns.labels)[c]);
+    find_on_side(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts);
+    find_on_side(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts);
+    return totals;
+}
+
+std::vector<std::string> refuse_percentages(const Matrix& body, const std::vector<bool>& total_rows,
+                                            const std::vector<bool>& total_columns) {
+    bool all_whole = true;
+    double grand = 0;
+    std::vector<double> row_sums(body.rows(), 0.0), column_sums(body.columns(), 0.0);
+    for (std::size_t r = 0; r < body.rows(); ++r)
+        for (std::size_t c = 0; c < body.columns(); ++c) {
+            if (total_rows[r] || total_columns[c]) continue;
+            const double value = body(r, c);
+            all_whole = all_whole && value == std::floor(value);
+            row_sums[r] += value;
+            column_sums[c] += value;
+            grand += value;
+        }
+
+    std::vector<std::string> doubts;
+    const auto check_side = [&](const std::vector<double>& sums, const char* word) {
+        std::size_t with_counts = 0;
+        bool hundred = true, one = true, exactly_hundred = true;
+        for (double sum : sums) {
+            if (sum == 0) continue;
+            ++with_counts;
+            hundred = hundred && std::fabs(sum - 100) <= 1;
+            one = one && std::fabs(sum - 1) <= 0.01;
+            exactly_hundred = exactly_hundred && sum == 100;
+        }
+        if (with_counts < 2) return;
+        // The words are put together only when they are said (this runs for every table read).
+        const auto every = [&] { return std::string("every ") + word + " adds up to "; };
+        const auto instead = [&] {
+            return "; the tests need the number of people (or items) in each cell, which a " +
+                   std::string(hundred ? "percentage" : "share") + " hides: enter the counts instead";
+        };
+        if (!all_whole && hundred)
+            throw Error(every() + "100 and some entries are not whole numbers, so these look like percentages, not counts" +
+                        instead());
+        if (!all_whole && one)
+            throw Error(every() + "1 and some entries are not whole numbers, so these look like shares (proportions), "
+                        "not counts" + instead());
+        if (all_whole && exactly_hundred)
+            doubts.push_back("Every " + std::string(word) + " adds up to exactly 100: if these are percentages, enter the "
+                             "counts instead (the tests need the number of people in each cell); if each " + word +
+                             " really counts 100 people, this can be ignored.");
+    };
+    check_side(row_sums, "row");
+    check_side(column_sums, "column");
+    if (!all_whole && std::fabs(grand - 100) <= 1)
+        throw Error("the entries add up to 100 and some are not whole numbers, so these look like percentages of the "
+                    "whole table, not counts; the tests need the number of people (or items) in each cell: enter the "
+                    "counts instead");
+    if (!all_whole && std::fabs(grand - 1) <= 0.01)
+        throw Error("the entries add up to 1 and are not whole numbers, so these look like shares of the whole table, "
+                    "not counts; the tests need the number of people (or items) in each cell: enter the counts instead");
+    return doubts;
+}
+
+}  // namespace assoc::detail

@@ -1,0 +1,53 @@
+#pragma once
+// Totals and percentages inside a range of counts: a workbook's author often selects a table with
+// its total row or column, or types percentages instead of counts. Read as counts, either gives a
+// confident wrong answer, so read_count_table sets labelled totals aside, refuses what it cannot
+// tell apart from counts, and reports what stays ambiguous.
+#include <cstddef>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "assoc/matrix.hpp"
+
+namespace assoc::detail {
+
+// Whether a label names a total line: one of the words for a total in English, German, French,
+// Spanish, Italian, Dutch, Portuguese, the Scandinavian languages and Polish ("Total", "Totals",
+// "Grand total", "Subtotal", "Sum", "All", "Overall", "Summe", "Gesamt", "Insgesamt", "Somme",
+// "Ensemble", "Suma", "Totale", "Totaal", "Soma", "Totalt", "Summa", "I alt", "Razem", "Ogółem", …),
+// in any case (A–Z), with a trailing colon allowed; or a label that begins with "Total",
+// "Grand total", "Subtotal", "Gesamt", "Summe", "Totale", "Totaal" or "Totalt" followed by a space
+// ("Total staff", "Total 2024"). Exact words only otherwise: "Allowances" or "Summer" are no totals.
+bool is_total_label(std::string_view label);
+
+// One side of a table body: its rows (or its columns), how they are labelled and numbered.
+struct BodySide {
+    const char* word;                   // "row" or "column"
+    const char* other_word;             // "column" or "row"
+    const std::vector<std::string>* labels;  // trimmed labels, "" where none
+    bool labelled;                      // the range has labels on this side
+    std::size_t first_number;           // the range's 1-based number of body line 0
+};
+
+struct TotalLines {
+    std::vector<bool> rows, columns;  // true: a total line, set aside
+    std::vector<std::string> doubts;  // sentences for the verdict
+};
+
+// Finds the total lines of `body`. A line is a total when its label is a total word (set aside; a
+// doubt when it holds neither the sum of the other lines nor that of the lines since the previous
+// total); or when it is the first or last of the lines that are not labelled totals and holds, in
+// every position, the sum of at least 2 other non-empty lines. Such a line without a label is
+// refused (an Error that says what was found and what to do); with a label that is not a total
+// word it is kept as counts and doubted.
+TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns);
+
+// Refuses percentages and shares typed instead of counts: the lines of one side (at least 2 with
+// counts) that each add up to 100 (within 1) or to 1 (within 0.01), or a body that adds up to 100 or
+// 1, when some entry is not a whole number. Lines of whole numbers that each add up to exactly 100
+// give a doubt instead (they may be percentages, or 100 people each). Total lines are left out.
+std::vector<std::string> refuse_percentages(const Matrix& body, const std::vector<bool>& total_rows,
+                                            const std::vector<bool>& total_columns);
+
+}  // namespace assoc::detail

@@ -1,0 +1,61 @@
+// Paired tables read by their labels: columns matched to the rows, mismatches refused, totals left out.
+#include <gtest/gtest.h>
+
+#include <string>
+
+#include "assoc/paired_tests.hpp"
+#include "assoc/validity.hpp"
+#include "test_support.hpp"
+
+using namespace assoc;
+using assoc::test::expect_error;
+using assoc::test::grid;
+
+// Invented: the same 85 staff asked twice. Exact identity: matching the columns by label gives the table
+// with the columns in the rows' order, so the same test as that table.
+TEST(PairedLabels, MatchTheColumnsToTheRowsWhateverTheirOrder) {
+    const PairedResult reordered = paired_test(grid({{"Before / After", "No", "Yes"}, {"Yes", 5, 30}, {"No", 40, 10}}));
+    const PairedResult aligned = paired_test(grid({{"", "Yes", "No"}, {"Yes", 30, 5}, {"No", 10, 40}}));
+    EXPECT_EQ(reordered.p_value, aligned.p_value);
+    EXPECT_EQ(reordered.statistic, aligned.statistic);
+    ASSERT_EQ(reordered.remarks.size(), 1u);
+    EXPECT_EQ(reordered.remarks[0], "The columns were matched to the rows by their labels: they are in another order "
+                                    "than the rows, and were read as \"Yes\" and \"No\".");
+    EXPECT_TRUE(aligned.remarks.empty());
+}
+
+TEST(PairedLabels, MatchLabelsWithoutRegardToCaseOrSpaces) {
+    const PairedResult result = paired_test(grid({{"", "no ", "YES"}, {"Yes", 5, 30}, {"No", 40, 10}}));
+    EXPECT_EQ(result.statistic, paired_test(grid({{30, 5}, {10, 40}})).statistic);
+}
+
+TEST(PairedLabels, RefuseLabelsThatDoNotMatch) {
+    expect_error([] { paired_test(grid({{"", "Agree", "Disagree"}, {"Yes", 5, 30}, {"No", 40, 10}})); },
+                 "a paired table needs the same categories as rows and as columns, matched by their labels; the rows "
+                 "have \"Yes\" and \"No\", which no column has; the columns have \"Agree\" and \"Disagree\", which no "
+                 "row has. Give the rows and the columns the same labels");
+}
+
+TEST(PairedLabels, RefuseALabelGivenTwice) {
+    expect_error([] { paired_test(grid({{"", "Yes", "Yes"}, {"Yes", 5, 30}, {"No", 40, 10}})); },
+                 "the columns of the paired table carry the label \"Yes\" twice; each category needs one row and one "
+                 "column");
+}
+
+TEST(PairedLabels, LeaveOutATotalRowAndColumn) {
+    const PairedResult with_totals = paired_test(grid({{"", "Yes", "No", "Total"},
+                                                       {"Yes", 30, 5, 35},
+                                                       {"No", 10, 40, 50},
+                                                       {"Total", 40, 45, 85}}));
+    EXPECT_EQ(with_totals.statistic, paired_test(grid({{30, 5}, {10, 40}})).statistic);
+}
+
+TEST(PairedLabels, AreMentionedByTheCheckOfATableWithTheSameLabelsOnBothSides) {
+    const std::string summary =
+        check_validity(read_count_table(grid({{"Before / After", "No", "Yes"}, {"Yes", 5, 30}, {"No", 40, 10}}))).summary();
+    EXPECT_NE(summary.find("The rows and the columns carry the same labels (\"Yes\" and \"No\"): if the table counts "
+                           "the same people twice (before and after, or by two raters), the paired test (ASSOC.PAIRED) "
+                           "fits it, not this test of independence."),
+              std::string::npos)
+        << summary;
+}

@@ -1,0 +1,165 @@
+// Records as workbooks hold them: whole columns with a header and blank cells below the last record,
+// labels with stray spaces, weights left blank, and answer scales in their own order.
+#include <gtest/gtest.h>
+
+#include <string>
+#include <vector>
+
+#include "assoc/counts_from_records.hpp"
+#include "assoc/levels.hpp"
+#include "test_support.hpp"
+
+using namespace assoc;
+using assoc::test::expect_error;
+using assoc::test::grid;
+
+namespace {
+
+bool contains(const std::string& text, const std::string& part) { return text.find(part) != std::string::npos; }
+
+std::vector<Cell> texts(std::initializer_list<const char*> values) {
+    std::vector<Cell> cells;
+    for (const char* value : values) cells.push_back(Cell::text(value));
+    return cells;
+}
+
+// A column of cells as a whole sheet column gives it: the cells, then blanks down to the sheet's last row
+// (left out before they arrive, as the add-in does, but remembered in the given shape).
+CellGrid whole_column(std::initializer_list<assoc::test::CellLiteral> cells) {
+    CellGrid column(cells.size(), 1);
+    std::size_t r = 0;
+    for (const auto& cell : cells) column.at(r++, 0) = cell.cell;
+    column.set_given_shape(whole_column_rows, 1);
+    return column;
+}
+
+}  // namespace
+
+TEST(RecordRanges, CountNoBlankCellsAfterTheLastRecordAndDoNotMentionThem) {
+    CellGrid rows = grid({{"x"}, {"y"}, {nullptr}, {nullptr}});
+    CellGrid columns = grid({{"a"}, {"b"}, {nullptr}, {nullptr}});
+    const RecordCounts counts = counts_from_records(rows, columns);
+    EXPECT_EQ(counts.records, 2u);
+    EXPECT_EQ(counts.skipped_blank, 0u);
+    EXPECT_EQ(counts.feedback(), "Counted 2 records into 2 row levels and 2 column levels.");
+}
+
+TEST(RecordRanges, LeaveOutTheHeaderOfAWholeColumnAndSaySo) {
+    const CellGrid channel = whole_column({"Channel", "Web", "Shop", "Web"});
+    const CellGrid outcome = whole_column({"Outcome", "Yes", "No", "No"});
+    EXPECT_EQ(distinct_levels(channel), texts({"Shop", "Web"}));
+    const RecordCounts counts = counts_from_records(channel, outcome);
+    EXPECT_EQ(counts.records, 3u);
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{1, 0, 1, 1}));
+    EXPECT_TRUE(contains(counts.feedback(),
+                         "Row 1 (\"Channel\" and \"Outcome\") was read as a header and left out, since \"Channel\" is a "
+                         "text found nowhere else in its whole column; if it is a record, select the records as a range "
+                         "(for example A1:A500) instead of the whole column."))
+        << counts.feedback();
+}
+
+// LEVELS and COUNTS agree: row 1 is a header when either whole column starts with a text found nowhere
+// else in it, so a header above a column of repeated labels goes too.
+TEST(RecordRanges, LeaveOutRow1OfEveryRangeWhenOneWholeColumnStartsWithAHeader) {
+    const CellGrid channel = whole_column({"Channel", "Web", "Shop", "Web"});
+    const CellGrid outcome = whole_column({"Yes", "Yes", "No", "No"});
+    const RecordCounts counts = counts_from_records(channel, outcome);
+    EXPECT_EQ(counts.records, 3u);
+    EXPECT_EQ(counts.row_levels, texts({"Shop", "Web"}));
+}
+
+TEST(RecordRanges, KeepRow1OfAWholeColumnWhenItsLabelAppearsBelow) {
+    const CellGrid channel = whole_column({"Web", "Web", "Shop"});
+    EXPECT_EQ(distinct_levels(channel), texts({"Shop", "Web"}));
+    EXPECT_EQ(counts_from_records(channel, whole_column({"No", "Yes", "No"})).records, 3u);
+}
+
+TEST(RecordRanges, KeepRow1OfARangeThatIsNoWholeColumn) {
+    EXPECT_EQ(distinct_levels(grid({{"Channel"}, {"Web"}, {"Shop"}})), texts({"Channel", "Shop", "Web"}));
+}
+
+TEST(RecordRanges, ReadATextWeightInRow1AsAHeaderRow) {
+    const RecordCounts counts = counts_from_records(grid({{"Dept"}, {"x"}, {"y"}}), grid({{"Outcome"}, {"a"}, {"b"}}),
+                                                    grid({{"Weight"}, {2}, {3}}));
+    EXPECT_EQ(counts.records, 2u);
+    EXPECT_EQ(counts.total, 5);
+    EXPECT_TRUE(contains(counts.feedback(), "Row 1 (\"Dept\" and \"Outcome\") was read as a header and left out, since its "
+                                            "weight is the text \"Weight\"."))
+        << counts.feedback();
+}
+
+TEST(RecordRanges, ReadWeightsThatLostTheirTrailingBlanksAtTheirGivenLength) {
+    CellGrid weights = grid({{2}, {3}});
+    weights.set_given_shape(3, 1);
+    const RecordCounts counts = counts_from_records(grid({{"x"}, {"y"}, {"x"}}), grid({{"a"}, {"b"}, {"b"}}), weights);
+    EXPECT_EQ(counts.skipped_weight, 1u);
+    EXPECT_EQ(counts.total, 5);
+}
+
+TEST(RecordRanges, MergeLabelsThatDifferOnlyBySpacesAtTheirEndsAndSaySo) {
+    const RecordCounts counts = counts_from_records(grid({{"x"}, {"x"}, {"y"}}), grid({{"No"}, {"No "}, {" Yes"}}));
+    EXPECT_EQ(counts.column_levels, texts({"No", "Yes"}));
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{2, 0, 0, 1}));
+    EXPECT_TRUE(contains(counts.feedback(), "The column labels \"No\" and \"No \" differ only by spaces at the start or "
+                                            "end and were counted as one label, \"No\"."))
+        << counts.feedback();
+}
+
+TEST(RecordRanges, TreatALabelOfOnlySpacesAsBlank) {
+    const RecordCounts counts = counts_from_records(grid({{"x"}, {"y"}}), grid({{"a"}, {"   "}}));
+    EXPECT_EQ(counts.skipped_blank, 1u);
+}
+
+TEST(LevelOrder, FollowsARangeThatListsTheLabels) {
+    const CellGrid answers = grid({{"Good"}, {"Poor"}, {"Excellent"}, {"Good"}});
+    const LevelOrdering scale = LevelOrdering::from_range(grid({{"Poor", "Fair", " Good", "Excellent"}}));
+    EXPECT_EQ(distinct_levels(answers, scale), texts({"Poor", "Fair", "Good", "Excellent"}));
+}
+
+// One order for both sides of ASSOC.COUNTS: the answer scale orders the rows; the offices, none of which
+// it lists, are sorted, and the feedback says so.
+TEST(LevelOrder, SortsTheSideWhoseLabelsTheListDoesNotHold) {
+    const LevelOrdering scale = LevelOrdering::from_range(grid({{"Poor", "Fair", "Good", "Excellent"}}));
+    const RecordCounts counts = counts_from_records(grid({{"Good"}, {"Poor"}, {"Excellent"}, {"Good"}}),
+                                                    grid({{"South"}, {"North"}, {"North"}, {"South"}}), CellGrid(), scale);
+    EXPECT_EQ(counts.row_levels, texts({"Poor", "Fair", "Good", "Excellent"}));
+    EXPECT_EQ(counts.column_levels, texts({"North", "South"}));
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{1, 0, 0, 0, 0, 2, 1, 0}));
+    EXPECT_TRUE(contains(counts.feedback(), "The order lists none of the column labels, so they were sorted."));
+}
+
+TEST(LevelOrder, ListsALabelNoRecordHoldsWithZerosAndSaysSo) {
+    const LevelOrdering scale = LevelOrdering::from_range(grid({{"Poor"}, {"Fair"}, {"Good"}}));
+    const RecordCounts counts =
+        counts_from_records(grid({{"Good"}, {"Poor"}, {"Good"}}), grid({{"Good"}, {"Good"}, {"Poor"}}), CellGrid(), scale);
+    EXPECT_EQ(counts.row_levels, texts({"Poor", "Fair", "Good"}));
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{0, 0, 1, 0, 0, 0, 1, 0, 1}));
+    EXPECT_TRUE(contains(counts.feedback(), "The order lists \"Fair\", which no record of the row labels holds; its line "
+                                            "holds zeros."))
+        << counts.feedback();
+}
+
+TEST(LevelOrder, RefusesLabelsTheListLacksNamingThem) {
+    const LevelOrdering scale = LevelOrdering::from_range(grid({{"Poor"}, {"good"}}));
+    expect_error([&] { distinct_levels(grid({{"Good"}, {"Poor"}, {"Excellent"}}), scale); },
+                 "the order lists 2 labels but not \"Good\" and \"Excellent\" (the order has \"good\", which differs in "
+                 "capitals), found in the labels; list every label in the order's range");
+}
+
+TEST(LevelOrder, RefusesALabelListedTwice) {
+    expect_error([] { LevelOrdering::from_range(grid({{"Poor"}, {"Good"}, {"Poor "}})); },
+                 "the order lists \"Poor\" twice; list each label once, in the wanted order");
+}
+
+TEST(LevelOrder, TakesAHundredLabels) {
+    CellGrid list(100, 1), records(200, 1);
+    for (std::size_t i = 0; i < 100; ++i) {
+        list.at(i, 0) = Cell::text("level " + std::to_string(99 - i));
+        records.at(2 * i, 0) = Cell::text("level " + std::to_string(i));
+        records.at(2 * i + 1, 0) = Cell::text("level " + std::to_string(i));
+    }
+    const std::vector<Cell> levels = distinct_levels(records, LevelOrdering::from_range(list));
+    ASSERT_EQ(levels.size(), 100u);
+    EXPECT_EQ(levels.front(), Cell::text("level 99"));
+    EXPECT_EQ(levels.back(), Cell::text("level 0"));
+}

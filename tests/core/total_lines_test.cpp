@@ -1,0 +1,170 @@
+// Totals and percentages inside a range of counts: labelled totals set aside, unlabelled sums refused,
+// percentages and shares refused, what stays ambiguous doubted (never "Sound").
+#include <gtest/gtest.h>
+
+#include <string>
+
+#include "assoc/count_table.hpp"
+#include "assoc/goodness_of_fit.hpp"
+#include "assoc/statistics.hpp"
+#include "assoc/validity.hpp"
+#include "test_support.hpp"
+
+using namespace assoc;
+using assoc::test::expect_error;
+using assoc::test::grid;
+using assoc::test::table;
+
+namespace {
+
+bool contains(const std::string& text, const std::string& part) { return text.find(part) != std::string::npos; }
+
+// Invented: promotions by department of a fictional company, the same table with and without totals.
+CellGrid without_totals() { return grid({{"", "Promoted", "Not promoted"}, {"Sales", 30, 45}, {"Legal", 10, 80}}); }
+
+}  // namespace
+
+// Exact identity: setting the total row and column aside leaves the table without them.
+TEST(TotalLines, ALabelledTotalRowAndColumnGiveTheSameTestAsTheTableWithoutThem) {
+    const CountTable with = read_count_table(grid({{"Dept / Outcome", "Promoted", "Not promoted", "Total"},
+                                                   {"Sales", 30, 45, 75},
+                                                   {"Legal", 10, 80, 90},
+                                                   {"Total", 40, 125, 165}}));
+    const CountTable without = read_count_table(without_totals());
+    EXPECT_EQ(with.counts().values(), without.counts().values());
+    EXPECT_EQ(independence_test(with, Method::pearson).p_value, independence_test(without, Method::pearson).p_value);
+    ASSERT_EQ(with.set_aside_rows().size(), 1u);
+    EXPECT_EQ(with.set_aside_rows()[0].why, SetAside::Why::total);
+    EXPECT_TRUE(with.doubts().empty());
+    const std::string summary = check_validity(with).summary();
+    EXPECT_EQ(summary.rfind("Sound:", 0), 0u) << summary;
+    EXPECT_TRUE(contains(summary, "The row \"Total\" is a total and was set aside. The column \"Total\" is a total and "
+                                  "was set aside."))
+        << summary;
+}
+
+TEST(TotalLines, KnowsTheWordsForATotalInSeveralLanguagesInAnyCase) {
+    for (const char* word : {"TOTAL", "Totals", "Grand total", "Total:", "total staff", "Subtotal", "Sum", "All",
+                             "Summe", "Gesamt", "Insgesamt", "Somme", "Totale", "Totaal", "Totalt", "Suma", "Razem"}) {
+        const CountTable read = read_count_table(grid({{"", "Yes", "No"}, {"North", 5, 9}, {"South", 7, 3}, {word, 12, 12}}));
+        EXPECT_EQ(read.rows(), 2u) << word;
+        EXPECT_EQ(read.set_aside_rows().size(), 1u) << word;
+    }
+}
+
+TEST(TotalLines, TakesNoWordThatOnlyBeginsLikeATotalForOne) {
+    for (const char* word : {"Summer", "Allowances", "Totally new", "Summit"}) {
+        const CountTable read = read_count_table(grid({{"", "Yes", "No"}, {"North", 5, 9}, {"South", 7, 3}, {word, 2, 8}}));
+        EXPECT_EQ(read.rows(), 3u) << word;
+    }
+}
+
+TEST(TotalLines, RefusesARowWithoutALabelThatHoldsTheSumOfTheOthers) {
+    expect_error([] { read_count_table(grid({{30, 45}, {10, 80}, {40, 125}})); },
+                 "row 3 holds the sum of rows 1–2 in every column, so it looks like a total, and a total must not be "
+                 "tested as if it held more counts; leave it out of the range, or label it \"Total\" (it is then set "
+                 "aside). If it does hold counts, give the rows labels");
+}
+
+TEST(TotalLines, RefusesAColumnWithoutALabelThatHoldsTheSumOfTheOthersCountingRowsOfTheRange) {
+    expect_error([] { read_count_table(grid({{"Sales", 30, 45, 75}, {"Legal", 10, 80, 90}})); },
+                 "column 4 holds the sum of columns 2–3 in every row, so it looks like a total, and a total must not "
+                 "be tested as if it held more counts; leave it out of the range, or label it \"Total\" (it is then "
+                 "set aside). If it does hold counts, give the columns labels");
+}
+
+TEST(TotalLines, RefusesUnlabelledTotalsOnBothSides) {
+    EXPECT_THROW(read_count_table(grid({{30, 45, 75}, {10, 80, 90}, {40, 125, 165}})), Error);
+}
+
+TEST(TotalLines, FindsATotalAtTheTopToo) {
+    expect_error([] { read_count_table(grid({{40, 125}, {30, 45}, {10, 80}})); },
+                 "row 1 holds the sum of rows 2–3 in every column, so it looks like a total, and a total must not be "
+                 "tested as if it held more counts; leave it out of the range, or label it \"Total\" (it is then set "
+                 "aside). If it does hold counts, give the rows labels");
+}
+
+TEST(TotalLines, KeepsALineLabelledAsDataThatHoldsTheSumButDoubtsIt) {
+    const CountTable read =
+        read_count_table(grid({{"", "Yes", "No"}, {"North", 5, 9}, {"South", 7, 3}, {"Company", 12, 12}}));
+    EXPECT_EQ(read.rows(), 3u);
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "The row \"Company\" holds the sum of the other rows in every column: if it is a total, "
+                                "leave it out of the range or label it \"Total\"; it was tested as counts.");
+    EXPECT_EQ(check_validity(read).summary().rfind("Doubtful: The row \"Company\"", 0), 0u);
+}
+
+TEST(TotalLines, SetsAsideALabelledTotalThatIsNotTheSumButDoubtsIt) {
+    const CountTable read = read_count_table(grid({{"", "Yes", "No"}, {"North", 5, 9}, {"South", 7, 3}, {"Total", 20, 12}}));
+    EXPECT_EQ(read.rows(), 2u);
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "The row \"Total\" was set aside as a total, but it does not hold the sum of the other "
+                                "rows; check that it is a total and that no row is missing.");
+}
+
+TEST(TotalLines, AcceptsSubtotalsThatHoldTheSumOfTheirBlock) {
+    const CountTable read = read_count_table(grid({{"", "Yes", "No"},
+                                                   {"North A", 5, 9},
+                                                   {"North B", 7, 3},
+                                                   {"Subtotal North", 12, 12},
+                                                   {"South A", 4, 6},
+                                                   {"South B", 2, 8},
+                                                   {"Subtotal South", 6, 14},
+                                                   {"Total", 18, 26}}));
+    EXPECT_EQ(read.rows(), 4u);
+    EXPECT_TRUE(read.doubts().empty());
+    EXPECT_TRUE(contains(check_validity(read).summary(),
+                         "The rows \"Subtotal North\", \"Subtotal South\" and \"Total\" are totals and were set aside."));
+}
+
+// A single row cannot show a total well: 5 = 3 + 2 is a coincidence, not a total.
+TEST(TotalLines, TakesNoCoincidenceInASingleLineForATotal) {
+    EXPECT_EQ(goodness_of_fit(grid({{5, 3, 2}})).categories, 3u);
+}
+
+TEST(TotalLines, RefusesATotalAtTheEndOfALongSingleColumnOfCounts) {
+    expect_error([] { goodness_of_fit(grid({{315}, {108}, {101}, {32}, {556}})); },
+                 "row 5 holds the sum of rows 1–4 in every column, so it looks like a total, and a total must not be "
+                 "tested as if it held more counts; leave it out of the range, or label it \"Total\" (it is then set "
+                 "aside). If it does hold counts, give the rows labels");
+}
+
+TEST(Percentages, AreRefusedWhenEveryRowAddsUpToAHundred) {
+    expect_error([] { read_count_table(grid({{"", "Yes", "No"}, {"North", 12.5, 87.5}, {"South", 40.2, 59.8}})); },
+                 "every row adds up to 100 and some entries are not whole numbers, so these look like percentages, not "
+                 "counts; the tests need the number of people (or items) in each cell, which a percentage hides: enter "
+                 "the counts instead");
+}
+
+TEST(Percentages, AreRefusedAsSharesWhenEveryColumnAddsUpToOne) {
+    expect_error([] { read_count_table(grid({{0.25, 0.6}, {0.75, 0.4}})); },
+                 "every column adds up to 1 and some entries are not whole numbers, so these look like shares "
+                 "(proportions), not counts; the tests need the number of people (or items) in each cell, which a "
+                 "share hides: enter the counts instead");
+}
+
+TEST(Percentages, AreRefusedWhenTheWholeTableAddsUpToAHundred) {
+    expect_error([] { read_count_table(grid({{10.5, 30}, {20, 39.5}})); },
+                 "the entries add up to 100 and some are not whole numbers, so these look like percentages of the whole "
+                 "table, not counts; the tests need the number of people (or items) in each cell: enter the counts "
+                 "instead");
+}
+
+TEST(Percentages, OfWholeNumbersThatAddUpToExactlyAHundredPerRowAreDoubted) {
+    const CountTable read = read_count_table(grid({{60, 40}, {35, 65}}));
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "Every row adds up to exactly 100: if these are percentages, enter the counts instead "
+                                "(the tests need the number of people in each cell); if each row really counts 100 "
+                                "people, this can be ignored.");
+}
+
+TEST(Percentages, ArePlainWeightedCountsWhenTheLinesAddUpToOtherTotals) {
+    EXPECT_NO_THROW(read_count_table(grid({{12.5, 87.5}, {40.2, 70.8}})));
+}
+
+TEST(Percentages, AreAllowedAsExpectedShares) {
+    // Mendel's dihybrid cross against 9:3:3:1 given as percentages (published_values.md section 6:
+    // X² = 196/417 exactly; the shares are the same ratios).
+    const GoodnessOfFit fit = goodness_of_fit(grid({{315, 108, 101, 32}}), grid({{56.25, 18.75, 18.75, 6.25}}));
+    EXPECT_NEAR(fit.statistic, 196.0 / 417.0, 1e-13);
+}
