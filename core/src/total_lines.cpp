@@ -112,7 +112,8 @@ void find_on_side(const Lines& lines, const BodySide& side, std::vector<bool>& t
     // The other lines are `data` but the candidate, walked in place: this runs for every table read,
     // thousands of times in a sheet of small tables.
     for (std::size_t candidate : {data.back(), data.front()}) {
-        if (lines.empty(candidate)) continue;
+        // The sum first: it fails at once in almost every table, and the rest needs whole passes.
+        if (lines.empty(candidate) || !holds_sum(lines, candidate, data, skip, candidate)) continue;
         std::size_t non_empty = 0;
         for (std::size_t i : data)
             if (i != candidate && !lines.empty(i)) ++non_empty;
@@ -125,7 +126,7 @@ void find_on_side(const Lines& lines, const BodySide& side, std::vector<bool>& t
                 if (other != candidate) sum += lines.at(other, k);
             if (!skip[k] && sum != 0) ++positions;
         }
-        if (non_empty < (positions >= 2 ? 2u : 3u) || !holds_sum(lines, candidate, data, skip, candidate)) continue;
+        if (non_empty < (positions >= 2 ? 2u : 3u)) continue;
         const std::string& label = (*side.labels)[candidate];
         if (label.empty()) {
             std::vector<std::size_t> numbers;
