@@ -45,6 +45,20 @@ struct ScaledMargins {
 
     double scaled(double count) const { return exponent == 0 ? count : std::ldexp(count, -exponent); }
     double unscaled(double value) const { return exponent == 0 ? value : std::ldexp(value, exponent); }
+
+    // E of cell (r, c). It needs no more than double precision (it is never a difference): R·C/n
+    // on the rounded margins, scaled so that R·C cannot overflow.
+    double expected(std::size_t r, std::size_t c) const {
+        return unscaled(rows[r].value() * columns[c].value() / total.value());
+    }
+
+    // O − E of cell (r, c) whose count is `count`. The difference O·n − R·C is formed exactly (or
+    // to about 2^-104); one rounding of it and one division leave O − E accurate to about 1.5 ulp.
+    double deviation(double count, std::size_t r, std::size_t c) const {
+        const DoubleDouble observed{scaled(count), 0.0};
+        const DoubleDouble difference = observed * total - rows[r] * columns[c];
+        return unscaled(difference.value() / total.value());
+    }
 };
 
 inline ScaledMargins scaled_margins(const CountTable& table) {

@@ -172,7 +172,10 @@ void CountTable::finish(Matrix body, const ReadOptions& options, const std::vect
     body_ = std::move(body);  // kept, not copied: a sheet may read thousands of small tables
     body_rows_ = body_.rows();
     body_columns_ = body_.columns();
-    std::vector<double> body_row_totals(body_rows_, 0.0), body_column_totals(body_columns_, 0.0);
+    // The body's row and column totals, in one block (one allocation fewer for each table read).
+    std::vector<double> body_totals(body_rows_ + body_columns_, 0.0);
+    double* const body_row_totals = body_totals.data();
+    double* const body_column_totals = body_totals.data() + body_rows_;
     for (std::size_t r = 0; r < body_rows_; ++r)
         for (std::size_t c = 0; c < body_columns_; ++c) {
             if (total_rows[r] || total_columns[c]) continue;

@@ -174,7 +174,10 @@ std::vector<std::string> refuse_percentages(const Matrix& body, const std::vecto
                                             const std::vector<bool>& total_columns) {
     bool all_whole = true;
     double grand = 0;
-    std::vector<double> row_sums(body.rows(), 0.0), column_sums(body.columns(), 0.0);
+    // The row and column sums in one block (one allocation fewer for each table read).
+    std::vector<double> sums(body.rows() + body.columns(), 0.0);
+    double* const row_sums = sums.data();
+    double* const column_sums = sums.data() + body.rows();
     for (std::size_t r = 0; r < body.rows(); ++r)
         for (std::size_t c = 0; c < body.columns(); ++c) {
             if (total_rows[r] || total_columns[c]) continue;
@@ -186,10 +189,11 @@ std::vector<std::string> refuse_percentages(const Matrix& body, const std::vecto
         }
 
     std::vector<std::string> doubts;
-    const auto check_side = [&](const std::vector<double>& sums, const char* word) {
+    const auto check_side = [&](const double* line_sums, std::size_t lines, const char* word) {
         std::size_t with_counts = 0;
         bool hundred = true, one = true, exactly_hundred = true;
-        for (double sum : sums) {
+        for (std::size_t i = 0; i < lines; ++i) {
+            const double sum = line_sums[i];
             if (sum == 0) continue;
             ++with_counts;
             hundred = hundred && std::fabs(sum - 100) <= 1;
@@ -214,8 +218,8 @@ std::vector<std::string> refuse_percentages(const Matrix& body, const std::vecto
                              "counts instead (the tests need the number of people in each cell); if each " + word +
                              " really counts 100 people, this can be ignored.");
     };
-    check_side(row_sums, "row");
-    check_side(column_sums, "column");
+    check_side(row_sums, body.rows(), "row");
+    check_side(column_sums, body.columns(), "column");
     if (!all_whole && std::fabs(grand - 100) <= 1)
         throw Error("the entries add up to 100 and some are not whole numbers, so these look like percentages of the "
                     "whole table, not counts; the tests need the number of people (or items) in each cell: enter the "
