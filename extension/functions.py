@@ -237,7 +237,9 @@ FUNCTIONS = [
         [TABLE, Argument("method", "option", "Optional. The test statistic to compute.", options=METHODS)],
         "row", "one row: the statistic, the degrees of freedom, the p-value; a plain entry shows the statistic",
         ["Yates' correction is never applied unless asked for, and only to 2×2 tables. The exact test has no "
-         "statistic: use ASSOC.EXACT for it."],
+         "statistic: use ASSOC.EXACT for it.",
+         "A statistic above 1.8e308, the largest spreadsheet number (possible only when the counts add up to "
+         "nearly that much), is an error that ASSOC.CHECK explains; its p-value, from ASSOC.PVALUE, is 0."],
         '=ASSOC.STATISTIC(A1:D3; "g")'),
     Function(
         "ASSOC.PVALUE", "pvalue",
@@ -298,11 +300,13 @@ FUNCTIONS = [
          "rounding. Tools differ here: some use the same relative margin, some a far smaller one (1e-14), and "
          "some an absolute margin, which treats every table as tied once probabilities are tiny; "
          "p-values then differ by the probability of the near-ties.",
-         "Trustworthy where the chi-squared approximation is doubtful (small expected counts). For larger "
-         "tables with many counts the number of possible tables grows quickly: the calculation stops with an "
-         "error after about 5 seconds, or when it would need more than about 400 MB of memory; "
-         "ASSOC.SIMULATE(range; ; ; \"exact\") then estimates the same p-value by simulation. ASSOC.CHECK with "
-         "\"exact\" says why it fails.",
+         "Trustworthy where the chi-squared approximation is doubtful (small expected counts). For a 2×2 table "
+         "the calculation takes well under a millisecond however large the counts, up to a total of "
+         "9,007,199,254,740,991 (2^53 − 1, the largest whole number a spreadsheet holds exactly), and keeps "
+         "about 13 significant digits even far in the tail. For larger tables with many counts the number of "
+         "possible tables grows quickly: the calculation stops with an error after 5 seconds, or when it "
+         "would need more than 400 MB of memory; ASSOC.SIMULATE(range; ; ; \"exact\") then estimates the same "
+         "p-value by simulation. ASSOC.CHECK with \"exact\" says why it fails.",
          "The calculation counts its work before doing it and watches its pace, so a table it cannot finish "
          "within those limits is usually refused at once rather than after 5 seconds. While LibreOffice runs, "
          "the answer (or the refusal) for a table is remembered: recalculating or reopening a sheet does not "
@@ -323,7 +327,8 @@ FUNCTIONS = [
                "entry shows the p-value",
         ["The p-value is (1 + k) / (trials + 1), k the number of random tables at least as extreme, so it is "
          "never 0. The standard error √(p (1 − p) / trials) shrinks with more trials. Tables too large to "
-         "simulate within a few seconds are refused with an error that says how many trials would fit.",
+         "simulate within a few seconds are refused with an error that says how many trials would fit, and a "
+         "simulation still running after 5 seconds stops with an error that says how far it got.",
          "With \"pearson\" or \"g\" it estimates the exact p-value of that statistic, which can differ from "
          "ASSOC.EXACT's: the exact test orders tables by their probability. With \"exact\" it orders them the same "
          "way, so it estimates ASSOC.EXACT's p-value where the exact test is out of reach.",
@@ -496,8 +501,9 @@ FUNCTIONS = [
          Argument("method", "option", "Optional. The test to apply.", options=PAIRED_METHODS)],
         "row", "one row: the p-value, the statistic, the degrees of freedom; a plain entry shows the p-value",
         ["With \"exact\" the statistic is the smaller of the two counts of changes and the degrees of freedom "
-         "are 0 (a binomial test has none). Rows and columns of zeros are kept, since row i and column i must "
-         "stay the same category; rows and columns labelled as totals are left out.",
+         "are 0 (a binomial test has none); it takes up to 9,007,199,254,740,991 changes (2^53 − 1) and "
+         "well under a millisecond at any size. Rows and columns of zeros are kept, since row i and column i "
+         "must stay the same category; rows and columns labelled as totals are left out.",
          "When both the rows and the columns carry labels, the columns are matched to the rows by their labels "
          "(spaces at the ends and capitals aside), whatever their order; labels that do not match are an error "
          "that names them. With labels on one side only, the columns must come in the rows' order.",
@@ -559,7 +565,9 @@ FUNCTIONS = [
          "with the same range and the function's name or word explains it. A name runs the function with its "
          "defaults; a word runs every function that accepts it (a function that cannot use the range even "
          "with its defaults is left out when another one can). The verdict on the chi-squared test is given "
-         "for functions that take a table of counts for the test of independence.",
+         "for functions that take a table of counts for the test of independence. Everything ASSOC.CHECK "
+         "tries in one cell shares a cap of 10 seconds (it may run two exact or simulated tests, each with "
+         "its own cap, within it).",
          "For a function that takes two ranges (ASSOC.COUNTS, ASSOC.IMPACT), give ASSOC.CHECK one range with "
          "the two side by side as columns, in the order of the arguments (for ASSOC.COUNTS a third column of "
          "weights may follow); for one that takes only numbers (ASSOC.POWER), give its numbers in one row or "
@@ -591,7 +599,8 @@ FUNCTIONS = [
          "The exact p-value is computed when the counts are whole and the test finishes within 2 seconds and "
          "100 MB of memory; otherwise its line says why not (ASSOC.EXACT allows 5 seconds and 400 MB, "
          "ASSOC.SIMULATE estimates the p-value). Like ASSOC.EXACT's, the exact line is remembered for an "
-         "unchanged table while LibreOffice runs. The cells "
+         "unchanged table while LibreOffice runs. A statistic above 1.8e308, the largest spreadsheet number, "
+         "is written in words on its line. The cells "
          "that stand out are the (at most 3) cells with the largest adjusted residuals beyond ±2, named by "
          "their labels (or by their row and column in the range); in a table of two columns (rows) only the "
          "first column's (row's) cells are named, since the other's only repeat them with the sign turned.",
@@ -673,7 +682,8 @@ MEMO_FUNCTIONS = [
          "significant difference between two groups is not proof of discrimination, nor of what causes it.",
          "Each pair is tested on its own table of 2 rows (columns empty in both rows left out); a pair whose counts "
          "all fall in one column gets p = 1. Rows without a label are named \"row k\"; rows of zeros take no part. "
-         "At most 100 rows. ASSOC.CHECK with \"pairwise\" names pairs whose chi-squared p-value is doubtful.",
+         "At most 100 rows. ASSOC.CHECK with \"pairwise\" names pairs whose chi-squared p-value is doubtful. "
+         "With \"exact\" all the pairs together have the exact test's cap: 5 seconds and 400 MB.",
          "Entered in a single cell it shows the first row's label, as an array's top-left value. The smallest "
          "adjusted p-value: `=MIN(INDEX(ASSOC.PAIRWISE(A1:C6);0;4))`."],
         "=ASSOC.PAIRWISE(A1:C6)"),

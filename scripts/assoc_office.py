@@ -72,8 +72,11 @@ def file_url(path):
 
 
 class ThrowawayOffice:
-    def __init__(self, oxt, log=None):
+    """display: None for a headless office; an X display (":5") for one with windows there."""
+
+    def __init__(self, oxt, log=None, display=None):
         self.oxt = pathlib.Path(oxt).resolve()
+        self.display = display
         self.log = log or (lambda message: None)
         self.folder = None
         self.process = None
@@ -106,6 +109,8 @@ class ThrowawayOffice:
         for sub in ("profile", "shared", "home", "tmp"):
             (self.folder / sub).mkdir()
         self.env = dict(os.environ, HOME=str(self.folder / "home"), TMPDIR=str(self.folder / "tmp"))
+        if self.display:
+            self.env["DISPLAY"] = self.display
         self.office_flags = [
             f"-env:UserInstallation={file_url(self.folder / 'profile')}",
             f"-env:UNO_SHARED_PACKAGES={file_url(self.folder / 'shared')}",
@@ -126,8 +131,9 @@ class ThrowawayOffice:
         started = time.monotonic()
         pipe = f"assoc_{os.getpid()}_{uuid.uuid4().hex[:8]}"
         self.office_log = open(self.folder / "soffice.log", "w")
+        unseen = [] if self.display else ["--headless", "--invisible"]
         self.process = subprocess.Popen(
-            [SOFFICE, "--headless", "--invisible", "--nologo", "--norestore", "--nodefault", "--nolockcheck",
+            [SOFFICE, *unseen, "--nologo", "--norestore", "--nodefault", "--nolockcheck",
              *self.office_flags, f"--accept=pipe,name={pipe};urp;StarOffice.ComponentContext"],
             env=self.env, stdout=self.office_log, stderr=subprocess.STDOUT, start_new_session=True)
         self.watchdog = subprocess.Popen([sys.executable, "-c", WATCHDOG, str(os.getpid()), str(self.process.pid),
@@ -200,8 +206,8 @@ class ThrowawayOffice:
     def new_spreadsheet(self):
         return self.desktop.loadComponentFromURL("private:factory/scalc", "_blank", 0, properties(Hidden=True))
 
-    def load(self, path):
-        doc = self.desktop.loadComponentFromURL(file_url(path), "_blank", 0, properties(Hidden=True))
+    def load(self, path, hidden=True):
+        doc = self.desktop.loadComponentFromURL(file_url(path), "_blank", 0, properties(Hidden=hidden))
         if doc is None:
             raise RuntimeError(f"the office could not open {path}")
         return doc

@@ -42,14 +42,18 @@ from assoc_office import ThrowawayOffice, file_url, properties  # noqa: E402
 FLAT_ODS = "OpenDocument Spreadsheet Flat XML"
 
 # ---------------------------------------------------------------------------------------------
-# Colours (our own). The heat map of adjusted residuals: blue where a cell has fewer counts than
-# independence predicts, white where it has as many, orange where it has more; the ends are
-# reached at -3 and +3 and values beyond take the end colour.
-HEAT_MAP = ((-3, 0x3A6EA5, "−3 or less: fewer than expected"),
-            (0, 0xFFFFFF, "0: as expected"),
-            (3, 0xE8862A, "+3 or more: more than expected"))
-CHART_FIRST = 0x3A6EA5    # the first series of a chart (same blue as the heat map's low end)
-CHART_SECOND = 0xE8862A   # the second series (the heat map's orange)
+# Colours. The heat map of adjusted residuals: purple where a cell has fewer counts than
+# independence predicts, near-white where it has as many, orange where it has more; the ends are
+# reached at -3 and +3 and values beyond take the end colour. The three colours are ColorBrewer's
+# colour-blind-safe diverging scheme "PuOr" with 3 classes (Cynthia Brewer, colorbrewer2.org;
+# Harrower & Brewer 2003, The Cartographic Journal 40(1), 27-37): the same palette, used the same
+# way, as the sheets of the menu command (extension/command/palette.hpp; tests/calc/command_test.py
+# checks that the two agree).
+HEAT_MAP = ((-3, 0x998EC3, "−3 or less: fewer than expected"),
+            (0, 0xF7F7F7, "0: as expected"),
+            (3, 0xF1A340, "+3 or more: more than expected"))
+CHART_FIRST = 0x3A6EA5    # the first series of a chart (our own blue)
+CHART_SECOND = 0xE8862A   # the second series (our own orange)
 CHART_LINE = 0x7A2E2E     # a reference line (the four-fifths line)
 HEADING_RULE = 0x333333
 NOTE_GREY = 0x555555
@@ -205,7 +209,7 @@ class Workbook:
             styles.insertByName(name, style)
             style.ParentStyle = "Default"
             style.CellBackColor = colour
-            style.CharColor = 0xFFFFFF if low < 0 else 0x000000
+            style.CharColor = 0x000000  # the PuOr colours are light enough for black text
             style.HoriJustify = uno.Enum("com.sun.star.table.CellHoriJustify", "CENTER")
 
         pages = self.doc.StyleFamilies.getByName("PageStyles")
@@ -508,7 +512,7 @@ def offices_notes(s):
         f"{fixed(value('F21'), 2)}, {p_text(value('B21'))}), and one common odds ratio fits every office "
         f"(Breslow–Day {p_text(value('B22'))}).",
         "Why: Design staff work mostly in Northgate, where promotion rates are high for everyone (sections 4 and 5: "
-        "orange cells have more people than independence predicts, blue cells fewer). Pooling mixes the office "
+        "orange cells have more people than independence predicts, purple cells fewer). Pooling mixes the office "
         "effect into the comparison of departments. This reversal is known as Simpson's paradox.",
         "Which comparison answers your question is a judgement: comparing within offices removes the office "
         "effect, but other differences that the table does not record may remain.",
@@ -1270,7 +1274,7 @@ def promotions_notes(s, chart_bottom):
         f"level, department and promotion outcome appear associated. Cramér's V of {fixed(value('B34'), 3)} puts "
         "the strength of the association nearer 0 (none) than 1. ASSOC.CHECK finds the test sound.",
         f"The heat map shows where: {listed(more)} had more promotions than independence predicts (orange), "
-        f"{listed(fewer)} fewer (blue); {', '.join(within[:-1])} and {within[-1]} stay within ±2. With two columns "
+        f"{listed(fewer)} fewer (purple); {', '.join(within[:-1])} and {within[-1]} stay within ±2. With two columns "
         "the residuals of 'Not promoted' mirror those of 'Promoted'. With ten cells, one just beyond ±2 can arise "
         "by chance: ASSOC.CELLTEST adjusts each cell's p-value for the number of cells.",
         "Cautions: an association is not proof of cause. Departments differ in roles, grades and vacancies, and "
@@ -1332,7 +1336,7 @@ def build_quick_start(office, out):
         "Type the table with its labels (B2:E5), then =ASSOC.PVALUE(B2:E5) in an empty cell. For a result that "
         "is an array, select the whole output range first (C10:E12 for the expected counts), type the formula and "
         "press Ctrl+Shift+Enter. Entered in one cell, such a function shows only its first (headline) value.",
-        "Riverside returns more invoices than independence predicts (orange) and Hillcrest fewer (blue); the chart "
+        "Riverside returns more invoices than independence predicts (orange) and Hillcrest fewer (purple); the chart "
         "shows each branch's mix of outcomes from the table. An association is not proof of cause: the branches "
         "may receive different kinds of invoices.",
     ], width=120)

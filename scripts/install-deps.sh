@@ -5,9 +5,10 @@
 set -euo pipefail
 
 # libreoffice-calc (not the -nogui variant): the same office runs headless for the tests and in a
-# window under a virtual X server (xvfb) for the visible test of the menu command.
+# window under a virtual X server (xvfb) for the visible test of the menu command, which takes its
+# screenshots with python3-pil.
 packages=(cmake g++ make libboost-math-dev libgtest-dev libicu-dev
-          libreoffice-dev libreoffice-calc python3 python3-uno poppler-utils xvfb xauth)
+          libreoffice-dev libreoffice-calc python3 python3-uno python3-pil poppler-utils xvfb xauth)
 for arg in "$@"; do
   case "$arg" in
     --bench) packages+=(r-base-core) ;;

@@ -19,32 +19,34 @@ using Policy = policy<domain_error<user_error>, pole_error<user_error>, overflow
 
 namespace boost::math::policies {
 
-// Boost calls these through the user_error policy. The message Boost builds is for
-// programmers; callers check their own preconditions first, so reaching here means a
-// value outside what the method can compute.
+// Boost calls these through the user_error policy. The message Boost builds is for programmers
+// and never reaches a user; callers check their own preconditions and keep the work within what
+// the methods handle (discrete_tail.hpp, the Cornish–Fisher branch of cramers_v_interval.cpp, the
+// Chernoff bound of power.cpp), so reaching here means numbers beyond what a method can compute.
+// The texts say so in the user's terms.
 template <class T>
 T user_domain_error(const char*, const char*, const T&) {
-    throw assoc::Error("an argument is outside the range the calculation accepts");
+    throw assoc::Error("the numbers are outside the range this calculation accepts");
 }
 template <class T>
 T user_pole_error(const char*, const char*, const T&) {
-    throw assoc::Error("the calculation is undefined for these values");
+    throw assoc::Error("the calculation has no value for these numbers");
 }
 template <class T>
 T user_overflow_error(const char*, const char*, const T&) {
-    throw assoc::Error("the result is too large for a spreadsheet number");
+    throw assoc::Error("the result is larger than a spreadsheet number can hold (above 1.8e308)");
 }
 template <class T>
 T user_evaluation_error(const char*, const char*, const T&) {
-    throw assoc::Error("the calculation did not converge for these values");
+    throw assoc::Error("the calculation could not settle on a value for numbers this extreme");
 }
 template <class T, class TargetType>
 T user_rounding_error(const char*, const char*, const T&, const TargetType&) {
-    throw assoc::Error("the result cannot be represented as a whole number");
+    throw assoc::Error("the numbers are too large for this calculation");
 }
 template <class T>
 T user_indeterminate_result_error(const char*, const char*, const T&) {
-    throw assoc::Error("the result is undefined for these values");
+    throw assoc::Error("the calculation has no value for these numbers");
 }
 
 }  // namespace boost::math::policies

@@ -2,11 +2,14 @@
 
 #include <boost/math/distributions/chi_squared.hpp>
 #include <boost/math/special_functions/gamma.hpp>
+#include <boost/math/special_functions/log1p.hpp>
 #include <cmath>
+#include <limits>
 
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
 #include "boost_policy.hpp"
+#include "stirling.hpp"
 
 namespace assoc {
 namespace {
@@ -23,6 +26,48 @@ void check_df(double df) {
     if (!(df > 0)) throw Error("the degrees of freedom must be above 0, not " + format_number(df));
     if (!(df <= max_df))
         throw Error("the degrees of freedom must be at most " + format_count(max_df) + ", not " + format_number(df));
+}
+
+// ln Q(a, y), the regularised upper incomplete gamma function, for y > a + 1, where Q may be far
+// below the smallest double: ln of the prefix e^-y y^a / Γ(a), written as a·(ln(1 + t) − t) − s(a) +
+// ln a with t = (y − a)/a so that nothing large cancels, plus ln of Legendre's continued fraction
+// (modified Lentz), which converges in a few dozen terms this far out.
+double log_upper_gamma(double a, double y) {
+    const double tiny = 1e-300;
+    double b = y + 1 - a, c = 1 / tiny, d = 1 / b, h = d;
+    for (int i = 1; i < 100000; ++i) {
+        const double an = -i * (i - a);
+        b += 2;
+        d = an * d + b;
+        if (std::fabs(d) < tiny) d = tiny;
+        c = b + an / c;
+        if (std::fabs(c) < tiny) c = tiny;
+        d = 1 / d;
+        const double step = d * c;
+        h *= step;
+        if (std::fabs(step - 1) < 1e-17) break;
+    }
+    const double t = (y - a) / a;
+    const double prefix = a * boost::math::log1pmx(t, detail::Policy()) - detail::stirling_part(a) + std::log(a);
+    return prefix + std::log(h);
+}
+
+// The critical value for an alpha below the smallest normal double (2.2e-308, reachable only by
+// typing such a number): Boost's quantile loses digits there (up to 8e-6), so Newton's method on
+// ln Q(df/2, x/2) = ln alpha instead, whose derivative is −1/(2 y h) with h the continued fraction.
+double critical_value_far_out(double df, double alpha) {
+    const double a = df / 2, log_alpha = std::log(alpha);
+    double x = boost::math::quantile(boost::math::complement(Distribution(df), std::numeric_limits<double>::min()));
+    for (int i = 0; i < 100; ++i) {
+        const double y = x / 2;
+        const double log_q = log_upper_gamma(a, y);
+        const double t = (y - a) / a;
+        const double log_h = log_q - (a * boost::math::log1pmx(t, detail::Policy()) - detail::stirling_part(a) + std::log(a));
+        const double step = (log_q - log_alpha) * 2 * y * std::exp(log_h);
+        x += step;
+        if (std::fabs(step) <= 1e-16 * x) break;
+    }
+    return x;
 }
 
 }  // namespace
@@ -47,6 +92,7 @@ double chi_squared_critical_value(double df, double alpha) {
     check_df(df);
     require(!std::isnan(alpha), "alpha (the significance level) is not a number; it must lie between 0 and 1");
     require(alpha > 0 && alpha < 1, "alpha (the significance level) must lie between 0 and 1, not " + format_number(alpha));
+    if (alpha < std::numeric_limits<double>::min()) return critical_value_far_out(df, alpha);
     return boost::math::quantile(boost::math::complement(Distribution(df), alpha));
 }
 

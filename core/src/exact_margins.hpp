@@ -1,14 +1,16 @@
 #pragma once
 // The margins of a count table (row totals, column totals, grand total) summed in
-// double-double, about 32 significant digits, for forming O − E = (O·n − R·C)/n.
+// double-double, about 32 significant digits, and O − E = (O·n − R·C)/n formed from them.
 // Why not the double totals CountTable keeps: they are rounded once the counts are not
 // whole numbers (weighted data) or pass 2^53, and for a nearly independent table
 // O·n − R·C is a small difference of large numbers, so a rounded R or n would leave
 // only a few correct digits in it.
-// Why scaled: O·n and R·C overflow for counts above about 1e154 (and underflow for
-// tiny weights). When the total is beyond 2^±500, every count is multiplied by the same
-// power of two, 2^-exponent, chosen to bring the total near 1; that is exact, and O − E
-// and E scale back exactly.
+// Why each factor is scaled by its own power of two: O·n and R·C overflow for counts above
+// about 1e154 and underflow for tiny weights, and one factor for the whole table cannot avoid
+// both when the counts span a wide range ([[2, 0], [1, 1e308]] has E = 6e-308 beside 1e308).
+// Each factor is brought to [1, 2) exactly, the products are formed exactly there, and the two
+// are aligned to the larger's exponent before they are subtracted; O − E and E scale back exactly.
+#include <algorithm>
 #include <cmath>
 #include <cstddef>
 #include <vector>
@@ -18,58 +20,122 @@
 
 namespace assoc::detail {
 
-// The few double-double operations the margins need. They are the "sloppy" kind, accurate for
-// sums of non-negative numbers and for products, which is all they are used for here.
+// x·2^k, exact unless a part underflows.
+inline DoubleDouble times_power_of_two(const DoubleDouble& x, int k) { return {std::ldexp(x.hi, k), std::ldexp(x.lo, k)}; }
 
-// hi + lo renormalised when |hi| ≥ |lo| is known (Dekker's fast two-sum).
-inline DoubleDouble renormalised(double hi, double lo) {
-    const double s = hi + lo;
-    return {s, lo - (s - hi)};
+// A non-zero double-double as mantissa · 2^exponent with the mantissa's high part in ±[1, 2).
+struct Normalised {
+    DoubleDouble mantissa;
+    int exponent = 0;
+};
+
+inline Normalised normalised(const DoubleDouble& x) {
+    const int exponent = std::ilogb(x.hi);
+    return {times_power_of_two(x, -exponent), exponent};
 }
 
-inline DoubleDouble operator+(const DoubleDouble& x, double y) {
-    const DoubleDouble s = exact_sum(x.hi, y);
-    return renormalised(s.hi, s.lo + x.lo);
+// A double-double value · 2^exponent.
+struct Scaled {
+    DoubleDouble value;
+    int exponent = 0;
+};
+
+// x·y − u·v, each factor scaled by its own power of two so that the products neither overflow nor
+// underflow, aligned to the larger product's exponent.
+inline Scaled difference_of_products(const DoubleDouble& x, const DoubleDouble& y, const DoubleDouble& u,
+                                     const DoubleDouble& v) {
+    const bool first_zero = x.hi == 0 || y.hi == 0, second_zero = u.hi == 0 || v.hi == 0;
+    if (first_zero && second_zero) return {DoubleDouble{}, 0};
+    Normalised first{DoubleDouble{}, 0}, second{DoubleDouble{}, 0};
+    if (!first_zero) {
+        const Normalised a = normalised(x), b = normalised(y);
+        first = {a.mantissa * b.mantissa, a.exponent + b.exponent};
+    }
+    if (!second_zero) {
+        const Normalised a = normalised(u), b = normalised(v);
+        second = {a.mantissa * b.mantissa, a.exponent + b.exponent};
+    }
+    if (first_zero) return {DoubleDouble{} - second.mantissa, second.exponent};
+    if (second_zero) return {first.mantissa, first.exponent};
+    const int exponent = std::max(first.exponent, second.exponent);
+    return {times_power_of_two(first.mantissa, first.exponent - exponent) -
+                times_power_of_two(second.mantissa, second.exponent - exponent),
+            exponent};
 }
 
-// Exact when both low parts are 0 (whole counts below 2^53); otherwise about 2^-104 relative.
-inline DoubleDouble operator*(const DoubleDouble& x, const DoubleDouble& y) {
-    const DoubleDouble p = exact_product(x.hi, y.hi);
-    return renormalised(p.hi, p.lo + (x.hi * y.lo + x.lo * y.hi));
+// A scaled value divided by a positive double-double: accurate to about 1.5 units in the last place.
+inline double divided(const Scaled& numerator, const DoubleDouble& denominator) {
+    const Normalised d = normalised(denominator);
+    return std::ldexp(numerator.value.value() / d.mantissa.value(), numerator.exponent - d.exponent);
 }
 
-struct ScaledMargins {
-    int exponent = 0;  // every count was multiplied by 2^-exponent
+// x·y/z for positive x, y, z, without overflow or underflow on the way.
+inline double product_over(const DoubleDouble& x, const DoubleDouble& y, const DoubleDouble& z) {
+    const Normalised a = normalised(x), b = normalised(y), d = normalised(z);
+    return std::ldexp(a.mantissa.value() * b.mantissa.value() / d.mantissa.value(), a.exponent + b.exponent - d.exponent);
+}
+
+struct TableMargins {
     std::vector<DoubleDouble> rows, columns;
     DoubleDouble total;
 
-    double scaled(double count) const { return exponent == 0 ? count : std::ldexp(count, -exponent); }
-    double unscaled(double value) const { return exponent == 0 ? value : std::ldexp(value, exponent); }
-
-    // E of cell (r, c). It needs no more than double precision (it is never a difference): R·C/n
-    // on the rounded margins, scaled so that R·C cannot overflow.
-    double expected(std::size_t r, std::size_t c) const {
-        return unscaled(rows[r].value() * columns[c].value() / total.value());
+    // O·n − R·C for the count `observed` in row r, column c, as the determinant O·S − R̂·C̄ of the
+    // table collapsed around the cell: R̂ = R − O (the rest of its row), C̄ = C − O (the rest of its
+    // column), S = n − R − C̄ (everything else) — the same number (O n − R C = O(R̂ + C̄ + S + O) −
+    // (O + R̂)(O + C̄)), but without the cancellation of two products near n·O when the cell holds
+    // nearly everything: [[2, 0], [1, 1e308]] gives 2e308 for the last cell, where O·n − R·C needs
+    // 616 digits. Exact for whole counts whose total is below 2^53; otherwise to about 2^-104 of
+    // the larger product.
+    Scaled numerator(double observed, std::size_t r, std::size_t c) const {
+        const DoubleDouble o{observed, 0.0};
+        const DoubleDouble row_rest = rows[r] - o, column_rest = columns[c] - o;
+        const DoubleDouble others = (total - rows[r]) - column_rest;
+        return difference_of_products(o, others, row_rest, column_rest);
     }
 
-    // O − E of cell (r, c) whose count is `count`. The difference O·n − R·C is formed exactly (or
-    // to about 2^-104); one rounding of it and one division leave O − E accurate to about 1.5 ulp.
-    double deviation(double count, std::size_t r, std::size_t c) const {
-        const DoubleDouble observed{scaled(count), 0.0};
-        const DoubleDouble difference = observed * total - rows[r] * columns[c];
-        return unscaled(difference.value() / total.value());
+    // A numerator divided by n: accurate to about 1.5 units in the last place.
+    double over_total(const Scaled& numerator) const { return divided(numerator, total); }
+
+    // O − E.
+    double deviation(double observed, std::size_t r, std::size_t c) const {
+        return over_total(numerator(observed, r, c));
+    }
+
+    // E = R·C/n; it is never a difference, so double precision is all it needs.
+    double expected(std::size_t r, std::size_t c) const { return product_over(rows[r], columns[c], total); }
+
+    // (|O·n − R·C| − n/2)/n = |O − E| − ½ without the cancellation of forming O − E first (the
+    // Yates correction); negative when |O − E| < ½.
+    double distance_beyond_half(double observed, std::size_t r, std::size_t c) const {
+        const Scaled difference = numerator(observed, r, c);
+        const Normalised n = normalised(total);
+        const DoubleDouble magnitude = difference.value.hi < 0 ? DoubleDouble{} - difference.value : difference.value;
+        const Scaled beyond{magnitude - times_power_of_two(n.mantissa, n.exponent - 1 - difference.exponent),
+                            difference.exponent};
+        return over_total(beyond);
     }
 };
 
-inline ScaledMargins scaled_margins(const CountTable& table) {
-    ScaledMargins margins;
-    // Ordinary totals need no scaling (O·n stays far from overflow and underflow), which keeps
-    // the common case free of ldexp calls.
-    const double total = table.total();
-    if (total > 0 && (total > 0x1p500 || total < 0x1p-500)) margins.exponent = std::ilogb(total);
+// For each total, the sum of all the others, in double-double: from prefix and suffix sums, not as
+// n − R, which loses a small remainder when the totals span more than the 32 digits of a
+// double-double (1e100 beside 1e300 and 8e307).
+inline std::vector<DoubleDouble> sums_of_the_others(const std::vector<DoubleDouble>& totals) {
+    std::vector<DoubleDouble> others(totals.size()), suffix(totals.size() + 1);
+    for (std::size_t i = totals.size(); i-- > 0;) suffix[i] = suffix[i + 1] + totals[i];
+    DoubleDouble prefix;
+    for (std::size_t i = 0; i < totals.size(); ++i) {
+        others[i] = prefix + suffix[i + 1];
+        prefix = prefix + totals[i];
+    }
+    return others;
+}
+
+inline TableMargins table_margins(const CountTable& table) {
+    TableMargins margins;
     margins.rows.assign(table.rows(), DoubleDouble{});
     margins.columns.assign(table.columns(), DoubleDouble{});
-    if (margins.exponent == 0 && table.whole_counts() && total <= 0x1p53) {
+    const double total = table.total();
+    if (table.whole_counts() && total <= 0x1p53) {
         // The common case: whole counts whose total is below 2^53 add up exactly in doubles,
         // so the table's own totals are already exact.
         for (std::size_t r = 0; r < table.rows(); ++r) margins.rows[r].hi = table.row_total(r);
@@ -79,7 +145,7 @@ inline ScaledMargins scaled_margins(const CountTable& table) {
     }
     for (std::size_t r = 0; r < table.rows(); ++r)
         for (std::size_t c = 0; c < table.columns(); ++c) {
-            const double count = margins.scaled(table.count(r, c));
+            const double count = table.count(r, c);
             margins.rows[r] = margins.rows[r] + count;
             margins.columns[c] = margins.columns[c] + count;
         }

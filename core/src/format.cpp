@@ -26,6 +26,13 @@ std::string format_number(double value, int digits) {
     return buffer;
 }
 
+std::string format_statistic(double value) {
+    if (!std::isfinite(value) || std::fabs(value) >= 1e6) return format_number(value, 3);
+    char buffer[32];
+    std::snprintf(buffer, sizeof buffer, "%.1f", value);
+    return buffer;
+}
+
 std::string format_p_value(double p) {
     if (p >= 0.001 || p == 0) return format_number(p, 3);
     char buffer[32];

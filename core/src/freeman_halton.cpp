@@ -48,6 +48,7 @@
 
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "exact_limits.hpp"
 
 namespace assoc::detail {
 namespace {
@@ -123,20 +124,6 @@ private:
     double largest_ = minus_infinity;
     double sum_ = 0.0;
 };
-
-// What to do instead, at the end of every message that stops the test: the simulation that orders
-// tables as this test does, so that its p-value estimates this one.
-const char* const simulate_instead =
-    "use ASSOC.SIMULATE(range; ; ; \"exact\") for a Monte Carlo estimate of the exact p-value instead";
-
-// The error at the work cap: the resource that ran out ("time" or "memory") and both limits.
-Error limit_error(const ExactLimits& limits, const char* resource) {
-    const double megabytes = static_cast<double>(limits.max_memory_bytes) / 1e6;
-    return Error(std::string("the exact test for this table needs more ") + resource + " than allowed (the limit is " +
-                 format_number(limits.max_seconds, 3) + " seconds and " +
-                 (megabytes >= 10 ? format_count(std::round(megabytes)) : format_number(megabytes, 3)) +
-                 " MB of working memory); " + simulate_instead);
-}
 
 class Network {
 public:
@@ -819,7 +806,7 @@ private:
         check_forecast();
     }
 
-    [[noreturn]] void fail(const char* resource) const { throw limit_error(limits_, resource); }
+    [[noreturn]] void fail(const char* resource) const { throw exact_limit_error(limits_, resource); }
 
     [[noreturn]] void fail_too_large() const {
         throw Error(std::string("the exact test cannot enumerate a table with this many rows and columns and such "
@@ -864,7 +851,7 @@ double freeman_halton_p_value(const Matrix& counts, const ExactLimits& limits) {
     } catch (const std::bad_alloc&) {
         // The memory cap counts what the test holds, but the machine may have less free; the
         // network is gone by now, so its memory is back for the message.
-        throw limit_error(limits, "memory");
+        throw exact_limit_error(limits, "memory");
     }
 }
 

@@ -8,6 +8,7 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "exact_margins.hpp"
 
 namespace assoc {
 namespace {
@@ -49,14 +50,18 @@ GoodnessOfFit goodness_of_fit(const std::vector<double>& observed, const std::ve
                 values_phrase(shares.size()) + "; give one expected count or share per category");
     check_values(shares, "expected value");
 
-    double observed_total = 0.0, share_total = 0.0;
+    // The totals in double-double, and O − E = (O·S − T·s)/S with T the observed total, s the share and
+    // S the shares' total, each product formed exactly on factors scaled by powers of two
+    // (exact_margins.hpp): the deviation keeps its digits for counts near 1e8 and nothing overflows
+    // for counts near 1e308.
+    detail::DoubleDouble observed_total, share_total;
     for (std::size_t i = 0; i < observed.size(); ++i) {
-        observed_total += observed[i];
-        share_total += shares[i];
+        observed_total = observed_total + observed[i];
+        share_total = share_total + shares[i];
     }
-    require(observed_total > 0, "the observed counts add up to 0; there is nothing to test");
-    require(share_total > 0, "the expected counts or shares add up to 0; give each category its expected share");
-    require(std::isfinite(observed_total) && std::isfinite(share_total),
+    require(observed_total.hi > 0, "the observed counts add up to 0; there is nothing to test");
+    require(share_total.hi > 0, "the expected counts or shares add up to 0; give each category its expected share");
+    require(std::isfinite(observed_total.hi) && std::isfinite(share_total.hi),
             "the counts add up to more than a spreadsheet number can hold");
 
     GoodnessOfFit result;
@@ -69,11 +74,16 @@ GoodnessOfFit goodness_of_fit(const std::vector<double>& observed, const std::ve
             continue;  // expected and observed 0: no information, not a category of the test
         }
         ++result.categories;
-        const double e = observed_total * (shares[i] / share_total);
-        const double deviation = observed[i] - e;
+        const detail::DoubleDouble count{observed[i], 0.0}, share{shares[i], 0.0};
+        const double e = detail::product_over(observed_total, share, share_total);
+        const double deviation =
+            detail::divided(detail::difference_of_products(count, share_total, observed_total, share), share_total);
         result.expected[i] = e;
-        result.statistic += deviation * deviation / e;
+        result.statistic += deviation * (deviation / e);
     }
+    require(std::isfinite(result.statistic),
+            "the goodness-of-fit statistic is larger than a spreadsheet number can hold for these counts (its "
+            "p-value is 0); divide every count by a common factor to see its size");
 
     const double categories = static_cast<double>(result.categories);
     require(result.categories >= 2, "the test needs at least 2 categories with an expected count above 0");

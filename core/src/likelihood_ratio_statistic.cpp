@@ -27,6 +27,11 @@ double likelihood_ratio_statistic(const CountTable& table) {
             // cancellation here: O ln(O/E) lies in [−E/e, 0) while −(O − E) ≥ E/2.
             const double ratio = observed / e;  // 0 only when O/E is below the smallest double
             sum += observed * (ratio > 0 ? std::log(ratio) : std::log(observed) - std::log(e)) - d;
+        } else if (observed > 2 * e) {
+            // Far above E the direct form has no cancellation either (O ln(O/E) > 0.69 O), and x·log1p(x)
+            // would overflow where E is tiny beside O ([[2, 0], [1, 1e308]] has E = 6e-308).
+            const double ratio = observed / e;
+            sum += observed * (std::isfinite(ratio) ? std::log(ratio) : std::log(observed) - std::log(e)) - d;
         } else {
             const double x = d / e;
             sum += e * (boost::math::log1pmx(x, policy) + x * boost::math::log1p(x, policy));

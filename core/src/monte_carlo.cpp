@@ -1,6 +1,7 @@
 #include "assoc/monte_carlo.hpp"
 
 #include <algorithm>
+#include <chrono>
 #include <boost/math/special_functions/gamma.hpp>
 #include <cmath>
 #include <numeric>
@@ -71,7 +72,6 @@ public:
                 p_up *= static_cast<double>(marked - up) * static_cast<double>(draws - up) /
                         (static_cast<double>(up + 1) * static_cast<double>(unmarked - draws + up + 1));
                 ++up;
-                ++steps_;
                 if (u < p_up) return up;
                 u -= p_up;
                 moved = true;
@@ -80,20 +80,19 @@ public:
                 p_down *= static_cast<double>(down) * static_cast<double>(unmarked - draws + down) /
                           (static_cast<double>(marked - down + 1) * static_cast<double>(draws - down + 1));
                 --down;
-                ++steps_;
                 if (u < p_down) return down;
                 u -= p_down;
                 moved = true;
             }
-            if (!moved) return mode;  // rounding left a sliver of probability unassigned
+            // Rounding can leave a sliver of probability unassigned (ln k! of counts near 1e9 carries
+            // errors of about 1e-7): once both sides' terms are negligible the draw ends at the mode, so
+            // that a draw never walks the whole support.
+            if (!moved || ((up == high || p_up < 1e-20) && (down == low || p_down < 1e-20))) return mode;
         }
     }
 
-    std::uint64_t steps() const { return steps_; }
-
 private:
     const LogFactorial& log_factorial_;
-    std::uint64_t steps_ = 0;
 };
 
 // The table with its rows and columns in ascending order of their totals: the last row and
@@ -213,7 +212,7 @@ SimulationResult monte_carlo_test(const CountTable& table, const SimulationOptio
 
     const SimulationTable t = simulation_table(table);
     const double trials = static_cast<double>(options.trials);
-    const double trials_that_fit = std::floor(options.max_work / work_per_table(t));
+    const double trials_that_fit = std::floor(options.limits.max_work / work_per_table(t));
     require(trials_that_fit >= static_cast<double>(min_simulation_trials),
             "this table is too large to simulate in reasonable time (" + std::to_string(t.rows) + " rows, " +
                 std::to_string(t.columns) + " columns, " + format_count(table.total()) +
@@ -236,16 +235,22 @@ SimulationResult monte_carlo_test(const CountTable& table, const SimulationOptio
     // P ≤ P_observed (1 + tolerance)  ⇔  Σ ln x! ≥ Σ ln x_observed! − ln(1 + tolerance).
     const double threshold = by_probability ? observed - std::log1p(exact_tie_tolerance)
                                             : observed - tie_tolerance * observed;
-    // The estimate above is for the usual case; this guard stops a run that goes far beyond it.
-    const double step_limit = 4 * options.max_work;
+    // The estimate above is for the usual case; the clock stops a run that goes beyond the time
+    // limit on any machine. It is read every 64 tables, or after every table when a table takes
+    // many search steps (a huge table), so the limit holds to within about a millisecond.
+    using Clock = std::chrono::steady_clock;
+    const Clock::time_point start = Clock::now();
+    const std::uint64_t check_every = work_per_table(t) > 1e5 ? 1 : 64;
 
     std::uint64_t at_least_as_large = 0;
     for (std::uint64_t trial = 0; trial < options.trials; ++trial) {
         draw_table(t, sampler, engine, column_left, cells);
         if (value_of(cells) >= threshold) ++at_least_as_large;
-        if ((trial & 1023) == 0)
-            require(static_cast<double>(sampler.steps()) <= step_limit,
-                    "the simulation was stopped because it took too long; use fewer trials");
+        if (trial % check_every == 0 &&
+            std::chrono::duration<double>(Clock::now() - start).count() > options.limits.max_seconds)
+            throw Error("the simulation was stopped at its time limit of " + format_number(options.limits.max_seconds, 3) +
+                        " seconds after " + format_count(static_cast<double>(trial + 1)) + " of " +
+                        format_count(trials) + " tables; use fewer trials");
     }
 
     SimulationResult result;

@@ -8,6 +8,7 @@
 #include "assoc/format.hpp"
 #include "assoc/statistics.hpp"
 #include "assoc/validity.hpp"
+#include "exact_limits.hpp"
 #include "row_names.hpp"
 
 namespace assoc {
@@ -30,12 +31,10 @@ std::string listed(const std::vector<std::string>& items) {
 }
 
 // The error when the exact tests of all pairs do not fit the limits.
-Error exact_limit_error(const ExactLimits& limits, const PairComparison& pair) {
-    const double megabytes = static_cast<double>(limits.max_memory_bytes) / 1e6;
+Error pairs_limit_error(const ExactLimits& limits, const PairComparison& pair) {
     return Error("the exact tests of the pairs need more time or memory than allowed (" +
                  format_number(limits.max_seconds, 3) + " seconds for all pairs together and " +
-                 (megabytes >= 10 ? format_count(std::round(megabytes)) : format_number(megabytes, 3)) +
-                 " MB of working memory; they stopped at the pair " + quoted_pair(pair) +
+                 detail::megabytes(limits.max_memory_bytes) + " MB of working memory; they stopped at the pair " + quoted_pair(pair) +
                  "); use \"pearson\" for chi-squared p-values instead");
 }
 
@@ -94,11 +93,14 @@ PairwiseComparisons pairwise_comparisons(const CountTable& table, PAdjustment ad
                 if (check_validity(two_rows).exact_test_recommended) doubtful.push_back(quoted_pair(pair));
             } else {
                 const double spent = std::chrono::duration<double>(Clock::now() - start).count();
-                if (spent >= limits.max_seconds) throw exact_limit_error(limits, pair);
+                if (spent >= limits.max_seconds) throw pairs_limit_error(limits, pair);
+                // The caller's limits (its forecast too), with the time the earlier pairs left.
+                ExactLimits left = limits;
+                left.max_seconds -= spent;
                 try {
-                    pair.p_value = exact_p_value(two_rows, Side::two_sided, {limits.max_seconds - spent, limits.max_memory_bytes});
+                    pair.p_value = exact_p_value(two_rows, Side::two_sided, left);
                 } catch (const Error&) {
-                    throw exact_limit_error(limits, pair);
+                    throw pairs_limit_error(limits, pair);
                 }
             }
             result.pairs.push_back(pair);

@@ -25,14 +25,17 @@ void check_w(double w) {
     require(std::isfinite(w) && w >= 0, "the effect size w must be a number of 0 or more, not " + format_number(w));
 }
 
-// Power for noncentrality λ against the critical value.
-double power_at(double lambda, double df, double critical_value) {
-    if (lambda == 0) return chi_squared_p_value(critical_value, df);
+// Power for noncentrality λ against the critical value of level alpha.
+double power_at(double lambda, double df, double critical_value, double alpha) {
+    // With no effect the chance of rejecting is alpha by the definition of the critical value;
+    // recomputing it from the critical value would be off in the last digit.
+    if (lambda == 0) return alpha;
     // The chance of missing is P(X ≤ c) ≤ e^(c/2) E[e^(−X/2)] = e^(c/2 − λ/4) 2^(−df/2) (Chernoff's
     // bound at t = 1/2). Past e^−750 it is below the smallest double, so the power is exactly 1 in
     // double precision; Boost's series would give up on such a λ (about 2^31 and beyond).
     if (critical_value / 2 - lambda / 4 - df / 2 * std::log(2.0) < -750) return 1.0;
-    return boost::math::cdf(boost::math::complement(NoncentralChiSquared(df, lambda), critical_value));
+    // The power never falls below alpha (λ ≥ 0); for a tiny λ rounding could take it a unit below.
+    return std::max(alpha, boost::math::cdf(boost::math::complement(NoncentralChiSquared(df, lambda), critical_value)));
 }
 
 }  // namespace
@@ -44,7 +47,7 @@ double chi_squared_power(double w, double n, double df, double alpha) {
     const double critical_value = chi_squared_critical_value(df, alpha);  // checks alpha
     const double lambda = n * w * w;
     require(std::isfinite(lambda), "n·w² is too large for a spreadsheet number");
-    return power_at(lambda, df, critical_value);
+    return power_at(lambda, df, critical_value, alpha);
 }
 
 double chi_squared_sample_size(double w, double power, double df, double alpha) {
@@ -63,7 +66,7 @@ double chi_squared_sample_size(double w, double power, double df, double alpha) 
     // The root is close but not exact (and the power is rounded near 1), so settle the answer
     // with the power itself: bracket it from the estimate with doubling steps (lo fails, hi reaches;
     // n = 0 counts as failing), then halve. Power grows with n, so this ends within about 100 tries.
-    auto reaches = [&](double n) { return n > 0 && power_at(n * w * w, df, critical_value) >= power; };
+    auto reaches = [&](double n) { return n > 0 && power_at(n * w * w, df, critical_value, alpha) >= power; };
     double hi = std::max(1.0, std::ceil(real_n)), lo = hi - 1;
     for (double step = 1; reaches(lo); step *= 2) {
         hi = lo;

@@ -2,7 +2,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <cstdio>
 #include <optional>
 #include <utility>
 
@@ -48,13 +47,18 @@ struct Findings {
     double critical_value;
     bool independence_rejected;
     Attempt<CramersVInterval> v_interval;
-    Matrix adjusted_residuals;
+    Attempt<Matrix> adjusted_residuals;
     ValidityCheck validity;
 };
 
 class Lines {
 public:
     void number(std::string label, double value) { lines_.push_back({std::move(label), Cell::number(value)}); }
+    // A statistic that may pass the largest double (counts near 1e308 beside tiny expected counts).
+    void statistic(std::string label, double value) {
+        if (std::isfinite(value)) number(std::move(label), value);
+        else text(std::move(label), "Above 1.8e308, too large for a spreadsheet number (its p-value is 0)");
+    }
     void text(std::string label, std::string value) { lines_.push_back({std::move(label), Cell::text(std::move(value))}); }
     std::vector<ReportLine> take() { return std::move(lines_); }
 
@@ -74,13 +78,13 @@ void add_size(const Findings& f, Lines& lines) {
 }
 
 void add_tests(const Findings& f, Lines& lines) {
-    lines.number("Pearson X²", f.pearson.statistic);
+    lines.statistic("Pearson X²", f.pearson.statistic);
     lines.number("p-value, Pearson X²", f.pearson.p_value);
-    lines.number("Likelihood-ratio G²", f.likelihood_ratio.statistic);
+    lines.statistic("Likelihood-ratio G²", f.likelihood_ratio.statistic);
     lines.number("p-value, G²", f.likelihood_ratio.p_value);
     const std::string only = "2×2 tables only";
     if (f.yates) {
-        lines.number("Yates-corrected X²", f.yates->statistic);
+        lines.statistic("Yates-corrected X²", f.yates->statistic);
         lines.number("p-value, Yates-corrected X²", f.yates->p_value);
     } else {
         lines.text("Yates-corrected X²", only);
@@ -129,16 +133,15 @@ std::string column_name(const CountTable& table, std::size_t index) {
     return "column " + std::to_string(table.range_column(table.kept_columns()[index]));
 }
 
-std::string one_decimal(double value) {
-    char buffer[32];
-    std::snprintf(buffer, sizeof buffer, "%.1f", value);
-    return buffer;
-}
-
 // The cells furthest from independence: adjusted residuals beyond ±2 (about the 5% level each,
 // common practice), largest first, at most three named.
 void add_standouts(const Findings& f, Lines& lines) {
-    const Matrix& z = f.adjusted_residuals;
+    const std::string label = "Cells that stand out";
+    if (!f.adjusted_residuals.value) {
+        lines.text(label, "Not computed: " + sentence(f.adjusted_residuals.reason));
+        return;
+    }
+    const Matrix& z = *f.adjusted_residuals.value;
     // With two columns (or two rows) the two cells of a row (or column) have adjusted residuals of
     // equal size and opposite sign, so only the first column (row) is named: it says it all.
     const bool two_columns = z.columns() == 2, two_rows = z.rows() == 2;
@@ -149,7 +152,6 @@ void add_standouts(const Findings& f, Lines& lines) {
     }
     std::stable_sort(beyond.begin(), beyond.end(),
                      [&](std::size_t a, std::size_t b) { return std::fabs(z.values()[a]) > std::fabs(z.values()[b]); });
-    const std::string label = "Cells that stand out";
     if (beyond.empty()) {
         lines.text(label, "None: no cell's adjusted residual is beyond ±2");
         return;
@@ -160,7 +162,7 @@ void add_standouts(const Findings& f, Lines& lines) {
         const std::size_t r = beyond[k] / z.columns(), c = beyond[k] % z.columns();
         const double residual = z(r, c);
         text += (k == 0 ? "" : "; ") + row_name(f.table, r) + " × " + column_name(f.table, c) + ": " +
-                (residual > 0 ? "more" : "fewer") + " than expected (adjusted residual " + one_decimal(residual) + ")";
+                (residual > 0 ? "more" : "fewer") + " than expected (adjusted residual " + format_statistic(residual) + ")";
     }
     if (beyond.size() > named)
         text += "; and " + format_count(static_cast<double>(beyond.size() - named)) + " more beyond ±2 (see ASSOC.RESIDUALS)";
@@ -251,7 +253,7 @@ std::vector<ReportLine> association_report(const CountTable& table, const Report
                             critical,
                             pearson.p_value < options.alpha,
                             attempt([&] { return cramers_v_interval(table, 0.95); }),
-                            residuals(table, ResidualKind::adjusted),
+                            attempt([&] { return residuals(table, ResidualKind::adjusted); }),
                             check_validity(table)};
     Lines lines;
     for (auto section : {add_size, add_tests, add_decision, add_strength, add_validity, add_standouts, add_conclusion,

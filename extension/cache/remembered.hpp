@@ -20,8 +20,8 @@ double remembered_exact_p_value(ResultCache& cache, const CountTable& table, Sid
 // The same in the shared cache, in the form ReportOptions::exact_test takes.
 double shared_exact_p_value(const CountTable& table, Side side, const ExactLimits& limits);
 
-// monte_carlo_test (ASSOC.SIMULATE), keyed by the counts and every option: trials, seed, statistic
-// and work cap. The simulation is deterministic for a given seed, so its answer can be reused.
+// monte_carlo_test (ASSOC.SIMULATE), keyed by the counts and every option: trials, seed, statistic,
+// order of tables and limits (time and work). The simulation is deterministic for a given seed, so its answer can be reused.
 SimulationResult remembered_monte_carlo_test(ResultCache& cache, const CountTable& table, const SimulationOptions& options);
 
 }  // namespace assoc::calc

@@ -49,9 +49,14 @@ CacheKey& CacheKey::add(const ExactLimits& limits) {
     return add(max_seconds).add(static_cast<std::uint64_t>(max_memory_bytes)).add(static_cast<std::uint64_t>(forecast));
 }
 
+CacheKey& CacheKey::add(const SimulationLimits& limits) {
+    const auto& [max_seconds, max_work] = limits;
+    return add(max_seconds).add(max_work);
+}
+
 CacheKey& CacheKey::add(const SimulationOptions& options) {
-    const auto& [trials, seed, statistic, order, max_work] = options;
-    return add(trials).add(seed).add(statistic).add(order).add(max_work);
+    const auto& [trials, seed, statistic, order, limits] = options;
+    return add(trials).add(seed).add(statistic).add(order).add(limits);
 }
 
 ResultCache::ResultCache(std::size_t capacity_bytes) : capacity_(capacity_bytes) {}

@@ -44,6 +44,7 @@ public:
     // The counts the statistics use (the kept rows and columns), with their shape.
     CacheKey& add(const CountTable& table);
     CacheKey& add(const ExactLimits& limits);
+    CacheKey& add(const SimulationLimits& limits);
     CacheKey& add(const SimulationOptions& options);
     // Option words arrive as enums: keyed by their value.
     template <class Enum, class = std::enable_if_t<std::is_enum_v<Enum>>>

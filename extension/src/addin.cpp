@@ -1,6 +1,7 @@
 // The UNO component: the generated worksheet functions plus what Calc asks an add-in about them
 // (XAddIn: names, descriptions, category) and the service facts; and the factory entry point
-// for passive registration (assoc.components).
+// for passive registration (assoc.components), which also registers the menu command's protocol
+// handler (extension/command).
 #include <com/sun/star/lang/Locale.hpp>
 #include <com/sun/star/uno/XComponentContext.hpp>
 #include <cppuhelper/factory.hxx>
@@ -10,6 +11,7 @@
 
 #include "assoc_functions.hpp"
 #include "office_collation.hpp"
+#include "uno/analyse_command.hpp"
 #include "uno_values.hpp"
 
 namespace assoc::calc {
@@ -95,6 +97,8 @@ OUString SAL_CALL get_implementation_name() { return OUString::createFromAscii(i
 
 const cppu::ImplementationEntry entries[] = {
     {create, get_implementation_name, service_names, cppu::createSingleComponentFactory, nullptr, 0},
+    {assoc::command::create_analyse_command, assoc::command::analyse_command_implementation_name,
+     assoc::command::analyse_command_service_names, cppu::createSingleComponentFactory, nullptr, 0},
     {nullptr, nullptr, nullptr, nullptr, nullptr, 0},
 };
 

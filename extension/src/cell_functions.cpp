@@ -34,17 +34,14 @@
 #include "check.hpp"
 #include "office_collation.hpp"
 #include "remembered.hpp"
+#include "worksheet_limits.hpp"
 
 namespace assoc::calc {
 namespace {
 
-// A cell must not freeze the office for long, and Calc recalculates add-in cells whenever a document
-// loads: the exact test stops after 5 seconds or 400 MB of working memory (the office's peak memory
-// grows by about as much; the core's own defaults are 20 seconds and 1 GB), with an error that
-// points to ASSOC.SIMULATE(range; ; ; "exact"); a table it cannot finish within them is refused at
-// once (see freeman_halton.cpp). Its answers and refusals are remembered (extension/cache/), so an
-// unchanged table is not computed again on the next recalculation or load.
-const ExactLimits worksheet_exact_limits{5.0, 400'000'000};
+// The long computations (exact tests, simulations) go through the add-in's cache (extension/cache/):
+// an unchanged table is not computed again on the next recalculation or load, and a refusal is
+// remembered like an answer. Their caps are in worksheet_limits.hpp.
 
 std::vector<double> ratio_row(const RatioEstimate& ratio) {
     remark(ratio.remark);
@@ -62,7 +59,7 @@ Matrix expected(const CellGrid& range) {
 
 std::vector<double> statistic(const CellGrid& range, Method method) {
     const TestResult result = independence_test(read_count_table(range), method);
-    return {result.statistic, result.df, result.p_value};
+    return {representable_statistic(result, method), result.df, result.p_value};
 }
 
 double pvalue(const CellGrid& range, PValueMethod method) {
@@ -71,7 +68,10 @@ double pvalue(const CellGrid& range, PValueMethod method) {
     case PValueMethod::pearson: return independence_test(table, Method::pearson).p_value;
     case PValueMethod::g: return independence_test(table, Method::likelihood_ratio).p_value;
     case PValueMethod::yates: return independence_test(table, Method::yates).p_value;
-    case PValueMethod::exact: return shared_exact_p_value(table, Side::two_sided, worksheet_exact_limits);
+    case PValueMethod::exact: {
+        const ReturnFreedMemory after;
+        return shared_exact_p_value(table, Side::two_sided, exact_limits());
+    }
     }
     throw Error("unknown method");
 }
@@ -100,13 +100,15 @@ double strength(const CellGrid& range, Measure measure) {
 }
 
 double exact(const CellGrid& range, Side side) {
-    return shared_exact_p_value(read_count_table(range), side, worksheet_exact_limits);
+    const ReturnFreedMemory after;
+    return shared_exact_p_value(read_count_table(range), side, exact_limits());
 }
 
 std::vector<double> simulate(const CellGrid& range, double trials, double seed, SimulationMethod method) {
     SimulationOptions options = simulation_options(trials, seed);
     options.statistic = method == SimulationMethod::g ? Method::likelihood_ratio : Method::pearson;
     if (method == SimulationMethod::exact) options.order = SimulationOrder::probability;
+    options.limits = simulation_limits();
     // Remembered (keyed by the counts and every option): the same seed gives the same answer.
     const SimulationResult result = remembered_monte_carlo_test(shared_result_cache(), read_count_table(range), options);
     return {result.p_value, result.standard_error, static_cast<double>(result.trials)};
@@ -202,8 +204,10 @@ std::string check(const CellGrid& range, const Cell& function_or_word) { return 
 
 CellGrid report(const CellGrid& range, double alpha) {
     const CountTable table = read_count_table(range);
+    const ReturnFreedMemory after;
     ReportOptions options;
     options.alpha = alpha;
+    options.exact_limits = report_exact_limits();
     options.variables = variable_names_from_corner(range, table);
     options.exact_test = shared_exact_p_value;  // the exact line, remembered like ASSOC.EXACT's
     const std::vector<ReportLine> lines = association_report(table, options);
@@ -239,8 +243,8 @@ std::vector<double> ratediff(const CellGrid& range, double confidence) {
 }
 
 CellGrid pairwise(const CellGrid& range, PAdjustment adjust, PairwiseMethod method) {
-    const PairwiseComparisons result =
-        pairwise_comparisons(read_count_table(range), adjust, method, worksheet_exact_limits);
+    const ReturnFreedMemory after;
+    const PairwiseComparisons result = pairwise_comparisons(read_count_table(range), adjust, method, exact_limits());
     for (const std::string& sentence : result.remarks) remark(sentence);
     CellGrid cells(result.pairs.size(), 4);
     for (std::size_t k = 0; k < result.pairs.size(); ++k) {

@@ -8,6 +8,7 @@
 #include "assoc/wording.hpp"
 #include "function_catalog.hpp"
 #include "option_words.hpp"
+#include "worksheet_limits.hpp"
 
 namespace assoc::calc {
 namespace {
@@ -151,6 +152,9 @@ std::vector<double> numbers_in_range(const CellGrid& range, std::size_t required
 }
 
 std::string check_range(const CellGrid& range, const Cell& function_or_word) {
+    // Everything CHECK tries shares its one cap (worksheet_limits.hpp).
+    const CellBudget budget(worksheet_check_seconds);
+    const ReturnFreedMemory after;
     if (function_or_word.is_blank()) return verdict(range);
     if (!function_or_word.is_text())
         return "The second argument must be an option word or the name of an ASSOC function (for example \"exact\"), not " +

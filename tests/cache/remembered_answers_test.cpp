@@ -141,13 +141,16 @@ TEST(RememberedSimulation, ComputesAgainWhenTheOrderOfTablesChanges) {
     EXPECT_EQ(cache.statistics().misses, 2u);
 }
 
-TEST(RememberedSimulation, ComputesAgainWhenTheWorkCapChanges) {
+TEST(RememberedSimulation, ComputesAgainWhenTheWorkCapOrTheTimeCapChanges) {
     ResultCache cache(1'000'000);
     SimulationOptions o = options(2000, 7, Method::pearson);
     remembered_monte_carlo_test(cache, three_by_three(), o);
-    o.max_work = 1e8;
+    o.limits.max_work = 1e8;
     remembered_monte_carlo_test(cache, three_by_three(), o);
-    EXPECT_EQ(cache.statistics().misses, 2u);
+    o.limits.max_seconds = 4.0;
+    remembered_monte_carlo_test(cache, three_by_three(), o);
+    EXPECT_EQ(cache.statistics().misses, 3u);
+    EXPECT_EQ(cache.statistics().hits, 0u);
 }
 
 }  // namespace

@@ -3,6 +3,7 @@
 
 #include "assoc/exact_test.hpp"
 #include "exact_values.hpp"
+#include "fisher_large_values.hpp"
 #include "test_support.hpp"
 
 using namespace assoc;
@@ -41,6 +42,29 @@ TEST(ExactPValue, MatchesScipyForTwoByTwoTablesOnEverySide) {
         EXPECT_NEAR_REL(exact_p_value(case_table(c), Side::lower), c.p_value, 1e-10) << c.name;
     for (const auto& c : reference::fisher_upper)
         EXPECT_NEAR_REL(exact_p_value(case_table(c), Side::upper), c.p_value, 1e-10) << c.name;
+}
+
+// mpmath 1.2.1 at 60 digits, checked against exact fractions and R 4.2.2 fisher.test where they reach
+// (tests/reference/fisher_large_generate.py): the table that froze Calc, totals of millions whose
+// digits were lost, tables of 5e7 to 1e15 per cell. 1e-12 relative; a value below the smallest
+// double must come out exactly 0.
+TEST(ExactPValue, MatchesMpmathOnTwoByTwoTablesWithLargeCountsOnEverySide) {
+    for (const auto& c : reference::fisher_large) {
+        const CountTable table = counts_table({{c.a, c.b}, {c.c, c.d}});
+        const std::pair<Side, double> sides[] = {{Side::two_sided, c.two_sided}, {Side::lower, c.lower}, {Side::upper, c.upper}};
+        for (const auto& [side, expected] : sides) {
+            const double p = exact_p_value(table, side);
+            if (expected == 0) EXPECT_EQ(p, 0.0) << c.name;
+            else EXPECT_NEAR_REL(p, expected, 1e-12) << c.name << " side " << static_cast<int>(side);
+        }
+    }
+}
+
+// 2^53 is where doubles stop holding every whole number: the margins would no longer be exact.
+TEST(ExactPValue, RefusesATwoByTwoTableWhoseTotalReachesTwoToThe53) {
+    expect_error([] { exact_p_value(counts_table({{4503599627370496.0, 1}, {1, 4503599627370496.0}})); },
+                 "the exact test takes totals below 9,007,199,254,740,992 (2^53), and this table's total is "
+                 "9.0072e+15; at this size use the chi-squared p-value (ASSOC.PVALUE)");
 }
 
 // Exact rational enumeration of every table with the margins (tests/reference/exact_generate.py).

@@ -43,3 +43,15 @@ TEST(FormatPValue, ShowsTinyPValuesInScientificNotationSoTheirSizeIsVisible) {
     EXPECT_EQ(format_p_value(1e-300), "1.0e-300");
     EXPECT_EQ(format_p_value(0), "0");
 }
+
+TEST(FormatStatistic, ShowsOneDecimalForOrdinaryValues) {
+    EXPECT_EQ(format_statistic(4.4962), "4.5");
+    EXPECT_EQ(format_statistic(-5.3208), "-5.3");
+    EXPECT_EQ(format_statistic(123456.74), "123456.7");
+}
+
+// Issue 9: a report on counts of 1e15 once wrote an adjusted residual with 30 digits.
+TEST(FormatStatistic, ShowsHugeValuesInScientificNotation) {
+    EXPECT_EQ(format_statistic(-34860834.438919716), "-3.49e+07");
+    EXPECT_EQ(format_statistic(8.164965809277261e+153), "8.16e+153");
+}

@@ -151,17 +151,25 @@ TEST(MonteCarloTest, RejectsMoreTrialsThanTheCap) {
 
 TEST(MonteCarloTest, RejectsWorkBeyondTheCapWithAnEstimateOfWhatFits) {
     SimulationOptions options = with(100'000, 1);
-    options.max_work = 1e6;
+    options.limits.max_work = 1e6;
     expect_error([&] { monte_carlo_test(three_by_four(), options); },
                  "simulating 100,000 tables of 21 counts would take too long; use fewer trials (at most about 6,626)");
 }
 
 TEST(MonteCarloTest, RejectsATableTooLargeToSimulateAtAll) {
     SimulationOptions options = with(100, 1);
-    options.max_work = 1e4;
+    options.limits.max_work = 1e4;
     expect_error([&] { monte_carlo_test(three_by_four(), options); },
                  "this table is too large to simulate in reasonable time (3 rows, 4 columns, 21 counts); combine "
                  "sparse categories, or use the chi-squared p-value if the validity check allows");
+}
+
+// The clock is the cap on any machine: with no time at all the run stops after its first table.
+TEST(MonteCarloTest, StopsAtItsTimeLimitAndSaysHowFarItGot) {
+    SimulationOptions options = with(100'000, 1);
+    options.limits.max_seconds = 0;
+    expect_error([&] { monte_carlo_test(three_by_four(), options); },
+                 "the simulation was stopped at its time limit of 0 seconds after 1 of 100,000 tables; use fewer trials");
 }
 
 TEST(MonteCarloTest, RejectsAHugeTable) {

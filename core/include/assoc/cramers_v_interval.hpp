@@ -20,6 +20,15 @@ struct CramersVInterval {
 // that says the table is closer to independence than chance usually gives).
 // V bounds are √(λ / (n (min(r, c) − 1))), capped at 1. The interval treats the table as one sample
 // of n counts with X² approximately noncentral chi-squared: it is rough for small or sparse tables.
+// Statistics of 1e5 and more use the Cornish–Fisher expansion of the noncentral chi-squared quantile
+// (to the third order in its cumulants, accurate there to better than 1e-11 of λ) instead of the
+// series, whose work grows with √λ; beyond X² = 1e308 everything is computed in units of n.
 CramersVInterval cramers_v_interval(const CountTable& table, double confidence = 0.95);
+
+// The noncentrality bounds alone, for an observed chi-squared statistic with df degrees of freedom.
+struct NoncentralityInterval {
+    double lower = 0.0, upper = 0.0;
+};
+NoncentralityInterval noncentrality_interval(double statistic, double df, double confidence = 0.95);
 
 }  // namespace assoc

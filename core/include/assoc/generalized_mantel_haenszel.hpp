@@ -9,6 +9,7 @@
 
 #include "assoc/cell.hpp"
 #include "assoc/long_strata.hpp"
+#include "assoc/work_limits.hpp"
 
 namespace assoc {
 
@@ -23,12 +24,8 @@ struct GeneralAssociationResult {
     std::vector<std::string> remarks;
 };
 
-// Limits that keep the test quick on any range: the size of the matrix to invert,
-// (rows − 1)(columns − 1), and the work of summing it over the strata, strata × that size².
-struct GeneralAssociationLimits {
-    std::size_t max_dimension = 1000;
-    double max_work = 2e9;  // about 2 seconds
-};
+// GeneralAssociationLimits (the size of the matrix to invert and the work of the sums) are with the
+// core's other caps in work_limits.hpp.
 
 // Landis, Heyman & Koch (1978): with the first (r − 1)(c − 1) cells of each stratum h as vectors,
 //     Q = (Σ_h (n_h − m_h))ᵀ (Σ_h V_h)⁻¹ (Σ_h (n_h − m_h)),

@@ -8,6 +8,7 @@
 
 #include "assoc/count_table.hpp"
 #include "assoc/statistics.hpp"
+#include "assoc/work_limits.hpp"
 
 namespace assoc {
 
@@ -31,9 +32,7 @@ struct SimulationOptions {
     std::uint64_t seed = default_simulation_seed;
     Method statistic = Method::pearson;  // pearson or likelihood_ratio (G²); yates is refused
     SimulationOrder order = SimulationOrder::statistic;
-    // Work cap, in units of about one step of the search for a cell's count (about 6 ns here;
-    // drawing a cell costs 20 units more, a cell's share of the statistic 2): 1e9 is about 6 seconds.
-    double max_work = 1e9;
+    SimulationLimits limits;  // time, and the work estimated before it starts (work_limits.hpp)
 };
 
 struct SimulationResult {

@@ -26,9 +26,9 @@ struct VariableNames {
 struct ReportOptions {
     double alpha = 0.05;  // significance level of the decision and the critical value
     VariableNames variables;
-    // The exact test runs on every recalculation of the report, so it gets a short leash (2
-    // seconds, 100 MB); past it the line says why it was not computed (ASSOC.EXACT allows more).
-    ExactLimits exact_limits{2.0, 100'000'000};
+    // The exact test runs on every recalculation of the report, so it gets a short leash
+    // (work_limits.hpp); past it the line says why it was not computed (ASSOC.EXACT allows more).
+    ExactLimits exact_limits = default_report_exact_limits;
     // How the exact p-value is computed: exact_p_value, or a caller's equivalent that remembers
     // earlier answers (the add-in's cache); it must give the same answers and the same errors.
     double (*exact_test)(const CountTable&, Side, const ExactLimits&) = exact_p_value;
