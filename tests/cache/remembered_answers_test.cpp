@@ -3,11 +3,13 @@
 // one count, one option, one limit — is computed afresh rather than answered from the cache.
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <string>
 
 #include "assoc/error.hpp"
 #include "assoc/exact_test.hpp"
 #include "assoc/monte_carlo.hpp"
+#include "assoc/report.hpp"
 #include "remembered.hpp"
 #include "test_support.hpp"
 
@@ -89,6 +91,45 @@ TEST(RememberedExactTest, SharesTheAnswerOfTablesWithTheSameCountsAndOtherLabels
     EXPECT_EQ(remembered_exact_p_value(cache, labelled, Side::two_sided, limits),
               remembered_exact_p_value(cache, three_by_three(), Side::two_sided, limits));
     EXPECT_EQ(cache.statistics().hits, 1u);
+}
+
+// ASSOC.REPORT's exact line goes through the cache (ReportOptions::exact_test): the report is the
+// same line for line, its exact p-value or its refusal included, and the second report is answered
+// from the cache.
+// Returns the exact line.
+Cell expect_same_report_with_the_remembered_exact_line(const CountTable& counts, const ExactLimits& report_limits) {
+    ReportOptions fresh_options;
+    fresh_options.exact_limits = report_limits;
+    const std::vector<ReportLine> fresh = association_report(counts, fresh_options);
+    ReportOptions remembered_options = fresh_options;
+    remembered_options.exact_test = shared_exact_p_value;
+    const auto hits_before = shared_result_cache().statistics().hits;
+    for (int call = 0; call < 2; ++call) {
+        const std::vector<ReportLine> remembered = association_report(counts, remembered_options);
+        EXPECT_EQ(remembered.size(), fresh.size());
+        for (std::size_t i = 0; i < std::min(fresh.size(), remembered.size()); ++i) {
+            EXPECT_EQ(remembered[i].label, fresh[i].label);
+            EXPECT_EQ(remembered[i].value, fresh[i].value) << fresh[i].label;
+        }
+    }
+    EXPECT_EQ(shared_result_cache().statistics().hits, hits_before + 1);
+    for (const ReportLine& line : fresh)
+        if (line.label == "p-value, exact test") return line.value;
+    ADD_FAILURE() << "the report has no exact line";
+    return Cell();
+}
+
+TEST(RememberedReport, IsTheFreshReportWhenTheExactTestFinishes) {
+    const Cell exact = expect_same_report_with_the_remembered_exact_line(three_by_three(), default_report_exact_limits);
+    EXPECT_TRUE(exact.is_number());
+}
+
+TEST(RememberedReport, IsTheFreshReportWhenTheExactTestIsRefused) {
+    // The memory limit refuses this table the same way every time (a time limit could not).
+    const Cell exact = expect_same_report_with_the_remembered_exact_line(
+        table({{6, 4, 8, 8, 5, 5}, {2, 15, 6, 8, 8, 4}, {0, 3, 9, 2, 4, 3}}), ExactLimits{20.0, 1'000'000});
+    ASSERT_TRUE(exact.is_text());
+    EXPECT_EQ(exact.as_text().rfind("Not computed: ", 0), 0u) << exact.as_text();
 }
 
 SimulationOptions options(std::uint64_t trials, std::uint64_t seed, Method statistic) {
