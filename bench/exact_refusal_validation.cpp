@@ -27,6 +27,7 @@
 #include "assoc/error.hpp"
 #include "assoc/exact_test.hpp"
 #include "exact_suite.hpp"
+#include "worksheet_limits.hpp"  // extension/src: the caps of the worksheet functions
 
 namespace {
 
@@ -117,8 +118,8 @@ int main(int argc, char** argv) {
     }
     int per_shape = 4;
     unsigned long long seed = 20240611;
-    // The limits of ASSOC.EXACT and ASSOC.PVALUE "exact" (extension/src/cell_functions.cpp).
-    assoc::ExactLimits limits{5.0, 400'000'000};
+    // The limits of ASSOC.EXACT and ASSOC.PVALUE "exact".
+    assoc::ExactLimits limits = assoc::calc::worksheet_exact_limits;
     bool list = false;
     for (int i = 2; i < argc; i += 2) {
         const std::string option = argv[i];
