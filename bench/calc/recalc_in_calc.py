@@ -50,7 +50,7 @@ sys.path.insert(0, str(ROOT / "scripts"))
 sys.path.insert(0, str(HERE))
 
 import assoc_office  # noqa: E402  (the throwaway office of the Calc tests)
-from counts_in_calc import BenchOffice, column_name, median  # noqa: E402
+from counts_in_calc import CLOCK_TICKS, BenchOffice, column_name, median  # noqa: E402
 
 # The worksheet exact test's time limit, as extension/src/worksheet_limits.hpp sets it.
 CAP_SECONDS = float(re.search(r"worksheet_exact_limits\{([0-9.]+),",
@@ -112,24 +112,24 @@ def cell_outcome(cell):
 
 def office_cpu_seconds(office):
     """Processor time of the office's processes in nanoseconds' resolution: the run time of every
-    thread from /proc/PID/task/TID/schedstat (CPU time in /proc's stat comes in 10 ms ticks, too
-    coarse for calls of a few milliseconds). Threads that have ended are not counted, which the
-    timed calls do not depend on (Calc calculates on its main thread)."""
-    total = 0
-    for entry in os.listdir("/proc"):
-        if not entry.isdigit():
-            continue
+    living thread from /proc/PID/task/TID/schedstat (CPU time in /proc's stat comes in 10 ms ticks,
+    too coarse for calls of a few milliseconds), plus, in ticks, that of the threads that have ended
+    (the process's utime + stime, which keeps theirs, less its living threads'): without them a
+    thread ending during a timed call made its time negative."""
+    total = 0.0
+    for pid, fields in office.processes():
+        living_ticks = 0
         try:
-            with open(f"/proc/{entry}/stat") as stat:
-                fields = stat.read().rsplit(")", 1)[1].split()
-            if int(fields[2]) != office.process.pid:  # not in the office's process group
-                continue
-            for task in os.listdir(f"/proc/{entry}/task"):
-                with open(f"/proc/{entry}/task/{task}/schedstat") as schedstat:
-                    total += int(schedstat.read().split()[0])
+            for task in os.listdir(f"/proc/{pid}/task"):
+                with open(f"/proc/{pid}/task/{task}/schedstat") as schedstat:
+                    total += int(schedstat.read().split()[0]) / 1e9
+                with open(f"/proc/{pid}/task/{task}/stat") as stat:
+                    task_fields = stat.read().rsplit(")", 1)[1].split()
+                living_ticks += int(task_fields[11]) + int(task_fields[12])
         except OSError:
             continue  # a process or thread that ended meanwhile
-    return total / 1e9
+        total += max(0, int(fields[11]) + int(fields[12]) - living_ticks) / CLOCK_TICKS
+    return total
 
 
 def time_call(office, action):
