@@ -287,6 +287,22 @@ FUNCTIONS = [
          "with every count on a diagonal. ASSOC.ORDINAL tests such an association."],
         '=ASSOC.STRENGTH(A1:D3; "cramer-corrected")'),
     Function(
+        "ASSOC.VINTERVAL", "vinterval",
+        "Cramér's V with a confidence interval for the V of the population the table was drawn from.",
+        [TABLE, CONFIDENCE],
+        "row", "one row: Cramér's V, the lower and the upper end of its interval; a plain entry shows V (the same "
+               "number as ASSOC.STRENGTH)",
+        ["The interval inverts the noncentral chi-squared distribution of X², as ASSOC.REPORT's interval does (the "
+         "same numbers at 0.95; see ASSOC.REPORT and the guide's \"The interval of Cramér's V\"). A limit is 0 when "
+         "even a population without association makes the observed X² likely enough, so a table whose test is not "
+         "significant at 1 − confidence has the lower end 0, and a table closer to independence than chance "
+         "usually gives has the interval 0 to 0 (ASSOC.CHECK with \"vinterval\" says so). The interval is rough for "
+         "small or sparse tables, and it can lie below the sample's V, which overstates the population's V on "
+         "average.",
+         "It takes about a millisecond at most, whatever the counts, and never runs the exact test (ASSOC.REPORT "
+         "does), so it suits sheets that recalculate often."],
+        "=ASSOC.VINTERVAL(A1:D3)"),
+    Function(
         "ASSOC.EXACT", "exact",
         "The exact p-value of the test of independence, conditional on the row and column totals (Fisher's "
         "test for 2×2 tables, its Freeman–Halton extension for larger ones). Needs whole counts.",

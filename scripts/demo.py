@@ -24,7 +24,7 @@ COMMAND = "org.assocproject.calc:AnalyseSelection"
 # The lines of the analysis sheet the demo prints: the label in column A, how many values beside it.
 KEY_FIGURES = [("Pearson X²", 1), ("Degrees of freedom", 1), ("p-value", 1), ("Exact p-value", 1),
                ("Decision", 1), ("Cramér's V", 1), ("Cramér's V, 95% interval", 2), ("In words", 1),
-               ("Verdict (ASSOC.CHECK)", 1), ("Cells that stand out", 1)]
+               ("Verdict (ASSOC.CHECK)", 1), ("Cells that stand out", 1), ("Pairs that differ at 5%", 1)]
 
 
 def named_block(doc, name):

@@ -8,6 +8,7 @@
 #include "assoc/error.hpp"
 #include "assoc/exact_test.hpp"
 #include "assoc/format.hpp"
+#include "assoc/pairwise_comparisons.hpp"
 #include "assoc/residuals.hpp"
 #include "assoc/validity.hpp"
 #include "worksheet_limits.hpp"
@@ -40,6 +41,9 @@ struct Layout {
     std::vector<std::string> row_label;     // the address of each body row's label on this sheet
     std::vector<std::string> column_label;  // and of each body column's
     std::vector<std::string> row_total;     // the address of each body row's total
+    // Body rows and columns that the functions set aside as totals (labelled "Total" in the source):
+    // the sheet's own totals leave them out.
+    std::vector<bool> total_row, total_column;
 
     Layout(const Reading& r, const CommandOptions& o) : reading(r), options(o) {}
 
@@ -120,6 +124,27 @@ std::string corner_text(const Reading& reading) {
     return v.rows;
 }
 
+// "SUM($B$9:$C$9;$E$9)": the sum of a row (or column) of cells, leaving out the positions marked in
+// `skip` (total lines, the outcome of interest); "0" when none is left.
+std::string sum_over(const Area& line, const std::vector<bool>& skip) {
+    const bool across = line.rows == 1;
+    const std::size_t length = across ? line.columns : line.rows;
+    std::string parts;
+    for (std::size_t k = 0; k < length;) {
+        if (skip[k]) {
+            ++k;
+            continue;
+        }
+        std::size_t end = k;
+        while (end + 1 < length && !skip[end + 1]) ++end;
+        const Area run = across ? Area{line.row, line.column + k, 1, end - k + 1}
+                                : Area{line.row + k, line.column, end - k + 1, 1};
+        parts += (parts.empty() ? "" : ";") + absolute_area(run);
+        k = end + 1;
+    }
+    return parts.empty() ? "0" : "SUM(" + parts + ")";
+}
+
 // ---------------------------------------------------------------------------------------------
 // The blocks, top to bottom.
 
@@ -136,8 +161,9 @@ void title_block(Layout& s) {
                 "between the two classifications) would give, and the adjusted residuals that show where the two "
                 "differ: purple cells hold fewer counts than independence predicts, orange cells more, and a cell "
                 "beyond ±2 stands out. The test says whether differences this large could be chance, the strength "
-                "how large the association is, and the verdict whether the test can be trusted here. Read the "
-                "cautions at the end before acting on any result.",
+                "how large the association is, and the verdict whether the test can be trusted here. Then come the "
+                "figures a memo quotes: each row's rate of the outcome of interest with its interval and, where "
+                "they apply, the comparisons of rows. Read the cautions at the end before acting on any result.",
                 Look::text);
     s.gap();
     s.plan.text(s.row, 0, "Significance level (alpha)", Look::label);
@@ -204,16 +230,18 @@ void counts_block(Layout& s) {
     // Totals.
     const std::size_t total_column = 1 + s.body_columns, total_row = header + 1 + s.body_rows;
     s.plan.text(header, total_column, "Total", Look::header);
+    // Totals of the source (rows or columns labelled "Total") stay in the block, as the functions
+    // read it, but the sheet's own totals leave them out.
     std::vector<std::string> row_sums, column_sums;
     for (std::size_t r = 0; r < s.body_rows; ++r) {
         const std::size_t row = header + 1 + r;
-        row_sums.push_back("=SUM(" + absolute_area(Area{row, 1, 1, s.body_columns}) + ")");
+        row_sums.push_back("=" + sum_over(Area{row, 1, 1, s.body_columns}, s.total_column));
         s.row_total.push_back(absolute_cell(row, total_column));
     }
     s.plan.formulas(Area{header + 1, total_column, s.body_rows, 1}, std::move(row_sums), Look::count);
     s.plan.text(total_row, 0, "Total", Look::label);
     for (std::size_t c = 0; c <= s.body_columns; ++c)
-        column_sums.push_back("=SUM(" + absolute_area(Area{header + 1, 1 + c, s.body_rows, 1}) + ")");
+        column_sums.push_back("=" + sum_over(Area{header + 1, 1 + c, s.body_rows, 1}, s.total_row));
     s.plan.formulas(Area{total_row, 1, 1, s.body_columns + 1}, std::move(column_sums), Look::count);
     s.plan.name("total", absolute_cell(total_row, total_column));
     s.row = total_row + 1;
@@ -373,20 +401,20 @@ void strength_block(Layout& s) {
     s.heading("Strength of the association");
     figure_line(s, "Cramér's V", "=ASSOC.STRENGTH(" + t + ")", Look::strength,
                 "From 0 (no association) to 1 (each row's counts all in one column) (ASSOC.STRENGTH).", "v");
-    if (s.exact_live) {
+    {
+        // ASSOC.VINTERVAL's second and third values; it takes a millisecond at most (no exact test).
+        const std::string interval = "ASSOC.VINTERVAL(" + t + ";0.95)";
         s.plan.text(s.row, 0, "Cramér's V, 95% interval", Look::label);
-        s.plan.formula(s.row, 1, "=" + s.ref("report_v_lower"), Look::strength);
-        s.plan.formula(s.row, 2, "=" + s.ref("report_v_upper"), Look::strength);
+        s.plan.formula(s.row, 1, "=INDEX(" + interval + ";1;2)", Look::strength);
+        s.plan.formula(s.row, 2, "=INDEX(" + interval + ";1;3)", Look::strength);
+        s.plan.name("v_lower", absolute_cell(s.row, 1));
+        s.plan.name("v_upper", absolute_cell(s.row, 2));
+        const std::string note = "lower and upper limit for the V of the population (ASSOC.VINTERVAL); rough for small "
+                                 "tables.";
         const Area area{s.row, 3, 1, s.last_column - 2};
-        s.plan.text(s.row, 3, "lower and upper limit (from ASSOC.REPORT at the end); rough for small tables.",
-                    Look::note);
-        s.plan.merge(area, s.lines_for(80, area));
+        s.plan.text(s.row, 3, note, Look::note);
+        s.plan.merge(area, s.lines_for(note.size(), area));
         ++s.row;
-    } else {
-        missing_line(s, "Cramér's V, 95% interval",
-                     "Not on this sheet: only ASSOC.REPORT gives it, and for a table this size it also runs the exact "
-                     "test, which takes more than a moment (see the end of the sheet).",
-                     "v_interval");
     }
     figure_line(s, "Cohen's w", "=ASSOC.STRENGTH(" + t + ";\"w\")", Look::strength,
                 "V × √(min(rows, columns) − 1); Cohen's yardstick: 0.1 small, 0.3 medium, 0.5 large.", "w");
@@ -429,10 +457,78 @@ void conclusion_block(Layout& s) {
     s.gap();
 }
 
+// The rates of the outcome of interest in each row, with their Wilson intervals. ASSOC.RATES takes
+// column 1 of its range as the outcome: when the outcome is another column, the block first arranges
+// the counts (labels, the outcome, the rest) on the sheet and gives ASSOC.RATES that.
+void rates_block(Layout& s) {
+    const CountTable& table = s.reading.table;
+    const std::size_t outcome = table.kept_columns()[s.options.outcome_column];
+    const std::string outcome_label = s.column_label[outcome];
+    std::vector<bool> rest_skip = s.total_column;  // the columns that make up "the rest"
+    rest_skip[outcome] = true;
+    std::vector<std::size_t> rest;
+    for (std::size_t c = 0; c < s.body_columns; ++c)
+        if (!rest_skip[c]) rest.push_back(c);
+    const bool one_other = rest.size() == 1;
+    s.heading("Rates by row, with 95% intervals (ASSOC.RATES)");
+
+    std::string source = s.table;
+    if (outcome != 0) {
+        const std::size_t header = s.row;
+        // A text in the corner, so that the block is read with its header row whatever the labels hold.
+        s.plan.text(header, 0, s.reading.variables.rows.empty() ? "Rows" : s.reading.variables.rows, Look::header);
+        s.plan.formula(header, 1, "=" + outcome_label, Look::header);
+        if (one_other) s.plan.formula(header, 2, "=" + s.column_label[rest[0]], Look::header);
+        else s.plan.text(header, 2, "The other columns", Look::header);
+        ++s.row;
+        s.row_labels();
+        std::vector<std::string> counts;
+        for (std::size_t r = 0; r < s.body_rows; ++r) {
+            const std::size_t row = s.observed.row + r;
+            counts.push_back("=" + absolute_cell(row, s.observed.column + outcome));
+            counts.push_back("=" + sum_over(Area{row, s.observed.column, 1, s.body_columns}, rest_skip));
+        }
+        s.plan.formulas(Area{s.row, 1, s.body_rows, 2}, std::move(counts), Look::count);
+        source = absolute_area(Area{header, 0, s.body_rows + 1, 3});
+        s.row += s.body_rows;
+        s.wide_line(std::string("The counts arranged for ASSOC.RATES, which takes its first column as the outcome: the "
+                                "outcome of interest (chosen in the command's dialog), then ") +
+                        (one_other ? "the other column." : "the other columns added up."),
+                    Look::note);
+    }
+
+    s.plan.look(Area{s.row, 0}, Look::header);
+    s.plan.text(s.row, 1, "Row total", Look::header);
+    s.plan.formula(s.row, 2, "=\"Rate of \"&" + outcome_label, Look::header);
+    s.plan.text(s.row, 3, "Lower 95%", Look::header);
+    s.plan.text(s.row, 4, "Upper 95%", Look::header);
+    ++s.row;
+    s.row_labels();
+    // One look per column, none overlapping (the writer applies looks grouped by kind).
+    s.plan.array_formula(Area{s.row, 1, s.body_rows, 4}, "=ASSOC.RATES(" + source + ";0.95)", Look::label);
+    s.plan.look(Area{s.row, 1, s.body_rows, 1}, Look::count);
+    s.plan.look(Area{s.row, 2, s.body_rows, 3}, Look::percent);
+    s.row += s.body_rows;
+
+    std::string words = "=\"The rate of \"&" + outcome_label +
+                        "&\" in each row is its count over the row's total" +
+                        (one_other ? "" : ", the other columns together being the rest") +
+                        ", with the 95% Wilson interval: the rates that the counts are compatible with. The outcome of "
+                        "interest is chosen in the command's dialog" +
+                        (one_other ? "." : "; the row percentages below give every column's share.");
+    if (table.is_two_by_two()) words += " Intervals that overlap do not show that the rows do not differ: the rate "
+                                        "difference below compares them.";
+    else if (table.rows() >= 3) words += " Intervals that overlap do not show that two rows do not differ: the "
+                                         "comparisons of pairs below test that.";
+    words += "\"";
+    s.wide_line(words, Look::note, true, words.size());
+    s.gap();
+}
+
 void two_by_two_block(Layout& s) {
     const CountTable& table = s.reading.table;
     if (!table.is_two_by_two()) return;
-    s.heading("Odds ratio and risk ratio (2×2 table)");
+    s.heading("Odds ratio, risk ratio and rate difference (2×2 table)");
     const std::size_t group = table.kept_rows()[s.options.group_row], other = table.kept_rows()[1 - s.options.group_row];
     const std::size_t outcome = table.kept_columns()[s.options.outcome_column],
                       rest = table.kept_columns()[1 - s.options.outcome_column];
@@ -466,20 +562,121 @@ void two_by_two_block(Layout& s) {
     s.plan.text(s.row, 0, "Risk ratio (ASSOC.RISKRATIO)", Look::label);
     s.plan.array_formula(Area{s.row, 1, 1, 3}, "=ASSOC.RISKRATIO(" + absolute_area(arranged) + ";0.95)", Look::decimal);
     ++s.row;
+    const std::size_t difference_row = s.row;
+    s.plan.text(s.row, 0, "Rate difference (ASSOC.RATEDIFF)", Look::label);
+    s.plan.array_formula(Area{s.row, 1, 1, 3}, "=ASSOC.RATEDIFF(" + absolute_area(arranged) + ";0.95)", Look::percent);
+    ++s.row;
 
     const std::string a = absolute_cell(header + 1, 1), b = absolute_cell(header + 1, 2), c = absolute_cell(header + 2, 1),
                       d = absolute_cell(header + 2, 2);
     const std::string outcome_name = absolute_cell(header, 1), group_name = absolute_cell(header + 1, 0),
                       other_name = absolute_cell(header + 2, 0);
     auto two = [](const std::string& cell) { return "TEXT(" + cell + ";\"0.00\")"; };
+    auto points = [](const std::string& cell) { return "TEXT(" + cell + "*100;\"0.0\")"; };
     const std::string words =
         "=\"The odds of \"&" + outcome_name + "&\" in \"&" + group_name + "&\" are \"&" + two(absolute_cell(odds_row, 1)) +
         "&\" times those in \"&" + other_name + "&\" (95% interval \"&" + two(absolute_cell(odds_row, 2)) + "&\" to \"&" +
         two(absolute_cell(odds_row, 3)) + "&\"). The share with \"&" + outcome_name + "&\" is \"&TEXT(" + a + "/(" + a +
         "+" + b + ");\"0.0%\")&\" in \"&" + group_name + "&\" against \"&TEXT(" + c + "/(" + c + "+" + d +
-        ");\"0.0%\")&\" in \"&" + other_name + "&\": \"&" + two(absolute_cell(risk_row, 1)) +
-        "&\" times as high. An interval that includes 1 is compatible with no difference.\"";
-    s.sentence_line("In words", words, true, 260);
+        ");\"0.0%\")&\" in \"&" + other_name + "&\": \"&" + two(absolute_cell(risk_row, 1)) + "&\" times as high (\"&" +
+        two(absolute_cell(risk_row, 2)) + "&\" to \"&" + two(absolute_cell(risk_row, 3)) + "&\"), a difference of \"&" +
+        points(absolute_cell(difference_row, 1)) + "&\" percentage points (\"&" + points(absolute_cell(difference_row, 2)) +
+        "&\" to \"&" + points(absolute_cell(difference_row, 3)) +
+        "&\"). An interval that includes 1 (for a ratio) or 0 (for the difference) is compatible with no difference.\"";
+    s.sentence_line("In words", words, true, 380);
+    s.gap();
+}
+
+// The range ASSOC.PAIRWISE gets, so that it names the pairs by their labels: the source table, or for
+// records the counts with the row labels beside them (ASSOC.LEVELS), when ASSOC.PAIRWISE reads those
+// as labels (texts, none of them read as a total), otherwise the counts alone (pairs named "row k").
+std::string pairwise_range(const Layout& s) {
+    if (!s.reading.is_records()) return s.table;
+    const std::vector<Cell>& levels = s.reading.record_source->row_levels;
+    const Matrix counts = s.reading.table.to_body_shape(s.reading.table.counts());
+    CellGrid labelled(s.body_rows, 1 + s.body_columns);
+    for (std::size_t r = 0; r < s.body_rows && r < levels.size(); ++r) {
+        labelled.at(r, 0) = levels[r];
+        for (std::size_t c = 0; c < s.body_columns; ++c) labelled.at(r, 1 + c) = Cell::number(counts(r, c));
+    }
+    try {
+        const CountTable read = read_count_table(labelled);
+        const bool totals = std::any_of(read.set_aside_rows().begin(), read.set_aside_rows().end(),
+                                        [](const SetAside& line) { return line.why == SetAside::Why::total; });
+        if (read.has_row_labels() && !totals) return absolute_area(Area{s.observed.row, 0, s.body_rows, 1 + s.body_columns});
+    } catch (const Error&) {
+    }
+    return s.table;
+}
+
+// Every pair of rows compared (3 rows with counts or more; with 2, the test above is the comparison).
+void pairwise_block(Layout& s) {
+    const std::size_t groups = s.reading.table.rows();
+    if (groups < 3) return;
+    const std::size_t pairs = groups * (groups - 1) / 2;
+    s.heading("Which rows differ from which: every pair compared (ASSOC.PAIRWISE)");
+    if (groups > max_pairwise_sheet_rows) {
+        s.wide_line("Not on this sheet: the " + std::to_string(groups) + " rows with counts make " +
+                        std::to_string(pairs) + " pairs, too many to read here. To see them, enter =ASSOC.PAIRWISE(" +
+                        s.table_shown + ") as an array formula over 4 columns and " + std::to_string(pairs) +
+                        " rows in a sheet of its own, or compare the rows that matter to you in a table of their own.",
+                    Look::note);
+        s.gap();
+        return;
+    }
+    s.wide_line("Each pair of rows is tested on its own table of the two rows (Pearson's X²), and its p-value is "
+                "adjusted for the " + std::to_string(pairs) + " comparisons (Holm's method). Rows without counts take "
+                "no part.",
+                Look::note);
+    s.plan.text(s.row, 0, s.reading.variables.rows.empty() ? "Row" : s.reading.variables.rows, Look::header);
+    s.plan.text(s.row, 1, "Compared with", Look::header);
+    s.plan.text(s.row, 2, "p-value", Look::header);
+    s.plan.text(s.row, 3, "Adjusted p-value", Look::header);
+    ++s.row;
+    const std::size_t first = s.row;
+    const std::string range = pairwise_range(s);
+    s.plan.array_formula(Area{first, 0, pairs, 4}, "=ASSOC.PAIRWISE(" + range + ")", Look::label);
+    s.plan.look(Area{first, 1, pairs, 1}, Look::text);  // the second label wraps in its narrow column
+    s.plan.look(Area{first, 2, pairs, 2}, Look::p_value);
+    s.row += pairs;
+
+    // The pairs whose adjusted p-value is below alpha, the smallest first when there are more than 6.
+    const std::string alpha = s.ref("alpha");
+    const std::string adjusted = absolute_area(Area{first, 3, pairs, 1});
+    const std::string names = absolute_area(Area{first, 0, pairs, 1}) + "&\" and \"&" + absolute_area(Area{first, 1, pairs, 1});
+    const std::string below = "SUMPRODUCT(" + adjusted + "<" + alpha + ")";
+    const std::string threshold = "IF(" + below + ">6;SMALL(" + adjusted + ";6);1)";
+    const std::string chosen = "(" + adjusted + "<" + alpha + ")*(" + adjusted + "<=" + threshold + ")";
+    const std::string listed = "TEXTJOIN(\"; \";1;IF(" + chosen + ";" + names + "&\" (adjusted p = \"&" +
+                               p_text(adjusted) + "&\")\";\"\"))";
+    const std::string more = "IF(" + below + ">SUMPRODUCT(" + chosen + ");\"; and \"&(" + below + "-SUMPRODUCT(" +
+                             chosen + "))&\" more pairs (see the table)\";\"\")";
+    const std::string formula = "=IF(" + below + "=0;\"None: no pair of rows differs at the \"&" + percent_of(alpha) +
+                                "&\" level once the p-values are adjusted.\";" + listed + "&" + more + "&\".\")";
+    // Estimates of the sentences' lengths, for the row heights, from the pairs as they are now.
+    std::size_t length = 10, listed_now = 0, verdict = check_validity(s.reading.table).summary().size() + 45;
+    try {
+        const PairwiseComparisons now = pairwise_comparisons(s.reading.table);
+        for (const PairComparison& pair : now.pairs)
+            if (pair.adjusted_p_value < s.options.alpha && listed_now++ < 6)
+                length += pair.first_name.size() + pair.second_name.size() + 30;
+        if (listed_now == 0) length = 80;  // "None: …"
+        for (const std::string& remark : now.remarks) verdict += remark.size() + 1;
+    } catch (const Error&) {
+        // The cells will say what is wrong; the estimates stay short.
+    }
+    s.plan.formula(s.row, 0, "=\"Pairs that differ at \"&" + percent_of(alpha), Look::label);
+    const Area sentence{s.row, 1, 1, s.last_column};
+    s.plan.array_formula(Area{s.row, 1}, formula, Look::text);
+    s.plan.merge(sentence, s.lines_for(length, sentence));
+    ++s.row;
+    // The verdict on the table, and which pairs have expected counts too small for their p-values.
+    s.sentence_line("Verdict on the pairs", "=ASSOC.CHECK(" + range + ";\"pairwise\")", true, verdict);
+    s.wide_line("Read the adjusted p-value: every comparison is another chance of a false alarm, so with " +
+                    std::to_string(pairs) + " comparisons some unadjusted p-values come out small by chance alone, "
+                    "and the adjustment allows for that. A difference between two groups is not proof of "
+                    "discrimination, nor does it show what causes it.",
+                Look::caution);
     s.gap();
 }
 
@@ -492,7 +689,9 @@ void row_percent_block(Layout& s) {
     for (std::size_t r = 0; r < s.body_rows; ++r)
         for (std::size_t c = 0; c < s.body_columns; ++c) {
             const std::string observed = absolute_cell(s.observed.row + r, s.observed.column + c);
-            shares.push_back("=IF(" + s.row_total[r] + "=0;\"\";" + observed + "/" + s.row_total[r] + ")");
+            // A total column of the source has no share of its own.
+            shares.push_back(s.total_column[c] ? ""
+                                               : "=IF(" + s.row_total[r] + "=0;\"\";" + observed + "/" + s.row_total[r] + ")");
         }
     s.plan.formulas(s.body_here(), std::move(shares), Look::percent);
     s.row += s.body_rows;
@@ -528,15 +727,13 @@ void report_block(Layout& s) {
                     Look::note);
         return;
     }
-    s.wide_line("The exact p-value and the interval of Cramér's V above come from this block. It is folded away: "
-                "click + in the margin at the left to unfold it.",
+    s.wide_line("The exact p-value above comes from this block. It is folded away: click + in the margin at the left "
+                "to unfold it.",
                 Look::note);
     const Area block{s.row, 0, report_lines, 2};
     s.plan.collapse_rows(s.row, report_lines);
     s.plan.array_formula(block, "=ASSOC.REPORT(" + s.table + ";" + s.ref("alpha") + ")", Look::label);
     s.plan.name("report_exact", absolute_cell(s.row + report_line_exact - 1, 1));
-    s.plan.name("report_v_lower", absolute_cell(s.row + report_line_v_lower - 1, 1));
-    s.plan.name("report_v_upper", absolute_cell(s.row + report_line_v_upper - 1, 1));
     s.row += report_lines;
 }
 
@@ -544,16 +741,16 @@ void report_block(Layout& s) {
 
 // The sheet, top to bottom. A new block goes here (it may refer to the cells others name).
 const std::vector<std::function<void(Layout&)>> blocks{
-    title_block,      counts_block,    expected_block,    residuals_block,   test_block,     strength_block,
-    validity_block,   conclusion_block, two_by_two_block, row_percent_block, cautions_block, report_block,
+    title_block,    counts_block,     expected_block, residuals_block,  test_block,        strength_block,
+    validity_block, conclusion_block, rates_block,    two_by_two_block, pairwise_block,    row_percent_block,
+    cautions_block, report_block,
 };
 
 void check_options(const CommandOptions& options) {
     require(std::isfinite(options.alpha) && options.alpha > 0 && options.alpha < 1,
             "The significance level (alpha) must be between 0 and 1, for example 0.05; it is " +
                 format_number(options.alpha, 6) + ".");
-    require(options.outcome_column <= 1 && options.group_row <= 1,
-            "The outcome of interest and the group compared must each be the first or the second of the two.");
+    require(options.group_row <= 1, "The group compared must be the first or the second of the two rows.");
 }
 
 bool exact_test_is_quick(const CountTable& table) {
@@ -573,6 +770,17 @@ SheetPlan plan_analysis_sheet(const Reading& reading, const CommandOptions& opti
     layout.body_rows = reading.table.body_rows();
     layout.body_columns = reading.table.body_columns();
     layout.last_column = std::max(layout.body_columns + 1, min_text_columns);
+    const std::size_t outcomes = reading.table.columns();
+    require(options.outcome_column < outcomes,
+            "The outcome of interest must be one of the " + std::to_string(outcomes) +
+                " columns with counts (OutcomeColumn from 1 to " + std::to_string(outcomes) + "); it is column " +
+                std::to_string(options.outcome_column + 1) + ".");
+    layout.total_row.assign(layout.body_rows, false);
+    layout.total_column.assign(layout.body_columns, false);
+    for (const SetAside& line : reading.table.set_aside_rows())
+        if (line.why == SetAside::Why::total) layout.total_row[line.index] = true;
+    for (const SetAside& line : reading.table.set_aside_columns())
+        if (line.why == SetAside::Why::total) layout.total_column[line.index] = true;
     for (const auto& block : blocks) block(layout);
     layout.plan.column_width(0, label_width);
     for (std::size_t c = 1; c <= layout.last_column; ++c) layout.plan.column_width(c, column_width);

@@ -10,9 +10,11 @@
 #include "assoc/cochrans_q.hpp"
 #include "assoc/count_table.hpp"
 #include "assoc/counts_from_records.hpp"
+#include "assoc/cramers_v_interval.hpp"
 #include "assoc/effect_size.hpp"
 #include "assoc/error.hpp"
 #include "assoc/exact_test.hpp"
+#include "assoc/format.hpp"
 #include "assoc/expected_counts.hpp"
 #include "assoc/generalized_mantel_haenszel.hpp"
 #include "assoc/goodness_of_fit.hpp"
@@ -97,6 +99,16 @@ double strength(const CellGrid& range, Measure measure) {
     case Measure::tau_b: return kendall_tau_b(table);
     }
     throw Error("unknown measure");
+}
+
+std::vector<double> vinterval(const CellGrid& range, double confidence) {
+    const CramersVInterval v = cramers_v_interval(read_count_table(range), confidence);
+    if (v.upper == 0)
+        remark("The interval is 0 to 0 because X² is smaller than independence itself gives in " +
+               format_number(100 * (1 - (1 - confidence) / 2)) +
+               "% of samples: the counts are closer to independence than chance usually leaves them (check that "
+               "they were not balanced on purpose); it does not mean that V is exactly 0.");
+    return {v.estimate, v.lower, v.upper};
 }
 
 double exact(const CellGrid& range, Side side) {

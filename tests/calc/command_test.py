@@ -3,8 +3,9 @@
 (org.assocproject.calc:AnalyseSelection with NoDialog) on a selected table, on two selected record
 columns and on bad selections, and the sheet it writes is checked: its formulas, its values against
 scipy 1.10.1 / statsmodels 0.13.5 / R 4.2.2 (command_values.json, written by make_command_values.py),
-the heat map, the chart, that editing a source count changes the results, and that failures leave
-the document as it was. All tables are invented.
+the heat map, the chart, the rates by row, the rate difference and the comparisons of pairs of rows,
+that editing a source count changes the results, and that failures leave the document as it was. All
+tables are invented.
 
     /usr/bin/python3 tests/calc/command_test.py --oxt build/extension/assoc.oxt [unittest options]
 """
@@ -128,6 +129,37 @@ class CommandCase(calc_support.CalcTestCase):
         block = sheet.getCellRangeByPosition(1, start, columns, start + rows - 1)
         return block, [list(row) for row in block.getDataArray()]
 
+    def row_of_text_in_b(self, sheet, text):
+        column = sheet.getCellRangeByPosition(1, 0, 1, self.used(sheet).EndRow).getDataArray()
+        row = next((row for row, (cell,) in enumerate(column) if cell == text), None)
+        self.assertIsNotNone(row, f"no {text!r} in column B of {sheet.Name}")
+        return row
+
+    def block_under(self, sheet, header, rows, columns, first_column=1):
+        """The values of the block under the header row whose column B holds `header` (labels skipped)."""
+        start = self.row_of_text_in_b(sheet, header) + 1
+        block = sheet.getCellRangeByPosition(first_column, start, first_column + columns - 1, start + rows - 1)
+        for cell in (block.getCellByPosition(c, r) for r in range(rows) for c in range(columns)):
+            self.assertEqual(cell.getError(), 0, f"a cell under {header!r} shows error {cell.getError()}")
+        return [list(row) for row in block.getDataArray()]
+
+    def check_rates(self, sheet, expected):
+        """The rates block (n, rate, lower, upper per row) against the reference; None: an empty line."""
+        got = self.block_under(sheet, "Row total", len(expected), 4)
+        start = self.row_of_text_in_b(sheet, "Row total") + 1
+        for r, (row, want) in enumerate(zip(got, expected)):
+            if want is None:
+                shown = [sheet.getCellByPosition(c, start + r).getString() for c in range(1, 5)]
+                self.assertEqual(shown, ["", "", "", ""], f"row {r + 1} has no rate")
+            else:
+                self.assertAllClose([row], [want], 1e-10, f"rates of row {r + 1}")
+
+    def check_pairs(self, sheet, expected):
+        """The pairs block (labels, p-value, adjusted p-value) against the reference."""
+        got = self.block_under(sheet, "Compared with", len(expected), 4, first_column=0)
+        self.assertEqual([row[:2] for row in got], [row[:2] for row in expected])
+        self.assertAllClose([row[2:] for row in got], [row[2:] for row in expected], 1e-10, "pairs")
+
     def heading(self, sheet, words):
         end = self.used(sheet)
         for row, (text,) in enumerate(sheet.getCellRangeByPosition(0, 0, 0, end.EndRow).getDataArray()):
@@ -144,11 +176,10 @@ class CommandCase(calc_support.CalcTestCase):
         self.assertClose(self.figure(sheet, "Critical X² at 5%"), reference["critical"], 1e-10, "critical")
         self.assertClose(self.figure(sheet, "Cramér's V"), reference["strength"]["cramer"], RECALCULATED, "V")
         self.assertClose(self.figure(sheet, "Cohen's w"), reference["strength"]["w"], RECALCULATED, "w")
+        self.assertClose(self.figure(sheet, "Cramér's V, 95% interval"), reference["v_interval"][0], 1e-8, "V low")
+        self.assertClose(self.figure(sheet, "Cramér's V, 95% interval", 2), reference["v_interval"][1], 1e-8, "V high")
         if exact:
             self.assertClose(self.figure(sheet, "Exact p-value"), reference["exact"], 1e-9, "exact p")
-            self.assertClose(self.figure(sheet, "Cramér's V, 95% interval"), reference["v_interval"][0], 1e-8, "V low")
-            self.assertClose(self.figure(sheet, "Cramér's V, 95% interval", 2), reference["v_interval"][1], 1e-8,
-                             "V high")
 
 
 class TableCommand(CommandCase):
@@ -285,6 +316,75 @@ class TwoByTwoCommand(CommandCase):
                             for w in words))
 
 
+class MemoFigures(CommandCase):
+    """The rates by row, the rate difference (2×2) and the comparisons of pairs of rows (3 rows or more)."""
+
+    def test_the_rates_and_the_pairs_of_a_three_row_table_agree_with_statsmodels_and_scipy(self):
+        # Reference: command_values.json "branches" (statsmodels Wilson intervals; scipy per pair, Holm by statsmodels).
+        sheet = self.analyse(self.put(BRANCHES, column=1, row=1))
+        self.check_rates(sheet, REFERENCE["branches"]["rates"])
+        self.assertEqual(sheet.getCellByPosition(2, self.row_of(sheet, self.heading(sheet, "Rates by row")) + 1)
+                         .getString(), "Rate of Cleared")
+        self.check_pairs(sheet, REFERENCE["branches"]["pairwise"])
+        # All three adjusted p-values are 0.088.
+        self.assertEqual(self.cell_right_of(sheet, "Pairs that differ at 5%").getString(),
+                         "None: no pair of rows differs at the 5% level once the p-values are adjusted.")
+        self.cell_right_of(sheet, "Significance level (alpha)").setValue(0.1)
+        session.document.calculateAll()
+        self.assertEqual(self.cell_right_of(sheet, "Pairs that differ at 10%").getString(),
+                         "Northgate and Riverside (adjusted p = 0.0883); Northgate and Hillcrest (adjusted p = 0.0883); "
+                         "Riverside and Hillcrest (adjusted p = 0.0883).")
+
+    def test_the_rates_of_another_outcome_count_the_other_columns_as_the_rest(self):
+        sheet = self.analyse(self.put(BRANCHES, column=1, row=1), OutcomeColumn=3)
+        self.check_rates(sheet, REFERENCE["branches"]["rates_third"])
+
+    def test_an_outcome_beyond_the_columns_is_refused(self):
+        self.put(BRANCHES)
+        self.refused("The outcome of interest must be one of the 3 columns with counts (OutcomeColumn from 1 to 3); "
+                     "it is column 4.", "A1:D4", OutcomeColumn=4)
+
+    def test_a_2x2_table_gets_the_rate_difference_with_newcombes_interval(self):
+        # Reference: command_values.json "teams" (statsmodels confint_proportions_2indep, method "newcomb").
+        sheet = self.analyse(self.put(TEAMS))
+        self.check_rates(sheet, REFERENCE["teams"]["rates"])
+        self.assertAllClose([[self.figure(sheet, "Rate difference (ASSOC.RATEDIFF)", c) for c in (1, 2, 3)]],
+                            [REFERENCE["teams"]["rate_difference"]["first_first"]], 1e-10, "rate difference")
+        words = [sheet.getCellByPosition(1, row).getString() for row in range(self.used(sheet).EndRow + 1)]
+        # The figures as command_values.json rounds them (statsmodels Table2x2 and confint_proportions_2indep).
+        self.assertIn("The odds of Promoted in Team A are 4.57 times those in Team B (95% interval 1.38 to 15.11). "
+                      "The share with Promoted is 72.0% in Team A against 36.0% in Team B: 2.00 times as high (1.12 to "
+                      "3.56), a difference of 36.0 percentage points (8.4 to 56.9). An interval that includes 1 (for "
+                      "a ratio) or 0 (for the difference) is compatible with no difference.", words)
+        column = sheet.getCellRangeByPosition(0, 0, 0, self.used(sheet).EndRow).getDataArray()
+        self.assertFalse(any("differ from which" in text for (text,) in column), "no pairs for 2 rows")
+
+    def test_the_rate_difference_follows_the_chosen_outcome_and_group(self):
+        sheet = self.analyse(self.put(TEAMS), OutcomeColumn=2, GroupRow=2)
+        self.check_rates(sheet, REFERENCE["teams"]["rates_second"])
+        self.assertAllClose([[self.figure(sheet, "Rate difference (ASSOC.RATEDIFF)", c) for c in (1, 2, 3)]],
+                            [REFERENCE["teams"]["rate_difference"]["second_second"]], 1e-10, "rate difference")
+
+    def test_a_large_table_gets_the_interval_of_v_and_every_pair(self):
+        # Reference: command_values.json "large" (scipy ncx2 inversion; scipy per pair, Holm by statsmodels).
+        sheet = self.analyse(self.put(REFERENCE["large"]["counts"]))
+        self.assertClose(self.figure(sheet, "Cramér's V, 95% interval"), REFERENCE["large"]["v_interval"][0], 1e-8)
+        self.check_pairs(sheet, REFERENCE["large"]["pairwise"])
+        self.check_rates(sheet, REFERENCE["large"]["rates"])
+
+    def test_the_totals_of_the_source_stay_out_of_the_sheets_totals_shares_and_rates(self):
+        teams = [row + [total] for row, total in zip(TEAMS, ["Total", 25, 25])] + [["Total", 27, 23, 50]]
+        sheet = self.analyse(self.put(teams))
+        _, counts = self.block_below(sheet, self.heading(sheet, "Observed counts"), 4, 4)
+        self.assertEqual(counts, [[18, 7, 25, 25], [9, 16, 25, 25], [27, 23, 50, 50], [27, 23, 50, 50]])
+        _, shares = self.block_below(sheet, self.heading(sheet, "Row percentages"), 3, 3)
+        self.assertAllClose([row[:2] for row in shares], [[0.72, 0.28], [0.36, 0.64], [0.54, 0.46]], RECALCULATED,
+                            "row percentages")
+        self.assertEqual([row[2] for row in shares], ["", "", ""])
+        # The source's Total row keeps an empty line among the rates (statsmodels for the others).
+        self.check_rates(sheet, REFERENCE["teams_with_totals"]["rates"])
+
+
 class RecordsCommand(CommandCase):
     def write_records(self, column=0):
         pairs = records_of(REFERENCE["records"]["counts"])
@@ -308,6 +408,7 @@ class RecordsCommand(CommandCase):
         sheet = self.analyse(f"A1:B{rows}")
         self.assertEqual(sheet.Name, "Region × Exception")
         self.check_counted(sheet)
+        self.check_pairs(sheet, REFERENCE["records"]["pairwise"])
         counts = sheet.getCellByPosition(1, self.row_of(sheet, "Midlands"))
         self.assertEqual(formula_of(counts),
                          f"{{=ASSOC.COUNTS(${self.sheet.Name}.$A$2:$A${rows};${self.sheet.Name}.$B$2:$B${rows})}}")

@@ -263,6 +263,12 @@ class VisibleSession:
         time.sleep(2)
         self.shot("command-sheet.png", (0, 0, SCREEN[0], SCREEN[1]))
         print(f"made the sheet {SHEET}: Pearson X² = {pearson.getString()}", flush=True)
+        # Further down: the rates by row and the pairs of rows.
+        labels = [row[0] for row in sheet.getCellRangeByName("A1:A200").getDataArray()]
+        rates = next(row for row, text in enumerate(labels) if isinstance(text, str) and "Rates by row" in text)
+        doc.getCurrentController().setFirstVisibleRow(rates - 1)
+        time.sleep(1)
+        self.shot("command-memo.png", (0, 0, SCREEN[0], SCREEN[1]))
 
         # One undo step takes the whole sheet away, in a visible window.
         self.key("Z", "z", uno.getConstantByName("com.sun.star.awt.KeyModifier.MOD1"))

@@ -9,6 +9,7 @@
 
 using namespace assoc;
 using assoc::test::expect_error;
+using assoc::test::grid;
 using assoc::test::table;
 namespace ref = assoc::reference;
 
@@ -29,6 +30,22 @@ TEST(CramersVInterval, MatchesTheInvertedNoncentralChiSquaredForThePartyTable) {
     EXPECT_NEAR_REL(v.lower, ref::party_v_lower, 1e-9);
     EXPECT_NEAR_REL(v.upper, ref::party_v_upper, 1e-9);
     EXPECT_NEAR_REL(v.estimate, 0.10443580236, 1e-10);  // published_values.md section 3
+}
+
+TEST(CramersVInterval, IsTheSameForARangeWithLabelsAndATotalRowAsTheWorksheetReadsIt) {
+    // What ASSOC.VINTERVAL computes: the range read as the worksheet functions read it (headers, a
+    // labelled total row set aside), then the interval; the reference values are the bare table's.
+    const CountTable labelled = read_count_table(grid({{"Job level / Course", "Safety", "Software", "Leadership"},
+                                                       {"Operator", 25, 12, 8},
+                                                       {"Specialist", 10, 20, 9},
+                                                       {"Manager", 6, 11, 24},
+                                                       {"Total", 41, 43, 41}}));
+    const CramersVInterval v = cramers_v_interval(labelled);
+    EXPECT_NEAR_REL(v.lower, ref::training_v_lower, 1e-9);
+    EXPECT_NEAR_REL(v.upper, ref::training_v_upper, 1e-9);
+    const CramersVInterval v90 = cramers_v_interval(labelled, 0.90);
+    EXPECT_NEAR_REL(v90.lower, ref::training_v_lower_90, 1e-9);
+    EXPECT_NEAR_REL(v90.upper, ref::training_v_upper_90, 1e-9);
 }
 
 TEST(CramersVInterval, NarrowsForALowerConfidence) {

@@ -23,6 +23,7 @@
 #include <cppuhelper/implbase5.hxx>
 #include <cppuhelper/supportsservice.hxx>
 #include <cppuhelper/weakref.hxx>
+#include <cmath>
 #include <mutex>
 #include <optional>
 #include <vector>
@@ -49,8 +50,8 @@ struct Arguments {
     std::optional<double> alpha;
     std::optional<ReadAs> read_as;
     std::optional<Placement> placement;
-    std::optional<std::size_t> outcome_column;  // 1 or 2 in the argument
-    std::optional<std::size_t> group_row;
+    std::optional<std::size_t> outcome_column;  // from 1 in the argument (plan_analysis_sheet checks the end)
+    std::optional<std::size_t> group_row;       // 1 or 2 in the argument
     std::string fail_after;  // FailAfter: for the tests of the rollback only (see SheetPlacement)
 };
 
@@ -66,6 +67,13 @@ double number_argument(const css::beans::PropertyValue& argument) {
     if (!(argument.Value >>= value))
         throw Error("The dispatch argument " + to_utf8(argument.Name) + " must be a number.");
     return value;
+}
+
+std::size_t column_number(const css::beans::PropertyValue& argument) {
+    const double value = number_argument(argument);
+    if (!(value >= 1 && value <= 1e6 && value == std::floor(value)))
+        throw Error("The dispatch argument " + to_utf8(argument.Name) + " must be a whole number from 1.");
+    return static_cast<std::size_t>(value) - 1;
 }
 
 std::size_t first_or_second(const css::beans::PropertyValue& argument) {
@@ -94,7 +102,7 @@ Arguments read_arguments(const Sequence<css::beans::PropertyValue>& arguments) {
             else if (word == "before") out.placement = Placement::before_source;
             else throw Error("The dispatch argument Placement must be \"after\", \"end\" or \"before\", not \"" + word + "\".");
         } else if (name == "OutcomeColumn") {
-            out.outcome_column = first_or_second(argument);
+            out.outcome_column = column_number(argument);
         } else if (name == "GroupRow") {
             out.group_row = first_or_second(argument);
         } else if (name == "FailAfter") {
@@ -124,10 +132,9 @@ DialogFacts facts_of(const std::optional<Reading>& reading, const std::string& p
     facts.selection = description + ".";
     const CountTable& table = reading->table;
     facts.two_by_two = table.is_two_by_two();
-    if (facts.two_by_two) {
+    for (std::size_t c : table.kept_columns()) facts.columns.push_back(reading->column_names[c]);
+    if (facts.two_by_two)
         for (std::size_t r : table.kept_rows()) facts.rows.push_back(reading->row_names[r]);
-        for (std::size_t c : table.kept_columns()) facts.columns.push_back(reading->column_names[c]);
-    }
     return facts;
 }
 
@@ -358,13 +365,15 @@ private:
             if (!reading || options.read_as != read_before) {
                 reading = read_selection(content, calc::office_collation(), options.read_as);
                 facts = facts_of(reading, "");
+                // The dialog offered the columns and rows of the other reading.
+                options.outcome_column = options.group_row = 0;
             }
             if (answer->remember) remember_options(model, options, facts);
         } else if (!reading) {
             throw Error(problem);
         }
         check_options(options);
-        if (!reading->table.is_two_by_two()) options.outcome_column = options.group_row = 0;
+        if (!reading->table.is_two_by_two()) options.group_row = 0;
 
         stopwatch.lap("dialog");
         const bool exact_live = exact_test_is_quick(reading->table);

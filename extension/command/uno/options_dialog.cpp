@@ -146,13 +146,12 @@ std::optional<DialogAnswer> ask_options(const Reference<css::uno::XComponentCont
     control<css::awt::XNumericField>(controls, "Alpha")->setValue(initial.alpha);
     const auto outcome = control<css::awt::XListBox>(controls, "Outcome");
     const auto group = control<css::awt::XListBox>(controls, "Group");
-    if (facts.two_by_two) {
-        fill(outcome, facts.columns, initial.outcome_column);
-        fill(group, facts.rows, initial.group_row);
-    } else {
-        for (const char* name : {"Outcome", "Group", "OutcomeLabel", "GroupLabel"})
-            control<css::awt::XWindow>(controls, name)->setEnable(false);
-    }
+    if (!facts.columns.empty()) fill(outcome, facts.columns, initial.outcome_column);
+    else
+        for (const char* name : {"Outcome", "OutcomeLabel"}) control<css::awt::XWindow>(controls, name)->setEnable(false);
+    if (facts.two_by_two) fill(group, facts.rows, initial.group_row);
+    else
+        for (const char* name : {"Group", "GroupLabel"}) control<css::awt::XWindow>(controls, name)->setEnable(false);
     const auto placement = control<css::awt::XListBox>(controls, "Placement");
     placement->selectItemPos(static_cast<sal_Int16>(initial.placement), true);
     const auto remember = control<css::awt::XCheckBox>(controls, "Remember");
@@ -164,10 +163,8 @@ std::optional<DialogAnswer> ask_options(const Reference<css::uno::XComponentCont
     answer.options.read_as = static_cast<ReadAs>(std::min<std::size_t>(selected(read_as), 2));
     answer.options.alpha = control<css::awt::XNumericField>(controls, "Alpha")->getValue();
     answer.options.placement = static_cast<Placement>(std::min<std::size_t>(selected(placement), 2));
-    if (facts.two_by_two) {
-        answer.options.outcome_column = std::min<std::size_t>(selected(outcome), 1);
-        answer.options.group_row = std::min<std::size_t>(selected(group), 1);
-    }
+    if (!facts.columns.empty()) answer.options.outcome_column = std::min(selected(outcome), facts.columns.size() - 1);
+    if (facts.two_by_two) answer.options.group_row = std::min<std::size_t>(selected(group), 1);
     answer.remember = remember->getState() == 1;
     return answer;
 }
@@ -179,10 +176,8 @@ CommandOptions remembered_options(const Reference<css::frame::XModel>& model, co
     double alpha = 0;
     if ((property(stored, alpha_property) >>= alpha) && alpha > 0 && alpha < 1) options.alpha = alpha;
     options.placement = static_cast<Placement>(position_of(placement_words, text_property(stored, placement_property)));
-    if (facts.two_by_two) {
-        options.outcome_column = position_of(facts.columns, text_property(stored, outcome_property));
-        options.group_row = position_of(facts.rows, text_property(stored, group_property));
-    }
+    options.outcome_column = position_of(facts.columns, text_property(stored, outcome_property));
+    if (facts.two_by_two) options.group_row = position_of(facts.rows, text_property(stored, group_property));
     return options;
 }
 
@@ -193,10 +188,10 @@ void remember_options(const Reference<css::frame::XModel>& model, const CommandO
     set_property(stored, alpha_property, Any(options.alpha));
     set_property(stored, placement_property,
                  Any(OUString::createFromAscii(placement_words[static_cast<std::size_t>(options.placement)])));
-    if (facts.two_by_two && facts.columns.size() == 2 && facts.rows.size() == 2) {
+    if (options.outcome_column < facts.columns.size())
         set_property(stored, outcome_property, Any(to_ou_string(facts.columns[options.outcome_column])));
+    if (facts.two_by_two && options.group_row < facts.rows.size())
         set_property(stored, group_property, Any(to_ou_string(facts.rows[options.group_row])));
-    }
 }
 
 }  // namespace assoc::command

@@ -20,8 +20,8 @@ using ::rtl::OUString;
 struct DialogFacts {
     std::string selection;  // what the selection was read as, or why it could not be read
     bool two_by_two = false;
-    std::vector<std::string> rows;     // the two rows with counts (2×2 tables)
-    std::vector<std::string> columns;  // the two columns with counts
+    std::vector<std::string> rows;     // the two rows with counts (2×2 tables only)
+    std::vector<std::string> columns;  // the columns with counts: the choices of the outcome of interest
 };
 
 struct DialogAnswer {
@@ -35,8 +35,9 @@ std::optional<DialogAnswer> ask_options(const css::uno::Reference<css::uno::XCom
                                         const css::uno::Reference<css::frame::XFrame>& frame, const DialogFacts& facts,
                                         const CommandOptions& initial);
 
-// The choices remembered in the document (defaults where none are). The 2×2 choices are kept by
-// their labels and given back as positions only when `facts` has those labels.
+// The choices remembered in the document (defaults where none are). The outcome of interest and the
+// group compared are kept by their labels and given back as positions only when `facts` has those
+// labels (the group for 2×2 tables only).
 CommandOptions remembered_options(const css::uno::Reference<css::frame::XModel>& model, const DialogFacts& facts);
 void remember_options(const css::uno::Reference<css::frame::XModel>& model, const CommandOptions& options,
                       const DialogFacts& facts);
