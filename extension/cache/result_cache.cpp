@@ -10,17 +10,25 @@ namespace assoc::calc {
 
 CacheKey::CacheKey(std::string_view computation) { add(computation); }
 
-CacheKey& CacheKey::add(double value) {
+namespace {
+
+// The exact bytes of a number (a double's bit pattern: 0.0 and -0.0, or two NaNs, are different keys).
+template <class Number>
+void append_bytes(std::string& bytes, Number value) {
     char raw[sizeof value];
     std::memcpy(raw, &value, sizeof value);
-    bytes_.append(raw, sizeof raw);
+    bytes.append(raw, sizeof raw);
+}
+
+}  // namespace
+
+CacheKey& CacheKey::add(double value) {
+    append_bytes(bytes_, value);
     return *this;
 }
 
 CacheKey& CacheKey::add(std::uint64_t value) {
-    char raw[sizeof value];
-    std::memcpy(raw, &value, sizeof value);
-    bytes_.append(raw, sizeof raw);
+    append_bytes(bytes_, value);
     return *this;
 }
 
