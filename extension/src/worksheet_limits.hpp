@@ -5,11 +5,12 @@
 // cap with an error whose ASSOC.CHECK text says what to do instead:
 //
 //   ASSOC.EXACT (every side) and ASSOC.PVALUE with "exact"   5 seconds, 400 MB of working memory
+//   ASSOC.PAIRWISE with "exact"                             the same, for all its pairs together
 //   ASSOC.REPORT, its exact p-value                         2 seconds, 100 MB
 //   ASSOC.SIMULATE                                          5 seconds
 //   ASSOC.CHECK, all it tries on its range together         10 seconds (it may run two of the above)
-//   the menu command's probe of the exact test               0.05 seconds, 50 MB (whether its sheet
-//                                                            keeps the exact p-value live)
+//   the menu command's probe of the exact test              0.05 seconds, 50 MB (whether its sheet
+//                                                           keeps the exact p-value live)
 //
 // The r×c exact test refuses at once a table it cannot finish within its cap (ExactLimits::forecast,
 // on in all of these), and the add-in's cache (extension/cache/) keys its answers on these limits.
