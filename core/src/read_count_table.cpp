@@ -139,7 +139,7 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
     } else {
         const detail::BodySide rows{"row", "column", &table.body_row_labels_, header_column, first_body_row + 1};
         const detail::BodySide columns{"column", "row", &table.body_column_labels_, header_row, first_body_column + 1};
-        totals = detail::find_total_lines(body, rows, columns);
+        totals = detail::find_total_lines(body, rows, columns, options.distinct_labels);
         table.doubts_ = totals.doubts;
     }
     if (options.counts_only)

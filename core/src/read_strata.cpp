@@ -133,6 +133,7 @@ Strata read_strata(const CellGrid& given) {
 
     ReadOptions options;
     options.require_two_by_two = false;  // the shape is checked here, per layout
+    options.distinct_labels = false;     // each stratum repeats the groups' labels
     const CountTable read = read_count_table(range, options);
     const Matrix counts = read.category_counts();
 

@@ -1,7 +1,10 @@
 #include "record_span.hpp"
 
 #include <algorithm>
+#include <map>
+#include <string_view>
 
+#include "assoc/error.hpp"
 #include "assoc/wording.hpp"
 
 namespace assoc::detail {
@@ -24,6 +27,38 @@ bool unique_text_at_start(const CodedLabels& labels, std::size_t end) {
         if (code != CodedLabels::blank && code < same.size() && same[code]) return false;
     }
     return true;
+}
+
+// Whether a range drawn with its header looks so: its first cell is a text found nowhere else in
+// it, and the records below (positions 1 to end − 1) are either all numbers (at least 2), or hold at
+// least 2 labels that each come at least twice — as the records under a column's name do, and as a
+// rare first record (the only "Promoted" above many "Not promoted") does not.
+bool header_like(const CodedLabels& labels, std::size_t end) {
+    if (!unique_text_at_start(labels, end)) return false;
+    std::map<std::string_view, std::size_t> texts;
+    std::size_t records = 0, numbers = 0;
+    for (std::size_t i = 1; i < end && i < labels.codes.size(); ++i) {
+        const std::uint32_t code = labels.codes[i];
+        if (code == CodedLabels::blank) continue;
+        ++records;
+        if (is_text_code(labels, code)) ++texts[trimmed_label(labels.spellings[code].as_text())];
+        else ++numbers;
+    }
+    if (records >= 2 && numbers == records) return true;
+    return numbers == 0 && texts.size() >= 2 &&
+           std::all_of(texts.begin(), texts.end(), [](const auto& text) { return text.second >= 2; });
+}
+
+// Whether some label comes twice among positions 1 to end − 1.
+bool repeats_below(const CodedLabels& labels, std::size_t end) {
+    std::vector<bool> seen(labels.spellings.size(), false);
+    for (std::size_t i = 1; i < end && i < labels.codes.size(); ++i) {
+        const std::uint32_t code = labels.codes[i];
+        if (code == CodedLabels::blank || code >= seen.size()) continue;
+        if (seen[code]) return true;
+        seen[code] = true;
+    }
+    return false;
 }
 
 std::string first_cell_text(const CodedLabels& labels) {
@@ -74,7 +109,36 @@ RecordSpan record_span(const std::vector<const CodedLabels*>& labels, const Cell
         span.first = 1;
         span.remarks.push_back(line + what + " was read as a header and left out, since its weight is the text " +
                                quoted_label(first_weight->as_text()) + ".");
+        return span;
     }
+    // Ranges drawn with their header (A1:A500): row 1 is a header when every range looks drawn with
+    // its header (header_like). ASSOC.LEVELS decides so for its one range, so ranges that disagree are
+    // refused: either choice would misalign the counts with the levels of one range.
+    const std::string word = along_row ? "column" : "row";
+    std::size_t headers = 0, unique_starts = 0;
+    for (const CodedLabels* range : labels) {
+        if (header_like(*range, span.end)) ++headers;
+        if (unique_text_at_start(*range, span.end)) ++unique_starts;
+    }
+    if (headers == labels.size()) {
+        span.first = 1;
+        span.remarks.push_back(line + what + " was read as a header and left out, since " +
+                               (labels.size() > 1 ? std::string("each is a text found nowhere else in its range")
+                                                  : first_cell_text(shape) + " is a text found nowhere else in its range") +
+                               " above labels that repeat; if it is a record, move it to another " + word +
+                               " of the range.");
+        return span;
+    }
+    if (headers > 0)
+        throw Error(word + " 1" + what + " may be a header or a record: in some ranges it looks like a header (a "
+                    "text found nowhere else, above labels that repeat), in others it does not; if " + word +
+                    " 1 is a header, start every range one " + word + " later; if it is a record, move it to "
+                    "another " + word + " of the ranges");
+    if (unique_starts == labels.size() && std::any_of(labels.begin(), labels.end(), [&](const CodedLabels* range) {
+            return repeats_below(*range, span.end);
+        }))
+        span.remarks.push_back(line + what + " was counted as a record; if it is a header, start the range" +
+                               (labels.size() > 1 ? "s" : "") + " one " + word + " later.");
     return span;
 }
 

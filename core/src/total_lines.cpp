@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "assoc/cell.hpp"
 #include "assoc/error.hpp"
 #include "assoc/wording.hpp"
 
@@ -35,6 +36,9 @@ const char* const total_words[] = {
     // Polish
     "razem", "ogółem", "ogolem", "suma całkowita",
 };
+
+// "Row total", "Department totals", "Office subtotal": a name followed by the word for a total.
+const char* const total_endings[] = {" total", " totals", " subtotal", " sub-total"};
 
 const char* const total_beginnings[] = {"total ",  "grand total", "subtotal ", "gesamt",
                                                           "summe ",  "totale ",     "totaal ",   "totalt ",
@@ -144,6 +148,118 @@ void find_on_side(const Lines& lines, const BodySide& side, std::vector<bool>& t
     }
 }
 
+// Subtotals inside the table: a line that holds, in every position, the sum of the lines just above
+// it (at least 2 with counts, since the start or the previous total), as a workbook's subtotal under
+// each group does. The first and last lines' sums of all the others are found by find_on_side.
+// Without a label it is refused; with a label that is not a total word it is doubted. Each line's
+// search stops when the running sum passes the line's value, and after 100 lines.
+void find_subtotals(const Lines& lines, const BodySide& side, const std::vector<bool>& total, const std::vector<bool>& skip,
+                    std::vector<std::string>& doubts) {
+    constexpr std::size_t longest_block = 100;
+    std::size_t data_lines = 0;
+    for (std::size_t i = 0; i < lines.count(); ++i)
+        if (!total[i] && !lines.empty(i)) ++data_lines;
+    std::vector<double> sum(lines.length());
+    for (std::size_t i = 2; i < lines.count(); ++i) {
+        if (total[i] || lines.empty(i)) continue;
+        std::fill(sum.begin(), sum.end(), 0.0);
+        std::vector<std::size_t> block;
+        for (std::size_t j = i; j-- > 0 && !total[j] && i - j <= longest_block;) {
+            if (lines.empty(j)) continue;
+            bool equal = true, within = true;
+            for (std::size_t k = 0; k < lines.length(); ++k) {
+                if (skip[k]) continue;
+                sum[k] += lines.at(j, k);
+                equal = equal && same_amount(sum[k], lines.at(i, k));
+                within = within && sum[k] <= lines.at(i, k) + 1e-9 * std::max(1.0, lines.at(i, k));
+            }
+            block.push_back(j);
+            if (!within) break;
+            if (!equal || block.size() < 2) continue;
+            // The sum of every other line is the grand total that find_on_side speaks of.
+            if (block.size() + 1 == data_lines) break;
+            std::size_t positions = 0;
+            for (std::size_t k = 0; k < lines.length(); ++k)
+                if (!skip[k] && sum[k] != 0) ++positions;
+            const std::string& label = (*side.labels)[i];
+            if (positions < (side.labelled ? 2u : 3u)) break;
+            std::vector<std::size_t> numbers;
+            for (auto it = block.rbegin(); it != block.rend(); ++it) numbers.push_back(side.first_number + *it);
+            if (label.empty())
+                throw Error(line_name(side, i) + " holds the sum of " + numbered_lines(side.word, numbers) + " above it in "
+                            "every " + side.other_word + ", so it looks like a subtotal, and a subtotal must not be "
+                            "tested as if it held more counts; label it \"Subtotal\" (it is then set aside) or delete it. "
+                            "If it does hold counts, give the " + side.word + "s labels");
+            doubts.push_back(capitalised(line_name(side, i)) + " holds the sum of " + numbered_lines(side.word, numbers) +
+                             " above it in every " + side.other_word + ": if it is a subtotal, label it \"Subtotal\" (it "
+                             "is then set aside); it was tested as counts.");
+            break;
+        }
+    }
+}
+
+// Lines that are no counts by their label: a percentage, an average or a rate ("% promoted", "Average",
+// "Promotion rate") holding a number that is not whole. Refused: such a line cannot be set aside as a
+// total can, since the author may have meant something else by it.
+bool names_a_summary(std::string_view label) {
+    static const char* const words[] = {"%", "percent", "percentage", "pct", "average", "avg", "mean", "median",
+                                        "rate", "ratio", "share", "proportion", "prozent", "anteil", "durchschnitt",
+                                        "mittelwert", "pourcentage", "moyenne", "porcentaje", "promedio", "media",
+                                        "percentuale", "procent", "gemiddelde"};
+    const std::string text = folded_label(label);
+    std::size_t k = 0;
+    while (k < text.size()) {
+        if (text[k] == '%') return true;
+        const bool letter = (text[k] >= 'a' && text[k] <= 'z') || static_cast<unsigned char>(text[k]) >= 0x80;
+        if (!letter) {
+            ++k;
+            continue;
+        }
+        std::size_t end = k;
+        while (end < text.size() && ((text[end] >= 'a' && text[end] <= 'z') || static_cast<unsigned char>(text[end]) >= 0x80))
+            ++end;
+        const std::string_view token(text.data() + k, end - k);
+        for (const char* word : words)
+            if (token == word) return true;
+        k = end;
+    }
+    return false;
+}
+
+void refuse_summaries(const Lines& lines, const BodySide& side, const std::vector<bool>& total) {
+    if (!side.labelled) return;
+    for (std::size_t i = 0; i < lines.count(); ++i) {
+        if (total[i] || !names_a_summary((*side.labels)[i])) continue;
+        for (std::size_t k = 0; k < lines.length(); ++k) {
+            const double value = lines.at(i, k);
+            if (value == std::floor(value)) continue;
+            throw Error(line_name(side, i) + " holds " + Cell::number(value).describe() + ", not a whole number, under a "
+                        "label that names a percentage, an average or a rate, so it holds no counts; leave it out of "
+                        "the range (the tests need the number of people or items in each cell)");
+        }
+    }
+}
+
+// Two lines with the same label: a line copied twice, or one group split in two by mistake.
+void doubt_repeated_labels(const BodySide& side, const std::vector<bool>& total, std::vector<std::string>& doubts) {
+    if (!side.labelled) return;
+    const std::vector<std::string>& labels = *side.labels;
+    std::vector<bool> said(labels.size(), false);
+    for (std::size_t i = 0; i < labels.size(); ++i) {
+        if (labels[i].empty() || total[i] || said[i]) continue;
+        std::vector<std::size_t> numbers{side.first_number + i};
+        for (std::size_t j = i + 1; j < labels.size(); ++j)
+            if (!total[j] && labels[j] == labels[i]) {
+                numbers.push_back(side.first_number + j);
+                said[j] = true;
+            }
+        if (numbers.size() < 2) continue;
+        doubts.push_back(capitalised(numbered_lines(side.word, numbers)) + " have the same label, " +
+                         quoted_label(labels[i]) + ", and were tested as different " + side.word +
+                         "s; if they are one group, add their counts together.");
+    }
+}
+
 }  // namespace
 
 bool is_total_label(std::string_view label) {
@@ -151,6 +267,10 @@ bool is_total_label(std::string_view label) {
     if (text.empty()) return false;
     for (const char* word : total_words)
         if (text == word) return true;
+    for (const char* ending : total_endings) {
+        const std::string_view end(ending);
+        if (text.size() > end.size() && text.compare(text.size() - end.size(), end.size(), end) == 0) return true;
+    }
     for (const char* beginning : total_beginnings) {
         const std::string_view start(beginning);
         if (text.size() > start.size() && text.compare(0, start.size(), start) == 0) return true;
@@ -158,15 +278,23 @@ bool is_total_label(std::string_view label) {
     return false;
 }
 
-TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns) {
+TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns, bool distinct_labels) {
     TotalLines totals;
     totals.rows.assign(body.rows(), false);
     totals.columns.assign(body.columns(), false);
     for (std::size_t r = 0; r < body.rows(); ++r) totals.rows[r] = rows.labelled && is_total_label((*rows.labels)[r]);
     for (std::size_t c = 0; c < body.columns(); ++c)
         totals.columns[c] = columns.labelled && is_total_label((*columns.labels)[c]);
+    refuse_summaries(Lines{body, true}, rows, totals.rows);
+    refuse_summaries(Lines{body, false}, columns, totals.columns);
     find_on_side(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts);
     find_on_side(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts);
+    find_subtotals(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts);
+    find_subtotals(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts);
+    if (distinct_labels) {
+        doubt_repeated_labels(rows, totals.rows, totals.doubts);
+        doubt_repeated_labels(columns, totals.columns, totals.doubts);
+    }
     return totals;
 }
 

@@ -16,7 +16,8 @@ namespace assoc::detail {
 // Spanish, Italian, Dutch, Portuguese, the Scandinavian languages and Polish ("Total", "Totals",
 // "Grand total", "Subtotal", "Sum", "All", "Overall", "Summe", "Gesamt", "Insgesamt", "Somme",
 // "Ensemble", "Suma", "Totale", "Totaal", "Soma", "Totalt", "Summa", "I alt", "Razem", "Ogółem", …),
-// in any case (A–Z), with a trailing colon allowed; or a label that begins with "Total",
+// in any case (A–Z), with a trailing colon allowed; a label that ends in " total", " totals" or
+// " subtotal" ("Row total", "Office subtotal"); or a label that begins with "Total",
 // "Grand total", "Subtotal", "Gesamt", "Summe", "Totale", "Totaal" or "Totalt" followed by a space
 // ("Total staff", "Total 2024"). Exact words only otherwise: "Allowances" or "Summer" are no totals.
 bool is_total_label(std::string_view label);
@@ -41,7 +42,12 @@ struct TotalLines {
 // every position, the sum of at least 2 other non-empty lines. Such a line without a label is
 // refused (an Error that says what was found and what to do); with a label that is not a total
 // word it is kept as counts and doubted.
-TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns);
+// Also: a line inside the table that holds the sum of the lines just above it (a subtotal) is refused
+// without a label and doubted with one that is not a total word; a line labelled as a percentage, an
+// average or a rate ("% promoted", "Average") that holds a number that is not whole is refused; and,
+// with `distinct_labels`, lines that share a label are doubted (stacked strata repeat their labels).
+TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns,
+                            bool distinct_labels = true);
 
 // Refuses percentages and shares typed instead of counts: the lines of one side (at least 2 with
 // counts) that each add up to 100 (within 1) or to 1 (within 0.01), or a body that adds up to 100 or

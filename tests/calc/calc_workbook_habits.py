@@ -101,6 +101,14 @@ class WholeColumnsAndRecords(HabitCase):
         self.assertIn("Counted 8 records into 3 row levels and 2 column levels.", text)
         self.assertIn('Row 1 ("Channel" and "Outcome") was read as a header and left out', text)
 
+    def test_records_drawn_with_their_header_give_the_table_of_the_records_alone(self):
+        self.put_records()
+        self.assertEqual(self.array("F1:F3", "=ASSOC.LEVELS(C1:C9)"), column(["Phone", "Shop", "Web"]))
+        self.assertEqual(self.array("G1:H3", "=ASSOC.COUNTS(C1:C9; D1:D9)"), self.array("G5:H7", "=ASSOC.COUNTS(C2:C9; D2:D9)"))
+        text = self.words("F10", '=ASSOC.CHECK(C1:D9; "counts")')
+        self.assertIn('Row 1 ("Channel" and "Outcome") was read as a header and left out, since each is a text found '
+                      "nowhere else in its range above labels that repeat", text)
+
     def test_whole_columns_on_another_sheet_are_read_the_same_way(self):
         sheets = session.document.Sheets
         sheets.insertNewByName("HabitRecords", sheets.Count)
@@ -129,6 +137,32 @@ class WholeColumnsAndRecords(HabitCase):
     def test_levels_can_size_their_array_with_rows(self):
         self.put_records()
         self.assertEqual(self.number("F1", "=ROWS(ASSOC.LEVELS(C:C))"), 3)
+
+
+class SubtotalsAndSummaries(HabitCase):
+    def test_a_subtotal_without_a_label_inside_the_table_is_refused_with_words(self):
+        table = self.put([["Dept", "Yes", "No"], ["Sales", 30, 45], ["Legal", 10, 80], [None, 40, 125],
+                          ["Audit", 22, 41], ["Tax", 5, 9]])
+        self.refused(f"=ASSOC.PVALUE({table})", f"=ASSOC.CHECK({table})",
+                     "row 4 holds the sum of rows 2–3 above it in every column, so it looks like a subtotal")
+
+    def test_a_labelled_subtotal_is_set_aside(self):
+        with_subtotal = self.put([["Dept", "Yes", "No"], ["Sales", 30, 45], ["Legal", 10, 80], ["Subtotal", 40, 125],
+                                  ["Audit", 22, 41], ["Tax", 5, 9]])
+        without = self.put([["Dept", "Yes", "No"], ["Sales", 30, 45], ["Legal", 10, 80], ["Audit", 22, 41], ["Tax", 5, 9]],
+                           row=10)
+        self.assertEqual(self.number("H1", f"=ASSOC.PVALUE({with_subtotal})"), self.number("H2", f"=ASSOC.PVALUE({without})"))
+
+    def test_a_column_of_row_percentages_beside_the_counts_is_refused_with_words(self):
+        table = self.put([["Dept", "Yes", "No", "% yes"], ["Sales", 30, 45, 0.4], ["Legal", 10, 80, 0.111],
+                          ["Audit", 22, 41, 0.349]])
+        self.refused(f"=ASSOC.PVALUE({table})", f"=ASSOC.CHECK({table})",
+                     'the column "% yes" holds the number 0.4, not a whole number, under a label that names a percentage')
+
+    def test_two_rows_with_one_label_are_doubted_not_sound(self):
+        table = self.put([["Dept", "Yes", "No"], ["Sales", 30, 45], ["Legal", 10, 80], ["Sales", 22, 41]])
+        text = self.words("H1", f"=ASSOC.CHECK({table})")
+        self.assertTrue(text.startswith('Doubtful: Rows 2 and 4 have the same label, "Sales"'), text)
 
 
 class PercentagesAndWeights(HabitCase):

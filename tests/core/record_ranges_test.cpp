@@ -78,6 +78,58 @@ TEST(RecordRanges, KeepRow1OfARangeThatIsNoWholeColumn) {
     EXPECT_EQ(distinct_levels(grid({{"Channel"}, {"Web"}, {"Shop"}})), texts({"Channel", "Shop", "Web"}));
 }
 
+// Ranges drawn with their header (A1:A6): the header is no record when each range starts with a text
+// found nowhere else in it, above labels that repeat. Invented records of a fictional company.
+TEST(RecordRanges, LeaveOutTheHeaderOfRangesDrawnWithItAndSaySo) {
+    const CellGrid dept = grid({{"Dept"}, {"Sales"}, {"Legal"}, {"Sales"}, {"Legal"}, {"Sales"}});
+    const CellGrid outcome = grid({{"Outcome"}, {"Yes"}, {"No"}, {"No"}, {"Yes"}, {"Yes"}});
+    EXPECT_EQ(distinct_levels(dept), texts({"Legal", "Sales"}));
+    const RecordCounts counts = counts_from_records(dept, outcome);
+    EXPECT_EQ(counts.records, 5u);
+    EXPECT_EQ(counts.row_levels, texts({"Legal", "Sales"}));
+    EXPECT_EQ(counts.column_levels, texts({"No", "Yes"}));
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{1, 1, 1, 2}));
+    EXPECT_TRUE(contains(counts.feedback(),
+                         "Row 1 (\"Dept\" and \"Outcome\") was read as a header and left out, since each is a text "
+                         "found nowhere else in its range above labels that repeat; if it is a record, move it to "
+                         "another row of the range."))
+        << counts.feedback();
+}
+
+TEST(RecordRanges, LeaveOutATextHeaderAboveNumberCodes) {
+    const RecordCounts counts =
+        counts_from_records(grid({{"Grade"}, {1}, {2}, {1}, {3}}), grid({{"Outcome"}, {"Yes"}, {"No"}, {"No"}, {"Yes"}}));
+    EXPECT_EQ(counts.records, 4u);
+    EXPECT_EQ(counts.row_levels.size(), 3u);
+}
+
+// A rare outcome in the first record (the only "Promoted" above "Not promoted") is no header.
+TEST(RecordRanges, KeepARareFirstRecordAboveASingleRepeatedLabel) {
+    const CellGrid outcome = grid({{"Promoted"}, {"Not promoted"}, {"Not promoted"}, {"Not promoted"}});
+    EXPECT_EQ(distinct_levels(outcome), texts({"Not promoted", "Promoted"}));
+    EXPECT_EQ(counts_from_records(grid({{"Sales"}, {"Sales"}, {"Legal"}, {"Legal"}}), outcome).records, 4u);
+}
+
+TEST(RecordRanges, RefuseARow1ThatIsAHeaderInOneRangeAndARecordLabelInTheOther) {
+    expect_error(
+        [] {
+            counts_from_records(grid({{"Dept"}, {"Sales"}, {"Legal"}, {"Sales"}, {"Legal"}}),
+                                grid({{"Yes"}, {"Yes"}, {"No"}, {"No"}, {"Yes"}}));
+        },
+        "row 1 (\"Dept\" and \"Yes\") may be a header or a record: in some ranges it looks like a header (a text "
+        "found nowhere else, above labels that repeat), in others it does not; if row 1 is a header, start every "
+        "range one row later; if it is a record, move it to another row of the ranges");
+}
+
+TEST(RecordRanges, CountRow1AsARecordWhenNoRangeLooksDrawnWithAHeaderButSaySoWhenItCouldBeOne) {
+    const RecordCounts counts = counts_from_records(grid({{"Dept"}, {"Sales"}, {"Legal"}, {"Sales"}, {"Audit"}}),
+                                                    grid({{"Outcome"}, {"Yes"}, {"No"}, {"No"}, {"Maybe"}}));
+    EXPECT_EQ(counts.records, 5u);
+    EXPECT_TRUE(contains(counts.feedback(), "Row 1 (\"Dept\" and \"Outcome\") was counted as a record; if it is a "
+                                            "header, start the ranges one row later."))
+        << counts.feedback();
+}
+
 TEST(RecordRanges, ReadATextWeightInRow1AsAHeaderRow) {
     const RecordCounts counts = counts_from_records(grid({{"Dept"}, {"x"}, {"y"}}), grid({{"Outcome"}, {"a"}, {"b"}}),
                                                     grid({{"Weight"}, {2}, {3}}));

@@ -129,6 +129,73 @@ TEST(TotalLines, RefusesATotalAtTheEndOfALongSingleColumnOfCounts) {
                  "aside). If it does hold counts, give the rows labels");
 }
 
+TEST(TotalLines, KnowsALabelThatEndsInTheWordForATotal) {
+    for (const char* word : {"Row total", "Department totals", "Office subtotal"}) {
+        const CountTable read = read_count_table(grid({{"", "Yes", "No"}, {"North", 5, 9}, {"South", 7, 3}, {word, 12, 12}}));
+        EXPECT_EQ(read.rows(), 2u) << word;
+    }
+    // A name that only contains the word is no total ("Lump sum" is a way of paying).
+    EXPECT_EQ(read_count_table(grid({{"", "Yes", "No"}, {"North", 5, 9}, {"South", 7, 3}, {"Lump sum", 2, 8}})).rows(), 3u);
+}
+
+// Invented: promotions in two groups of departments, each followed by its subtotal.
+TEST(TotalLines, RefusesASubtotalWithoutALabelInsideTheTable) {
+    expect_error([] {
+        read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 30, 45}, {"Legal", 10, 80}, {"", 40, 125},
+                               {"Audit", 22, 41}, {"Tax", 5, 9}}));
+    },
+                 "row 4 holds the sum of rows 2–3 above it in every column, so it looks like a subtotal, and a subtotal "
+                 "must not be tested as if it held more counts; label it \"Subtotal\" (it is then set aside) or delete "
+                 "it. If it does hold counts, give the rows labels");
+}
+
+TEST(TotalLines, DoubtsALineLabelledAsDataThatHoldsTheSumOfTheLinesAboveIt) {
+    const CountTable read = read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 30, 45}, {"Legal", 10, 80},
+                                                   {"Front office", 40, 125}, {"Audit", 22, 41}, {"Tax", 5, 9}}));
+    EXPECT_EQ(read.rows(), 5u);
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "The row \"Front office\" holds the sum of rows 2–3 above it in every column: if it is "
+                                "a subtotal, label it \"Subtotal\" (it is then set aside); it was tested as counts.");
+}
+
+TEST(TotalLines, TakesNoSumOfTheLinesAboveAtASinglePositionForASubtotal) {
+    const CountTable read = read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 3, 0}, {"Legal", 2, 0},
+                                                   {"Audit", 5, 4}, {"Tax", 5, 9}}));
+    EXPECT_TRUE(read.doubts().empty());
+}
+
+TEST(SummaryLines, AreRefusedWhenLabelledAsAPercentageAverageOrRateAndNotWhole) {
+    for (const char* label : {"% promoted", "Average", "Promotion rate", "Share (%)", "Mittelwert"}) {
+        EXPECT_THROW(read_count_table(grid({{"Dept", "Yes", "No", label}, {"Sales", 30, 45, 0.4}, {"Legal", 10, 80, 0.11},
+                                            {"Audit", 22, 41, 0.35}})),
+                     Error)
+            << label;
+    }
+    expect_error([] {
+        read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 30, 45}, {"Legal", 10, 80}, {"Average", 20, 62.5}}));
+    },
+                 "the row \"Average\" holds the number 62.5, not a whole number, under a label that names a percentage, "
+                 "an average or a rate, so it holds no counts; leave it out of the range (the tests need the number of "
+                 "people or items in each cell)");
+}
+
+// Categories can carry such words: bands of a pay rise, ratings around the average.
+TEST(SummaryLines, KeepLinesOfWholeCountsWhateverTheirLabels) {
+    const CountTable read = read_count_table(grid({{"Rise", "Yes", "No"}, {"0-2%", 30, 45}, {"2-4%", 10, 80},
+                                                   {"Above average", 22, 41}, {"Flat rate", 3, 7}}));
+    EXPECT_EQ(read.rows(), 4u);
+}
+
+TEST(RepeatedLabels, AreDoubtedAsOneGroupSplitOrCopied) {
+    const CountTable read =
+        read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 30, 45}, {"Legal", 10, 80}, {"Sales", 22, 41}}));
+    EXPECT_EQ(read.rows(), 3u);
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "Rows 2 and 4 have the same label, \"Sales\", and were tested as different rows; if they "
+                                "are one group, add their counts together.");
+    EXPECT_EQ(check_validity(read).summary().rfind("Doubtful:", 0), 0u);
+}
+
 TEST(Percentages, AreRefusedWhenEveryRowAddsUpToAHundred) {
     expect_error([] { read_count_table(grid({{"", "Yes", "No"}, {"North", 12.5, 87.5}, {"South", 40.2, 59.8}})); },
                  "every row adds up to 100 and some entries are not whole numbers, so these look like percentages, not "

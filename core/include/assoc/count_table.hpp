@@ -35,6 +35,9 @@ struct ReadOptions {
     // Whether total lines are looked for (see read_count_table). Off for tables whose labels are
     // data values, such as the levels of counted records.
     bool find_totals = true;
+    // Whether lines that share a label are doubted (with find_totals). Off for stacked strata, whose
+    // groups repeat their labels in every stratum.
+    bool distinct_labels = true;
 };
 
 class CountTable {
