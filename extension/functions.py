@@ -486,8 +486,9 @@ FUNCTIONS = [
          "(ASSOC.CHECK with \"strata\" names them). ASSOC.HOMOGENEITY tests whether one common odds ratio fits "
          "all strata.",
          "In stacked tables the labels tell which rows form a stratum: a first label column that names the "
-         "strata (blank meaning \"as above\"), a stratum's name on its first row, its name on each of its rows, "
-         "or group labels that repeat (Women, Men, Women, Men). A stratum that does not have exactly 2 rows is "
+         "strata (its name on the stratum's first row, the rows below blank or repeating the name), a stratum's "
+         "name on its first row, its name on each of its rows, or group labels that repeat (Women, Men, Women, "
+         "Men). A stratum name that comes back after another stratum is an error. A stratum that does not have exactly 2 rows is "
          "an error that names it and its rows; a stratum whose groups come in the other order is matched by "
          "their labels. Without labels (or with labels that are all different) the rows are taken two by two, "
          "and ASSOC.CHECK says so when there are labels. Rows labelled as totals are left out.",
@@ -560,7 +561,8 @@ FUNCTIONS = [
         ["A header in the first cells is left out, and so are the blank cells after the last group (whole columns "
          "such as B:B may be given); the result has one row per group below the header. A group whose two cells "
          "are blank, or with 0 considered, has no selection rate: its row is left empty with its reason, and the "
-         "other groups are compared.",
+         "other groups are compared. A first or last group that holds the sums of at least 2 other groups in both "
+         "ranges is a total, and an error: leave the total row out of the ranges.",
          "The four-fifths rule of thumb comes from the US Uniform Guidelines on Employee Selection Procedures, "
          "29 CFR 1607.4(D). It is a screening rule, not a test: with few people a large difference can be "
          "chance, and with many a small one can matter. Follow applicable law and policy and seek qualified "
@@ -767,7 +769,9 @@ ORDERED_FUNCTIONS = [
          "stratum may leave out a row label (its counts are then 0). Strata with fewer than 2 rows or 2 columns "
          "holding counts add nothing and are set aside, and so are rows and columns that hold counts only in such "
          "strata; ASSOC.CHECK with \"within\" names them. With 2 rows and 2 columns in every stratum the statistic "
-         "is that of ASSOC.STRATA with \"uncorrected\"."],
+         "is that of ASSOC.STRATA with \"uncorrected\". Rows whose row or stratum label names a total (\"Total\", "
+         "\"All\") and count columns headed as totals are set aside, and ASSOC.CHECK says so: a total is not more "
+         "people."],
         "=ASSOC.WITHIN(A1:F10)"),
     Function(
         "ASSOC.REPEATED", "repeated",

@@ -45,6 +45,20 @@ bool looks_like_years(std::size_t length, CellAt cell_at) {
     return true;
 }
 
+// 0, 1, 2, … or 1, 2, 3, … along a first row or column of at least 3: the numbers of ordered
+// categories (courses taken, a rating) typed as numbers, or counts that happen to rise by one.
+template <class CellAt>
+bool looks_like_steps(std::size_t length, CellAt cell_at) {
+    if (length < 3) return false;
+    for (std::size_t i = 0; i < length; ++i) {
+        const Cell& cell = cell_at(i);
+        if (!cell.is_number()) return false;
+        const double start = cell_at(0).is_number() ? cell_at(0).as_number() : -1;
+        if ((start != 0 && start != 1) || cell.as_number() != start + static_cast<double>(i)) return false;
+    }
+    return true;
+}
+
 std::string plural(std::size_t n, const char* word) {
     return std::to_string(n) + " " + word + (n == 1 ? "" : "s");
 }
@@ -110,17 +124,31 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
         }
     }
 
-    // A fixed text (building a string here would cost an allocation on every call).
-    const char* const years_hint = " holds whole numbers that look like years, and they were read as counts; if they "
-                                   "are labels, enter them as text (type an apostrophe first: '2024) or add a text header";
-    if (!header_row && looks_like_years(body_columns, [&](std::size_t c) -> const Cell& {
-            return range.at(0, first_body_column + c);
-        }))
-        table.reading_remarks_.push_back(std::string("Row 1") + years_hint + ".");
-    if (!header_column && looks_like_years(body_rows, [&](std::size_t r) -> const Cell& {
-            return range.at(first_body_row + r, 0);
-        }))
-        table.reading_remarks_.push_back(std::string("Column 1") + years_hint + ".");
+    // Numbers that look like labels, read as counts: doubts (never "Sound"), said after the totals'.
+    // The words are put together only when said (a string built here would cost allocations on every
+    // call, and thousands of ASSOC.PVALUE cells each read a small table).
+    std::vector<std::string> label_doubts;
+    const auto doubt_numbers_as_labels = [&](const char* line, std::size_t length, auto cell_at) {
+        if (looks_like_years(length, cell_at)) {
+            label_doubts.push_back(std::string(line) +
+                                   " holds whole numbers that look like years, and they were read as counts; if they "
+                                   "are labels, enter them as text (type an apostrophe first: '2024) or add a text header.");
+        } else if (looks_like_steps(length, cell_at)) {
+            const double start = cell_at(0).as_number();
+            const std::string list = format_count(start) + ", " + format_count(start + 1) + ", " + format_count(start + 2) +
+                                     (length > 3 ? ", …" : "");
+            label_doubts.push_back(std::string(line) + " holds the whole numbers " + list +
+                                   ", which look like the numbers of ordered categories (0, 1, 2, … or 1, 2, 3, …), and "
+                                   "they were read as counts; if they are labels, enter them as text (type an apostrophe "
+                                   "first: '1) or add a text header.");
+        }
+    };
+    if (!header_row)
+        doubt_numbers_as_labels("Row 1", body_columns,
+                                [&](std::size_t c) -> const Cell& { return range.at(0, first_body_column + c); });
+    if (!header_column)
+        doubt_numbers_as_labels("Column 1", body_rows,
+                                [&](std::size_t r) -> const Cell& { return range.at(first_body_row + r, 0); });
 
     table.has_column_labels_ = header_row;
     table.has_row_labels_ = header_column;
@@ -142,6 +170,7 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
         totals = detail::find_total_lines(body, rows, columns, options.distinct_labels);
         table.doubts_ = totals.doubts;
     }
+    for (std::string& doubt : label_doubts) table.doubts_.push_back(std::move(doubt));
     if (options.counts_only)
         for (std::string& doubt : detail::refuse_percentages(body, totals.rows, totals.columns))
             table.doubts_.push_back(std::move(doubt));
