@@ -394,7 +394,9 @@ FUNCTIONS = [
                                          "which lowers the degrees of freedom; 0 when omitted.", default=0)],
         "row", "one row: the p-value, the statistic X², the degrees of freedom; a plain entry shows the p-value",
         ["The degrees of freedom are the categories − 1 − estimated. A category expected to have no counts "
-         "must have none, and is then left out."],
+         "must have none, and is then left out. Expected values under a label that speaks of percentages "
+         "(\"Plan %\") must add up to 100 (within 1, for rounding): otherwise a category is missing or a value "
+         "mistyped, and they are an error rather than rescaled."],
         "=ASSOC.FIT(B2:B5; C2:C5)"),
     Function(
         "ASSOC.POWER", "power",

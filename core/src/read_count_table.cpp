@@ -167,7 +167,7 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
     } else {
         const detail::BodySide rows{"row", "column", &table.body_row_labels_, header_column, first_body_row + 1};
         const detail::BodySide columns{"column", "row", &table.body_column_labels_, header_row, first_body_column + 1};
-        totals = detail::find_total_lines(body, rows, columns, options.distinct_labels);
+        totals = detail::find_total_lines(body, rows, columns, options.distinct_labels, options.counts_only);
         table.doubts_ = totals.doubts;
     }
     for (std::string& doubt : label_doubts) table.doubts_.push_back(std::move(doubt));

@@ -278,15 +278,18 @@ bool is_total_label(std::string_view label) {
     return false;
 }
 
-TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns, bool distinct_labels) {
+TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns, bool distinct_labels,
+                            bool counts_only) {
     TotalLines totals;
     totals.rows.assign(body.rows(), false);
     totals.columns.assign(body.columns(), false);
     for (std::size_t r = 0; r < body.rows(); ++r) totals.rows[r] = rows.labelled && is_total_label((*rows.labels)[r]);
     for (std::size_t c = 0; c < body.columns(); ++c)
         totals.columns[c] = columns.labelled && is_total_label((*columns.labels)[c]);
-    refuse_summaries(Lines{body, true}, rows, totals.rows);
-    refuse_summaries(Lines{body, false}, columns, totals.columns);
+    if (counts_only) {
+        refuse_summaries(Lines{body, true}, rows, totals.rows);
+        refuse_summaries(Lines{body, false}, columns, totals.columns);
+    }
     find_on_side(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts);
     find_on_side(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts);
     find_subtotals(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts);
