@@ -35,17 +35,22 @@ bool unique_text_at_start(const CodedLabels& labels, std::size_t end) {
 // rare first record (the only "Promoted" above many "Not promoted") does not.
 bool header_like(const CodedLabels& labels, std::size_t end) {
     if (!unique_text_at_start(labels, end)) return false;
-    std::map<std::string_view, std::size_t> texts;
+    // Records per spelling (an array increment per record: a range may hold a million), then per text.
+    std::vector<std::size_t> per_spelling(labels.spellings.size(), 0);
     std::size_t records = 0, numbers = 0;
     for (std::size_t i = 1; i < end && i < labels.codes.size(); ++i) {
         const std::uint32_t code = labels.codes[i];
-        if (code == CodedLabels::blank) continue;
+        if (code == CodedLabels::blank || code >= per_spelling.size()) continue;
         ++records;
-        if (is_text_code(labels, code)) ++texts[trimmed_label(labels.spellings[code].as_text())];
-        else ++numbers;
+        ++per_spelling[code];
+        if (!is_text_code(labels, code)) ++numbers;
     }
     if (records >= 2 && numbers == records) return true;
-    return numbers == 0 && texts.size() >= 2 &&
+    if (numbers > 0) return false;
+    std::map<std::string_view, std::size_t> texts;
+    for (std::size_t s = 0; s < per_spelling.size(); ++s)
+        if (per_spelling[s] > 0) texts[trimmed_label(labels.spellings[s].as_text())] += per_spelling[s];
+    return texts.size() >= 2 &&
            std::all_of(texts.begin(), texts.end(), [](const auto& text) { return text.second >= 2; });
 }
 
