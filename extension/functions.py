@@ -322,7 +322,11 @@ FUNCTIONS = [
          "about 13 significant digits even far in the tail. For larger tables with many counts the number of "
          "possible tables grows quickly: the calculation stops with an error after 5 seconds, or when it "
          "would need more than 400 MB of memory; ASSOC.SIMULATE(range; ; ; \"exact\") then estimates the same "
-         "p-value by simulation. ASSOC.CHECK with \"exact\" says why it fails."],
+         "p-value by simulation. ASSOC.CHECK with \"exact\" says why it fails.",
+         "The calculation counts its work before doing it and watches its pace, so a table it cannot finish "
+         "within those limits is usually refused at once rather than after 5 seconds. While LibreOffice runs, "
+         "the answer (or the refusal) for a table is remembered: recalculating or reopening a sheet does not "
+         "compute an unchanged table again, and any change to its counts is computed afresh."],
         "=ASSOC.EXACT(A1:C3)"),
     Function(
         "ASSOC.SIMULATE", "simulate",
@@ -343,7 +347,9 @@ FUNCTIONS = [
          "simulation still running after 5 seconds stops with an error that says how far it got.",
          "With \"pearson\" or \"g\" it estimates the exact p-value of that statistic, which can differ from "
          "ASSOC.EXACT's: the exact test orders tables by their probability. With \"exact\" it orders them the same "
-         "way, so it estimates ASSOC.EXACT's p-value where the exact test is out of reach."],
+         "way, so it estimates ASSOC.EXACT's p-value where the exact test is out of reach.",
+         "Since the same counts, trials, seed and method always give the same result, it is remembered while "
+         "LibreOffice runs: recalculating or reopening a sheet does not simulate an unchanged table again."],
         "=ASSOC.SIMULATE(A1:D4; 100000; 7)"),
     Function(
         "ASSOC.ODDSRATIO", "oddsratio",
@@ -612,7 +618,8 @@ FUNCTIONS = [
          "conclusion explains it.",
          "The exact p-value is computed when the counts are whole and the test finishes within 2 seconds and "
          "100 MB of memory; otherwise its line says why not (ASSOC.EXACT allows 5 seconds and 400 MB, "
-         "ASSOC.SIMULATE estimates the p-value). A statistic above 1.8e308, the largest spreadsheet number, "
+         "ASSOC.SIMULATE estimates the p-value). Like ASSOC.EXACT's, the exact line is remembered for an "
+         "unchanged table while LibreOffice runs. A statistic above 1.8e308, the largest spreadsheet number, "
          "is written in words on its line. The cells "
          "that stand out are the (at most 3) cells with the largest adjusted residuals beyond ±2, named by "
          "their labels (or by their row and column in the range); in a table of two columns (rows) only the "
