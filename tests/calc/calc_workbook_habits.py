@@ -107,7 +107,7 @@ class WholeColumnsAndRecords(HabitCase):
         self.assertEqual(self.array("G1:H3", "=ASSOC.COUNTS(C1:C9; D1:D9)"), self.array("G5:H7", "=ASSOC.COUNTS(C2:C9; D2:D9)"))
         text = self.words("F10", '=ASSOC.CHECK(C1:D9; "counts")')
         self.assertIn('Row 1 ("Channel" and "Outcome") was read as a header and left out, since each is a text found '
-                      "nowhere else in its range above labels that repeat", text)
+                      "nowhere else in its range above records whose labels repeat", text)
 
     def test_whole_columns_on_another_sheet_are_read_the_same_way(self):
         sheets = session.document.Sheets
