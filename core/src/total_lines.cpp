@@ -226,10 +226,45 @@ bool names_a_summary(std::string_view label) {
     return false;
 }
 
+// A label that says its numbers are percentages: a "%" that follows no digit ("% promoted", "Yes (%)";
+// "0-2%" names a band of pay rises) or the word itself.
+bool names_percentages(std::string_view label) {
+    const std::string text = folded_label(label);
+    for (std::size_t k = 0; k < text.size(); ++k) {
+        if (text[k] != '%') continue;
+        std::size_t before = k;
+        while (before > 0 && text[before - 1] == ' ') --before;
+        if (before == 0 || !(text[before - 1] >= '0' && text[before - 1] <= '9')) return true;
+    }
+    for (const char* word : {"percent", "percentage", "pct", "prozent", "pourcentage", "porcentaje", "percentuale", "procent"}) {
+        const std::string_view w(word);
+        for (std::size_t at = text.find(w); at != std::string::npos; at = text.find(w, at + 1)) {
+            const auto letter = [](char c) { return (c >= 'a' && c <= 'z') || static_cast<unsigned char>(c) >= 0x80; };
+            if ((at == 0 || !letter(text[at - 1])) && (at + w.size() == text.size() || !letter(text[at + w.size()])))
+                return true;
+        }
+    }
+    return false;
+}
+
 void refuse_summaries(const Lines& lines, const BodySide& side, const std::vector<bool>& total) {
     if (!side.labelled) return;
     for (std::size_t i = 0; i < lines.count(); ++i) {
-        if (total[i] || !names_a_summary((*side.labels)[i])) continue;
+        if (total[i]) continue;
+        const std::string& label = (*side.labels)[i];
+        // Percentages, whole or not, when every number of the line could be one.
+        if (names_percentages(label)) {
+            bool within = true, any = false;
+            for (std::size_t k = 0; k < lines.length(); ++k) {
+                within = within && lines.at(i, k) >= 0 && lines.at(i, k) <= 100;
+                any = any || lines.at(i, k) != 0;
+            }
+            if (within && any)
+                throw Error(line_name(side, i) + " is labelled as percentages and holds numbers from 0 to 100, so it "
+                            "holds no counts; leave it out of the range, or enter the counts (the tests need the "
+                            "number of people or items in each cell)");
+        }
+        if (!names_a_summary(label)) continue;
         for (std::size_t k = 0; k < lines.length(); ++k) {
             const double value = lines.at(i, k);
             if (value == std::floor(value)) continue;

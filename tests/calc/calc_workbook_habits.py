@@ -157,7 +157,7 @@ class SubtotalsAndSummaries(HabitCase):
         table = self.put([["Dept", "Yes", "No", "% yes"], ["Sales", 30, 45, 0.4], ["Legal", 10, 80, 0.111],
                           ["Audit", 22, 41, 0.349]])
         self.refused(f"=ASSOC.PVALUE({table})", f"=ASSOC.CHECK({table})",
-                     'the column "% yes" holds the number 0.4, not a whole number, under a label that names a percentage')
+                     'the column "% yes" is labelled as percentages and holds numbers from 0 to 100, so it holds no counts')
 
     def test_two_rows_with_one_label_are_doubted_not_sound(self):
         table = self.put([["Dept", "Yes", "No"], ["Sales", 30, 45], ["Legal", 10, 80], ["Sales", 22, 41]])
