@@ -16,36 +16,17 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/exact_test.hpp"
+#include "exact_suite.hpp"
 
 namespace {
 
-struct SuiteTable {
-    std::string name;
-    assoc::Matrix counts;
-};
+using assoc::bench::read_suite;
+using assoc::bench::SuiteTable;
 
 struct RRow {
     std::string default_status, large_status;
     double default_seconds = NAN, default_p = NAN, large_seconds = NAN, large_p = NAN, simulated_p = NAN;
 };
-
-std::vector<SuiteTable> read_suite(const char* path) {
-    std::ifstream in(path);
-    std::vector<SuiteTable> suite;
-    std::string line;
-    while (std::getline(in, line)) {
-        if (line.empty() || line[0] == '#') continue;
-        std::istringstream fields(line);
-        SuiteTable t;
-        std::size_t rows = 0, columns = 0;
-        fields >> t.name >> rows >> columns;
-        t.counts = assoc::Matrix(rows, columns);
-        for (std::size_t r = 0; r < rows; ++r)
-            for (std::size_t c = 0; c < columns; ++c) fields >> t.counts(r, c);
-        suite.push_back(t);
-    }
-    return suite;
-}
 
 double number(const std::string& field) { return field == "NA" || field.empty() ? NAN : std::stod(field); }
 

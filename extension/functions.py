@@ -322,7 +322,11 @@ FUNCTIONS = [
          "about 13 significant digits even far in the tail. For larger tables with many counts the number of "
          "possible tables grows quickly: the calculation stops with an error after 5 seconds, or when it "
          "would need more than 400 MB of memory; ASSOC.SIMULATE(range; ; ; \"exact\") then estimates the same "
-         "p-value by simulation. ASSOC.CHECK with \"exact\" says why it fails."],
+         "p-value by simulation. ASSOC.CHECK with \"exact\" says why it fails.",
+         "The calculation counts its work before doing it and watches its pace, so a table it cannot finish "
+         "within those limits is usually refused at once rather than after 5 seconds. While LibreOffice runs, "
+         "the answer (or the refusal) for a table is remembered: recalculating or reopening a sheet does not "
+         "compute an unchanged table again, and any change to its counts is computed afresh."],
         "=ASSOC.EXACT(A1:C3)"),
     Function(
         "ASSOC.SIMULATE", "simulate",
@@ -343,7 +347,9 @@ FUNCTIONS = [
          "simulation still running after 5 seconds stops with an error that says how far it got.",
          "With \"pearson\" or \"g\" it estimates the exact p-value of that statistic, which can differ from "
          "ASSOC.EXACT's: the exact test orders tables by their probability. With \"exact\" it orders them the same "
-         "way, so it estimates ASSOC.EXACT's p-value where the exact test is out of reach."],
+         "way, so it estimates ASSOC.EXACT's p-value where the exact test is out of reach.",
+         "Since the same counts, trials, seed and method always give the same result, it is remembered while "
+         "LibreOffice runs: recalculating or reopening a sheet does not simulate an unchanged table again."],
         "=ASSOC.SIMULATE(A1:D4; 100000; 7)"),
     Function(
         "ASSOC.ODDSRATIO", "oddsratio",
@@ -388,7 +394,9 @@ FUNCTIONS = [
                                          "which lowers the degrees of freedom; 0 when omitted.", default=0)],
         "row", "one row: the p-value, the statistic X², the degrees of freedom; a plain entry shows the p-value",
         ["The degrees of freedom are the categories − 1 − estimated. A category expected to have no counts "
-         "must have none, and is then left out."],
+         "must have none, and is then left out. Expected values under a label that speaks of percentages "
+         "(\"Plan %\") must add up to 100 (within 1, for rounding): otherwise a category is missing or a value "
+         "mistyped, and they are an error rather than rescaled."],
         "=ASSOC.FIT(B2:B5; C2:C5)"),
     Function(
         "ASSOC.POWER", "power",
@@ -480,8 +488,9 @@ FUNCTIONS = [
          "(ASSOC.CHECK with \"strata\" names them). ASSOC.HOMOGENEITY tests whether one common odds ratio fits "
          "all strata.",
          "In stacked tables the labels tell which rows form a stratum: a first label column that names the "
-         "strata (blank meaning \"as above\"), a stratum's name on its first row, its name on each of its rows, "
-         "or group labels that repeat (Women, Men, Women, Men). A stratum that does not have exactly 2 rows is "
+         "strata (its name on the stratum's first row, the rows below blank or repeating the name), a stratum's "
+         "name on its first row, its name on each of its rows, or group labels that repeat (Women, Men, Women, "
+         "Men). A stratum name that comes back after another stratum is an error. A stratum that does not have exactly 2 rows is "
          "an error that names it and its rows; a stratum whose groups come in the other order is matched by "
          "their labels. Without labels (or with labels that are all different) the rows are taken two by two, "
          "and ASSOC.CHECK says so when there are labels. Rows labelled as totals are left out.",
@@ -554,7 +563,8 @@ FUNCTIONS = [
         ["A header in the first cells is left out, and so are the blank cells after the last group (whole columns "
          "such as B:B may be given); the result has one row per group below the header. A group whose two cells "
          "are blank, or with 0 considered, has no selection rate: its row is left empty with its reason, and the "
-         "other groups are compared.",
+         "other groups are compared. A first or last group that holds the sums of at least 2 other groups in both "
+         "ranges is a total, and an error: leave the total row out of the ranges.",
          "The four-fifths rule of thumb comes from the US Uniform Guidelines on Employee Selection Procedures, "
          "29 CFR 1607.4(D). It is a screening rule, not a test: with few people a large difference can be "
          "chance, and with many a small one can matter. Follow applicable law and policy and seek qualified "
@@ -608,7 +618,8 @@ FUNCTIONS = [
          "conclusion explains it.",
          "The exact p-value is computed when the counts are whole and the test finishes within 2 seconds and "
          "100 MB of memory; otherwise its line says why not (ASSOC.EXACT allows 5 seconds and 400 MB, "
-         "ASSOC.SIMULATE estimates the p-value). A statistic above 1.8e308, the largest spreadsheet number, "
+         "ASSOC.SIMULATE estimates the p-value). Like ASSOC.EXACT's, the exact line is remembered for an "
+         "unchanged table while LibreOffice runs. A statistic above 1.8e308, the largest spreadsheet number, "
          "is written in words on its line. The cells "
          "that stand out are the (at most 3) cells with the largest adjusted residuals beyond ±2, named by "
          "their labels (or by their row and column in the range); in a table of two columns (rows) only the "
@@ -760,7 +771,9 @@ ORDERED_FUNCTIONS = [
          "stratum may leave out a row label (its counts are then 0). Strata with fewer than 2 rows or 2 columns "
          "holding counts add nothing and are set aside, and so are rows and columns that hold counts only in such "
          "strata; ASSOC.CHECK with \"within\" names them. With 2 rows and 2 columns in every stratum the statistic "
-         "is that of ASSOC.STRATA with \"uncorrected\"."],
+         "is that of ASSOC.STRATA with \"uncorrected\". Rows whose row or stratum label names a total (\"Total\", "
+         "\"All\") and count columns headed as totals are set aside, and ASSOC.CHECK says so: a total is not more "
+         "people."],
         "=ASSOC.WITHIN(A1:F10)"),
     Function(
         "ASSOC.REPEATED", "repeated",

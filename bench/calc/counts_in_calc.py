@@ -71,9 +71,8 @@ class BenchOffice(assoc_office.ThrowawayOffice):
             self.oxt = package
             super()._install_extension()
 
-    def cpu_seconds(self):
-        """CPU time of the office's processes (utime + stime, which include threads that have ended)."""
-        total = 0
+    def processes(self):
+        """(pid, fields of /proc/PID/stat after the name) of every process in the office's process group."""
         for entry in os.listdir("/proc"):
             if not entry.isdigit():
                 continue
@@ -83,8 +82,11 @@ class BenchOffice(assoc_office.ThrowawayOffice):
             except OSError:
                 continue  # a process that ended meanwhile
             if int(fields[2]) == self.process.pid:  # its process group
-                total += int(fields[11]) + int(fields[12])
-        return total / CLOCK_TICKS
+                yield entry, fields
+
+    def cpu_seconds(self):
+        """CPU time of the office's processes (utime + stime, which include threads that have ended)."""
+        return sum(int(fields[11]) + int(fields[12]) for _, fields in self.processes()) / CLOCK_TICKS
 
 
 def column_name(index):

@@ -22,8 +22,10 @@ constexpr double max_df = 1e10;
 
 void check_df(double df) {
     require(!std::isnan(df), "the degrees of freedom are not a number; they must be a number above 0");
-    require(df > 0, "the degrees of freedom must be above 0, not " + format_number(df));
-    require(df <= max_df, "the degrees of freedom must be at most " + format_count(max_df) + ", not " + format_number(df));
+    // Messages with numbers are built only on failure: this runs for every p-value of a sheet.
+    if (!(df > 0)) throw Error("the degrees of freedom must be above 0, not " + format_number(df));
+    if (!(df <= max_df))
+        throw Error("the degrees of freedom must be at most " + format_count(max_df) + ", not " + format_number(df));
 }
 
 // ln Q(a, y), the regularised upper incomplete gamma function, for y > a + 1, where Q may be far
@@ -73,7 +75,7 @@ double critical_value_far_out(double df, double alpha) {
 double chi_squared_p_value(double statistic, double df) {
     check_df(df);
     require(!std::isnan(statistic), "the chi-squared statistic is not a number; it must be a number of 0 or more");
-    require(statistic >= 0, "a chi-squared statistic must be 0 or more, not " + format_number(statistic));
+    if (!(statistic >= 0)) throw Error("a chi-squared statistic must be 0 or more, not " + format_number(statistic));
     if (std::isinf(statistic)) return 0.0;
     // Far below the mean, the lower tail P(X < x) ≤ (x/2)^(df/2) / Γ(df/2 + 1) is under 2^-54,
     // so the p-value is 1 to the last digit. Boost's series for such points overflow in

@@ -78,6 +78,12 @@ inline double product_over(const DoubleDouble& x, const DoubleDouble& y, const D
 struct TableMargins {
     std::vector<DoubleDouble> rows, columns;
     DoubleDouble total;
+    // Whole counts whose total is at most 2^53 (the common case): every margin and every factor of
+    // a numerator is a whole double, their products (below 2^106) are exact double-doubles and
+    // nothing can overflow or underflow, so scaling by powers of two would change no bit of any
+    // result; it is skipped (it cost four times the rest for a small table, and every
+    // ASSOC.PVALUE cell of a sheet runs this).
+    bool whole_below_2_53 = false;
 
     // O·n − R·C for the count `observed` in row r, column c, as the determinant O·S − R̂·C̄ of the
     // table collapsed around the cell: R̂ = R − O (the rest of its row), C̄ = C − O (the rest of its
@@ -90,11 +96,16 @@ struct TableMargins {
         const DoubleDouble o{observed, 0.0};
         const DoubleDouble row_rest = rows[r] - o, column_rest = columns[c] - o;
         const DoubleDouble others = (total - rows[r]) - column_rest;
+        if (whole_below_2_53)
+            return {exact_product(o.hi, others.hi) - exact_product(row_rest.hi, column_rest.hi), 0};
         return difference_of_products(o, others, row_rest, column_rest);
     }
 
     // A numerator divided by n: accurate to about 1.5 units in the last place.
-    double over_total(const Scaled& numerator) const { return divided(numerator, total); }
+    double over_total(const Scaled& numerator) const {
+        if (whole_below_2_53) return numerator.value.value() / total.hi;  // the exponent is 0
+        return divided(numerator, total);
+    }
 
     // O − E.
     double deviation(double observed, std::size_t r, std::size_t c) const {
@@ -102,7 +113,10 @@ struct TableMargins {
     }
 
     // E = R·C/n; it is never a difference, so double precision is all it needs.
-    double expected(std::size_t r, std::size_t c) const { return product_over(rows[r], columns[c], total); }
+    double expected(std::size_t r, std::size_t c) const {
+        if (whole_below_2_53) return rows[r].hi * columns[c].hi / total.hi;
+        return product_over(rows[r], columns[c], total);
+    }
 
     // (|O·n − R·C| − n/2)/n = |O − E| − ½ without the cancellation of forming O − E first (the
     // Yates correction); negative when |O − E| < ½.
@@ -141,6 +155,7 @@ inline TableMargins table_margins(const CountTable& table) {
         for (std::size_t r = 0; r < table.rows(); ++r) margins.rows[r].hi = table.row_total(r);
         for (std::size_t c = 0; c < table.columns(); ++c) margins.columns[c].hi = table.column_total(c);
         margins.total.hi = total;
+        margins.whole_below_2_53 = true;
         return margins;
     }
     for (std::size_t r = 0; r < table.rows(); ++r)

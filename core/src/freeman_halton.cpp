@@ -26,13 +26,18 @@
 //
 // The work cap (ExactLimits) holds throughout: every vector and hash-map node the algorithm keeps
 // is counted in bytes before it is allocated, and the clock is read every few thousand steps of
-// every loop whose length is not already bounded by the memory counted.
+// every loop whose length is not already bounded by the memory counted. And a table that cannot
+// finish within the cap is refused as soon as that shows, not when the cap is reached: each stage
+// counts its work before doing it, and a forecast of the time still needed is checked against
+// what is left (see "The forecast" below; bench/exact_refusal_validation.cpp
+// measures how early it refuses and that it does not refuse tables that would finish).
 #include "freeman_halton.hpp"
 
 #include <algorithm>
 #include <chrono>
 #include <cmath>
 #include <cstdint>
+#include <ctime>
 #include <functional>
 #include <limits>
 #include <new>
@@ -122,7 +127,8 @@ private:
 
 class Network {
 public:
-    Network(const Matrix& counts, const ExactLimits& limits) : limits_(limits), start_(Clock::now()) {
+    Network(const Matrix& counts, const ExactLimits& limits)
+        : limits_(limits), start_(Clock::now()), start_cpu_(cpu_now()) {
         const Matrix table = counts.rows() > counts.columns() ? counts.transposed() : counts;
         // The total first: the counts fit in `unsigned` only once it is known to be small.
         double n = 0;
@@ -167,6 +173,7 @@ public:
             log_column_factorials_from_[k] = log_column_factorials_from_[k + 1] + log_factorial_[columns_[k]];
         meeting_ = columns_.size() - std::min(backward_columns(), columns_.size() - 1);
         futures_.resize(columns_.size() - meeting_);
+        future_sizes_.resize(columns_.size() - meeting_);
         fill_.resize(row_count_);
         capacity_.resize(row_count_ + 1);
         child_.resize(row_count_);
@@ -187,34 +194,75 @@ public:
         push(stage[root_].pasts, Past{0.0, 1.0});
         for (std::size_t k = 0; k < meeting; ++k) {
             const bool last = k + 1 == meeting;
-            Stage next;
+            // The plan of the stage: every node's pasts merged, those the cheap bounds settle taken
+            // out, and the work left counted (pasts × fills of the column), before any of it is done.
+            struct Task {
+                const NodeKey* node;
+                std::vector<Past>* pasts;
+                std::size_t first, end;
+                double units;
+                std::size_t fills_from, fills_to;  // its fills in planned_fills_ (last stage), or none
+            };
+            std::vector<Task> tasks;
+            reserve_for(tasks, stage.size());
+            double units = 0;
             for (auto& [node, entry] : stage) {
                 std::vector<Past>& pasts = entry.pasts;
                 merge_equal_values(pasts);
+                const auto [first, end] = split_by_bounds(pasts, bounds_of(k, node), log_total_future(k, node));
+                if (first == end) {
+                    release(pasts);
+                    continue;
+                }
+                // Fills past twice what the forecast allows need not be counted: the stage is refused.
+                const double enough = 2 * limits_.max_seconds / early_forward_rate / static_cast<double>(end - first) + 1;
+                const double fills = count_fills(node, columns_[k], enough);
+                // The last stage's fills are enumerated here, once, within a share of the memory,
+                // so that the futures they lead to are counted before any is built.
+                const std::size_t fills_from = planned_fills_.size();
+                std::size_t fills_to = fills_from;
+                if (last && (static_cast<double>(fills_from) + fills) * sizeof(Fill) <=
+                                static_cast<double>(limits_.max_memory_bytes) / 8) {
+                    collect_fills(k, node, planned_fills_);
+                    fills_to = planned_fills_.size();
+                    for (std::size_t i = fills_from; i < fills_to; ++i) future_size(k + 1, planned_fills_[i].child);
+                }
+                tasks.push_back(Task{&node, &pasts, first, end, static_cast<double>(end - first) * fills, fills_from,
+                                     fills_to});
+                units += tasks.back().units;
+            }
+            begin_stage(k, units, last);
+            Stage next;
+            double units_before = 0;
+            for (const Task& task : tasks) {
+                std::vector<Past>& pasts = *task.pasts;
                 if (last) {
-                    settle_before_meeting(k, node, pasts);
+                    settle_before_meeting(k, *task.node, pasts, task.first, task.end, task.fills_from, task.fills_to);
                 } else {
-                    // Plain variables, not structured bindings: C++17 does not let a lambda capture those.
-                    std::size_t first = 0, end = 0;
-                    std::tie(first, end) = split_by_bounds(pasts, bounds_of(k, node), log_total_future(k, node));
-                    if (first < end)
-                        for_each_fill(node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
-                            const auto [place, inserted] = next.try_emplace(child);
-                            if (inserted) take(node_bytes);
-                            NodePasts& target = place->second;
-                            reserve_for(target.pasts, target.pasts.size() + (end - first));
-                            for (std::size_t i = first; i < end; ++i)
-                                target.pasts.push_back(Past{pasts[i].log_value + fill_value, pasts[i].mass * arrangements});
-                            // A merge keeps the vector's capacity, so the bytes stay counted.
-                            if (target.pasts.size() >= target.merge_at) {
-                                merge_equal_values(target.pasts);
-                                target.merge_at = std::max<std::size_t>(4096, 2 * target.pasts.size());
-                            }
-                            if ((work_ += end - first) > next_time_check_) check_time();
-                        });
+                    const std::size_t first = task.first, end = task.end;
+                    for_each_fill(*task.node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
+                        const auto [place, inserted] = next.try_emplace(child);
+                        if (inserted) take(node_bytes);
+                        NodePasts& target = place->second;
+                        reserve_for(target.pasts, target.pasts.size() + (end - first));
+                        for (std::size_t i = first; i < end; ++i)
+                            target.pasts.push_back(Past{pasts[i].log_value + fill_value, pasts[i].mass * arrangements});
+                        // A merge keeps the vector's capacity, so the bytes stay counted.
+                        if (target.pasts.size() >= target.merge_at) {
+                            merge_equal_values(target.pasts);
+                            target.merge_at = std::max<std::size_t>(4096, 2 * target.pasts.size());
+                        }
+                        units_done_ += static_cast<double>(end - first);
+                        if ((work_ += end - first) > next_time_check_) check_time();
+                    });
                 }
                 release(pasts);
+                units_before += task.units;
+                units_done_ = units_before;
             }
+            end_stage();
+            release(tasks);
+            release(planned_fills_);
             give_back(stage.size() * node_bytes);
             stage.swap(next);
         }
@@ -254,28 +302,34 @@ private:
 
     // A node three columns from the end: each fill of its column leads to a node whose futures
     // are a sorted list, so every past is settled there by binary search, without storing it again.
-    void settle_before_meeting(std::size_t k, const NodeKey& node, const std::vector<Past>& pasts) {
-        // The cheap bounds first: when they settle every past, the fills need not be enumerated.
+    // The pasts in [cheap_first, cheap_end) are those the cheap bounds did not settle; the node's
+    // fills are planned_fills_[fills_from, fills_to) when the plan kept them, else enumerated here.
+    void settle_before_meeting(std::size_t k, const NodeKey& node, const std::vector<Past>& pasts,
+                               std::size_t cheap_first, std::size_t cheap_end, std::size_t fills_from,
+                               std::size_t fills_to) {
         const double log_total = log_total_future(k, node);
-        const auto [cheap_first, cheap_end] = split_by_bounds(pasts, bounds_of(k, node), log_total);
-        if (cheap_first == cheap_end) return;
+        const bool planned = fills_from < fills_to;
+        if (!planned) {
+            scratch_fills_.clear();  // it keeps its capacity, which stays counted
+            collect_fills(k, node, scratch_fills_);
+            fills_from = 0;
+            fills_to = scratch_fills_.size();
+        }
+        const std::vector<Fill>& fills = planned ? planned_fills_ : scratch_fills_;
         struct Child {
             const FutureList* futures;
             double fill_value;
             double log_arrangements;
         };
         std::vector<Child> children;
-        for_each_fill(node, columns_[k], [&](const NodeKey& child, double fill_value, double arrangements) {
-            push(children, Child{nullptr, fill_value, std::log(arrangements)});
-            push(pending_, child);  // pending_ keeps its capacity, which stays counted
-        });
+        reserve_for(children, fills_to - fills_from);
         Bounds bounds{minus_infinity, std::numeric_limits<double>::infinity()};
-        for (std::size_t c = 0; c < children.size(); ++c) {
-            children[c].futures = &futures_of(k + 1, pending_[c]);
-            bounds.largest = std::max(bounds.largest, children[c].fill_value + children[c].futures->log_values.back());
-            bounds.smallest = std::min(bounds.smallest, children[c].fill_value + children[c].futures->log_values.front());
+        for (std::size_t i = fills_from; i < fills_to; ++i) {
+            const Fill& fill = fills[i];
+            children.push_back(Child{&futures_of(k + 1, fill.child), fill.value, fill.log_arrangements});
+            bounds.largest = std::max(bounds.largest, fill.value + children.back().futures->log_values.back());
+            bounds.smallest = std::min(bounds.smallest, fill.value + children.back().futures->log_values.front());
         }
-        pending_.clear();
         const auto [first, end] = split_by_bounds(pasts, cheap_first, cheap_end, bounds, log_total);
         if (first == end) {
             release(children);
@@ -310,6 +364,7 @@ private:
             if (linear && sum > 0)
                 result_.add(log_k_ + child.fill_value + child.log_arrangements + log_weighted_max +
                             futures.log_prefix_mass.back() + std::log(sum));
+            units_done_ += static_cast<double>(cheap_end - cheap_first);
             if ((work_ += end - first) > next_time_check_) check_time();
         }
         give_back(weight_bytes);
@@ -443,8 +498,11 @@ private:
     const FutureList& futures_of(std::size_t k, const NodeKey& node) {
         auto& memo = futures_[k - meeting_];
         if (auto found = memo.find(node); found != memo.end()) return found->second;
+        const bool outermost = futures_depth_++ == 0;
+        const double started = outermost ? cpu_seconds() : 0.0;
         // The values arrive with their bytes counted; they are given back once the list is built.
         std::vector<Past> values = k + 2 == columns_.size() ? last_two_columns(node) : combined_futures(k, node);
+        built_future_values_ += static_cast<double>(values.size());
         merge_equal_values(values);
         take(future_node_bytes() + 4 * values.size() * sizeof(double));
         FutureList list;
@@ -463,6 +521,7 @@ private:
         }
         for (double log_mass : list.log_prefix_mass) list.prefix_share.push_back(std::exp(log_mass - list.log_prefix_mass.back()));
         release(values);
+        if (--futures_depth_ == 0 && outermost) futures_seconds_ += cpu_seconds() - started;
         return memo.emplace(node, std::move(list)).first->second;
     }
 
@@ -582,10 +641,169 @@ private:
         return map_node_bytes<std::unordered_map<NodeKey, FutureList, NodeKeyHash>>() + 4 * 2 * sizeof(void*);
     }
 
+    double elapsed() const { return std::chrono::duration<double>(Clock::now() - start_).count(); }
+    // Processor seconds of this thread (POSIX); where that clock is missing, of the process.
+    static double cpu_now() {
+#if defined(CLOCK_THREAD_CPUTIME_ID)
+        timespec now{};
+        clock_gettime(CLOCK_THREAD_CPUTIME_ID, &now);
+        return static_cast<double>(now.tv_sec) + static_cast<double>(now.tv_nsec) * 1e-9;
+#else
+        return static_cast<double>(std::clock()) / CLOCKS_PER_SEC;
+#endif
+    }
+    // Processor seconds spent on the test so far.
+    double cpu_seconds() const { return cpu_now() - start_cpu_; }
+
+    // The number of fills for_each_fill(node, total) visits (one per arrangement class), counted
+    // without building them: the last two rows are counted in closed form. Stops counting once the
+    // count reaches `enough`.
+    double count_fills(const NodeKey& node, unsigned total, double enough) {
+        std::vector<unsigned> rows(row_count_);
+        unpack(node, rows.data());
+        const std::size_t length = length_of(rows);
+        if (length == 0) return total == 0 ? 1 : 0;
+        std::vector<unsigned> capacity(length + 1, 0);
+        for (std::size_t i = length; i-- > 0;) capacity[i] = capacity[i + 1] + rows[i];
+        double count = 0;
+        auto walk = [&](auto& self, std::size_t i, unsigned remaining, unsigned previous) -> void {
+            const bool same_group = i > 0 && rows[i] == rows[i - 1];
+            unsigned highest = std::min(rows[i], remaining);
+            if (same_group) highest = std::min(highest, previous);
+            unsigned lowest = remaining > capacity[i + 1] ? remaining - capacity[i + 1] : 0;
+            if (i + 1 == length) {
+                if (lowest <= highest) count += 1;
+                return;
+            }
+            if (i + 2 == length) {
+                // The last row takes what is left, which the lowest value already keeps within its
+                // total; within a group it must not exceed this row's value.
+                if (rows[i + 1] == rows[i]) lowest = std::max(lowest, (remaining + 1) / 2);
+                if (lowest <= highest) count += highest - lowest + 1;
+                return;
+            }
+            for (unsigned v = lowest; v <= highest && count < enough; ++v) {
+                if (++work_ > next_time_check_) check_time();
+                self(self, i + 1, remaining - v, v);
+            }
+        };
+        walk(walk, 0, total, 0);
+        return count;
+    }
+
+    // A fill of a column: the node it leads to, log ∏ 1/x_i!, and the log of its arrangements.
+    struct Fill {
+        NodeKey child;
+        double value;
+        double log_arrangements;
+    };
+
+    // Appends the fills of stage k's column at `node` to `fills`.
+    void collect_fills(std::size_t k, const NodeKey& node, std::vector<Fill>& fills) {
+        for_each_fill(node, columns_[k], [&](const NodeKey& child, double value, double arrangements) {
+            push(fills, Fill{child, value, std::log(arrangements)});
+        });
+    }
+
+    // A lower bound on the values futures_of(k, node) builds (the measure of its work), counted
+    // without building them (memoised): a list over the last two columns builds one value per fill
+    // of its column; a combined list at least one per fill (each list it is made of holds a value
+    // or more; how many survive the merging of equal values is not known in advance).
+    double future_size(std::size_t k, const NodeKey& node) {
+        auto& memo = future_sizes_[k - meeting_];
+        if (auto found = memo.find(node); found != memo.end()) return found->second;
+        double size = 0;
+        if (k + 2 == columns_.size()) {
+            size = count_fills(node, columns_[k], std::numeric_limits<double>::infinity());
+        } else {
+            std::vector<NodeKey> children;
+            for_each_fill(node, columns_[k], [&](const NodeKey& child, double, double) { push(children, child); });
+            for (const NodeKey& child : children) future_size(k + 1, child);
+            size = static_cast<double>(children.size());
+            release(children);
+        }
+        take(map_node_bytes<std::unordered_map<NodeKey, double, NodeKeyHash>>());
+        memo.emplace(node, size);
+        planned_future_values_ += size;
+        return size;
+    }
+
+    // ---- The forecast (ExactLimits::forecast): refusing at once what cannot finish in time ----
+    //
+    // Every stage is planned before it runs (p_value): its work is counted in units, one per past
+    // and fill of the column (a push of a forward stage, a search of the last stage), and the
+    // futures the last stage needs are counted in values. The forecast adds up what is left:
+    // - the current stage's units left, at its own pace so far: measured in processor time over
+    //   the last doubling of its progress once 2% of it is done (a stage's pace only slows as its
+    //   lists grow, so the rest takes at least that long); before that, at the pace of the last
+    //   forward stage but no slower than 15 ns a unit (small stages cost more per unit than large
+    //   ones, up to 16 times on the bench tables), or 1 ns a unit for the last stage;
+    // - for a forward stage of 100,000 units or more, as many more stages of the same cost as
+    //   forward stages remain (on the bench suite and random tables of its sizes each took 1.2 to
+    //   40 times as long as the one before);
+    // - the futures left to build, at their pace so far (20 ns a value before it is known);
+    // and refuses, with the limit's own message, as soon as that cannot fit in the time left. The
+    // processor time is turned into time on the clock by the share of it the test has had so far
+    // (at least a quarter).
+    // Each part is a lower estimate, so that a table that would finish is not refused; a table
+    // whose cost only shows late (many stages that grow slowly) is still refused at the limit.
+    void begin_stage(std::size_t k, double units, bool last) {
+        stage_ = k;
+        last_stage_ = last;
+        stage_units_ = units;
+        units_done_ = 0;
+        stage_started_ = cpu_seconds();
+        stage_futures_seconds_ = futures_seconds_;
+        window_units_ = 0;
+        window_seconds_ = 0;
+        check_forecast();
+    }
+
+    void end_stage() {
+        const double seconds = stage_seconds();
+        if (!last_stage_ && seconds >= 0.005 && stage_units_ > 0) forward_rate_ = seconds / stage_units_;
+    }
+
+    // Processor seconds of the current stage's own work (the futures it built taken out).
+    double stage_seconds() const {
+        return cpu_seconds() - stage_started_ - (futures_seconds_ - stage_futures_seconds_);
+    }
+
+    void check_forecast() {
+        if (!limits_.forecast) return;
+        const double wall = elapsed(), cpu = cpu_seconds(), in_stage = stage_seconds();
+        // The pace over the last doubling of the stage's progress.
+        if (units_done_ >= 2 * window_units_) {
+            window_units_ = units_done_;
+            window_seconds_ = in_stage;
+        }
+        double rate = last_stage_ ? settle_rate : std::min(forward_rate_, early_forward_rate);
+        if (units_done_ >= 0.02 * stage_units_ && in_stage >= 0.01) {
+            rate = in_stage / units_done_;
+            const double window = units_done_ - window_units_;
+            if (window >= 0.01 * stage_units_ && in_stage - window_seconds_ >= 0.005)
+                rate = std::max(rate, (in_stage - window_seconds_) / window);
+        }
+        double seconds_left = std::max(0.0, stage_units_ - units_done_) * rate;
+        if (!last_stage_ && stage_units_ >= 1e5 && stage_ + 2 < meeting_)
+            seconds_left += static_cast<double>(meeting_ - 2 - stage_) * stage_units_ * rate;
+        const double futures_left = std::max(0.0, planned_future_values_ - built_future_values_);
+        const double future_rate =
+            built_future_values_ >= 1e5 ? futures_seconds_ / built_future_values_ : default_future_rate;
+        seconds_left += futures_left * future_rate;
+        // The share is taken as at least a quarter: a test starved of the processor for a moment
+        // (a busy machine) would otherwise see every remaining step magnified many times.
+        const double slowdown = cpu >= 0.05 ? std::clamp(wall / cpu, 1.0, max_slowdown) : 1.0;
+        if (wall + seconds_left * slowdown > limits_.max_seconds) fail("time");
+    }
+    static constexpr double early_forward_rate = 15e-9, settle_rate = 1e-9, default_future_rate = 20e-9;
+    static constexpr double max_slowdown = 4;
+
     void check_time() {
         next_time_check_ = work_ + (1u << 12);  // the clock is cheap; check often so limits hold closely
         const double seconds = std::chrono::duration<double>(Clock::now() - start_).count();
         if (seconds > limits_.max_seconds) fail("time");
+        check_forecast();
     }
 
     [[noreturn]] void fail(const char* resource) const { throw exact_limit_error(limits_, resource); }
@@ -597,6 +815,7 @@ private:
 
     ExactLimits limits_;
     Clock::time_point start_;
+    double start_cpu_;
     std::vector<double> log_factorial_;
     std::vector<unsigned> columns_;
     std::vector<double> log_column_factorials_from_;
@@ -605,11 +824,22 @@ private:
     double log_k_ = 0, threshold_ = 0;
     std::size_t meeting_ = 0;  // the first stage whose nodes keep all their futures
     std::vector<std::unordered_map<NodeKey, FutureList, NodeKeyHash>> futures_;
+    std::vector<std::unordered_map<NodeKey, double, NodeKeyHash>> future_sizes_;
     std::vector<unsigned> rows_, capacity_, fill_, child_;
-    std::vector<NodeKey> pending_;
+    std::vector<Fill> planned_fills_, scratch_fills_;
     std::size_t memory_ = 0;  // bytes of working memory held, as counted by take and give_back
     unsigned long long work_ = 0, next_time_check_ = 1u << 12;
     LogSum result_;
+    // Progress of the current stage, for the forecast.
+    double units_done_ = 0, stage_units_ = 0;
+    std::size_t futures_depth_ = 0;
+    double futures_seconds_ = 0;
+    double stage_started_ = 0, stage_futures_seconds_ = 0;
+    double forward_rate_ = early_forward_rate;
+    double planned_future_values_ = 0, built_future_values_ = 0;
+    std::size_t stage_ = 0;
+    bool last_stage_ = false;
+    double window_units_ = 0, window_seconds_ = 0;
 };
 
 }  // namespace

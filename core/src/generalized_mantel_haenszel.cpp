@@ -98,6 +98,7 @@ GeneralAssociationResult general_association_test(const LongStrata& data, const 
         else result.remarks.push_back("The " + named_line("column of counts", c, data.column_labels[c]) +
                                       " has no counts in the strata used and takes no part in the test.");
     }
+    for (const std::string& remark : data.remarks) result.remarks.push_back(remark);
     if (data.empty_rows > 0)
         result.remarks.push_back(std::to_string(data.empty_rows) + (data.empty_rows == 1 ? " empty row was" : " empty rows were") +
                                  " skipped.");

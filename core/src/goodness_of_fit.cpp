@@ -1,5 +1,6 @@
 #include "assoc/goodness_of_fit.hpp"
 
+#include <cctype>
 #include <cmath>
 #include <string>
 
@@ -8,6 +9,7 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "assoc/wording.hpp"
 #include "exact_margins.hpp"
 
 namespace assoc {
@@ -95,6 +97,37 @@ GoodnessOfFit goodness_of_fit(const std::vector<double>& observed, const std::ve
     return result;
 }
 
+namespace {
+
+// Expected values under a label that says they are percentages ("Expected %") must add up to 100:
+// otherwise a category is missing or a value mistyped, and rescaling them would test against shares
+// nobody meant. Rounding within 1 is allowed.
+void require_whole_percentages(const CellGrid& expected, const std::vector<double>& values) {
+    if (expected.empty() || !expected.at(0, 0).is_text()) return;
+    const std::string label = folded_label(expected.at(0, 0).as_text());
+    const auto has_word = [&](const char* word) {
+        const std::string w(word);
+        for (std::size_t at = label.find(w); at != std::string::npos; at = label.find(w, at + 1)) {
+            const bool starts = at == 0 || !std::isalpha(static_cast<unsigned char>(label[at - 1]));
+            const bool ends = at + w.size() == label.size() || !std::isalpha(static_cast<unsigned char>(label[at + w.size()]));
+            if (starts && ends) return true;
+        }
+        return false;
+    };
+    const bool percent = label.find('%') != std::string::npos || has_word("percent") || has_word("percentage") ||
+                         has_word("pct") || has_word("prozent") || has_word("pourcentage") || has_word("porcentaje") ||
+                         has_word("percentuale") || has_word("procent");
+    if (!percent) return;  // "shares" may be parts in any unit (9 : 3 : 3 : 1)
+    double sum = 0;
+    for (double value : values) sum += value;
+    if (std::fabs(sum - 100) <= 1) return;
+    throw Error("in the expected range: the percentages under the label " + quoted_label(expected.at(0, 0).as_text()) +
+                " add up to " + format_number(sum, 6) + ", not 100, so a category may be missing or a value mistyped; "
+                "correct them, or give expected counts under a label that does not speak of percentages");
+}
+
+}  // namespace
+
 GoodnessOfFit goodness_of_fit(const CellGrid& observed, const CellGrid& expected, double estimated) {
     const std::vector<double> observed_values = read_line(observed, true);
     std::vector<double> expected_values;
@@ -105,6 +138,7 @@ GoodnessOfFit goodness_of_fit(const CellGrid& observed, const CellGrid& expected
             // The reader's messages speak of counts; say which range they are about.
             throw Error(std::string("in the expected range: ") + error.what());
         }
+        require_whole_percentages(expected, expected_values);
     }
     return goodness_of_fit(observed_values, expected_values, estimated);
 }

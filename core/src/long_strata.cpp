@@ -8,6 +8,8 @@
 
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "assoc/wording.hpp"
+#include "total_lines.hpp"
 
 namespace assoc {
 namespace {
@@ -47,6 +49,12 @@ bool is_header(const CellGrid& range) {
 
 std::string quoted(const std::string& label) { return "\"" + label + "\""; }
 
+std::string capitalised_lines(const std::vector<std::size_t>& rows) {
+    std::string text = numbered_lines("row", rows);
+    if (!text.empty() && text[0] == 'r') text[0] = 'R';
+    return text;
+}
+
 }  // namespace
 
 LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
@@ -59,10 +67,23 @@ LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
     const bool header = is_header(range);
 
     LongStrata result;
-    result.column_labels.assign(categories, "");
+    // Count columns headed as totals are set aside; `kept` holds the others' positions.
+    std::vector<std::size_t> kept;
+    std::vector<std::string> total_columns;
+    for (std::size_t c = 0; c < categories; ++c) {
+        const Cell& name = range.at(0, c + 2);
+        if (header && name.is_text() && detail::is_total_label(name.as_text())) total_columns.push_back(quoted_label(name.as_text()));
+        else kept.push_back(c);
+    }
+    if (!total_columns.empty())
+        result.remarks.push_back("The column" + std::string(total_columns.size() == 1 ? " " : "s ") + name_list(total_columns) +
+                                 (total_columns.size() == 1 ? " is a total and was" : " are totals and were") + " set aside.");
+    require(kept.size() >= 2, "the range needs at least 2 columns of counts besides its totals");
+    result.column_labels.assign(kept.size(), "");
     if (header)
-        for (std::size_t c = 0; c < categories; ++c)
-            if (range.at(0, c + 2).is_text()) result.column_labels[c] = range.at(0, c + 2).as_text();
+        for (std::size_t c = 0; c < kept.size(); ++c)
+            if (range.at(0, kept[c] + 2).is_text()) result.column_labels[c] = range.at(0, kept[c] + 2).as_text();
+    std::vector<std::size_t> total_rows;  // 1-based rows of the range set aside as totals
 
     std::map<LabelKey, std::size_t> row_index;      // row label → its row in every stratum's table
     std::map<LabelKey, std::size_t> stratum_index;  // stratum label → its stratum
@@ -88,6 +109,11 @@ LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
             throw Error(range_row(r) + " has no stratum label in column 1; give every row its stratum's label (a blank "
                                        "is not read as the label above it)");
         if (row.is_blank()) throw Error(range_row(r) + " has no row label in column 2; every row of counts needs one");
+        if ((stratum.is_text() && detail::is_total_label(stratum.as_text())) ||
+            (row.is_text() && detail::is_total_label(row.as_text()))) {
+            total_rows.push_back(r + 1);
+            continue;
+        }
 
         const auto [found, is_new] = stratum_index.emplace(LabelKey(stratum), result.strata.size());
         if (is_new) {
@@ -118,7 +144,7 @@ LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
         }
         pending[k].rows.emplace_back(label, r);
 
-        for (std::size_t c = 0; c < categories; ++c) {
+        for (std::size_t c : kept) {
             const Cell& cell = range.at(r, c + 2);
             double value = 0.0;
             if (!cell.is_blank()) {
@@ -134,17 +160,22 @@ LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
             counts[k].push_back(value);
         }
     }
+    if (!total_rows.empty())
+        result.remarks.push_back(capitalised_lines(total_rows) + (total_rows.size() == 1 ? " is a total and was" : " are totals and were") +
+                                 " set aside (a row or stratum label that names a total).");
     require(!result.strata.empty(), "the range holds no rows of counts");
+    const std::size_t categories_kept = kept.size();
     const double cells = static_cast<double>(result.strata.size()) * static_cast<double>(result.row_labels.size()) *
-                         static_cast<double>(categories);
+                         static_cast<double>(categories_kept);
     require(cells <= static_cast<double>(max_cells),
             "the strata make " + format_count(cells) + " count cells (strata × row labels × columns); at most " +
                 format_count(static_cast<double>(max_cells)) + " can be read");
 
     for (std::size_t k = 0; k < result.strata.size(); ++k) {
-        Matrix table(result.row_labels.size(), categories);
+        Matrix table(result.row_labels.size(), categories_kept);
         for (std::size_t i = 0; i < pending[k].rows.size(); ++i)
-            for (std::size_t c = 0; c < categories; ++c) table(pending[k].rows[i].first, c) = counts[k][i * categories + c];
+            for (std::size_t c = 0; c < categories_kept; ++c)
+                table(pending[k].rows[i].first, c) = counts[k][i * categories_kept + c];
         result.strata[k].counts = std::move(table);
     }
     return result;

@@ -94,8 +94,11 @@ PairwiseComparisons pairwise_comparisons(const CountTable& table, PAdjustment ad
             } else {
                 const double spent = std::chrono::duration<double>(Clock::now() - start).count();
                 if (spent >= limits.max_seconds) throw pairs_limit_error(limits, pair);
+                // The caller's limits (its forecast too), with the time the earlier pairs left.
+                ExactLimits left = limits;
+                left.max_seconds -= spent;
                 try {
-                    pair.p_value = exact_p_value(two_rows, Side::two_sided, {limits.max_seconds - spent, limits.max_memory_bytes});
+                    pair.p_value = exact_p_value(two_rows, Side::two_sided, left);
                 } catch (const Error&) {
                     throw pairs_limit_error(limits, pair);
                 }

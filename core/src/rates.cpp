@@ -98,7 +98,8 @@ RowRates row_rates(const CellGrid& range, double confidence) {
 
     RowRates result;
     result.confidence = confidence;
-    result.remarks = table.reading_remarks();
+    result.remarks = table.doubts();
+    result.remarks.insert(result.remarks.end(), table.reading_remarks().begin(), table.reading_remarks().end());
     for (std::size_t r = 0; r < table.body_rows(); ++r) {
         RowRate row;
         row.name = names[r];

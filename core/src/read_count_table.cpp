@@ -65,6 +65,20 @@ std::string date_of_serial(double serial) {
     return std::to_string(day) + " " + names[month - 1] + " " + std::to_string(year);
 }
 
+// 0, 1, 2, … or 1, 2, 3, … along a first row or column of at least 3: the numbers of ordered
+// categories (courses taken, a rating) typed as numbers, or counts that happen to rise by one.
+template <class CellAt>
+bool looks_like_steps(std::size_t length, CellAt cell_at) {
+    if (length < 3) return false;
+    for (std::size_t i = 0; i < length; ++i) {
+        const Cell& cell = cell_at(i);
+        if (!cell.is_number()) return false;
+        const double start = cell_at(0).is_number() ? cell_at(0).as_number() : -1;
+        if ((start != 0 && start != 1) || cell.as_number() != start + static_cast<double>(i)) return false;
+    }
+    return true;
+}
+
 std::string plural(std::size_t n, const char* word) {
     return std::to_string(n) + " " + word + (n == 1 ? "" : "s");
 }
@@ -86,9 +100,9 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
     const std::size_t body_rows = range.rows() - first_body_row;
     const std::size_t body_columns = range.columns() - first_body_column;
     require(body_rows > 0 && body_columns > 0, "the range holds only labels and no counts");
-    require(body_rows <= options.max_body_cells / body_columns,
-            "the table has " + format_count(static_cast<double>(body_rows) * static_cast<double>(body_columns)) +
-                " count cells; Assoc reads at most " + format_count(static_cast<double>(options.max_body_cells)));
+    if (body_rows > options.max_body_cells / body_columns)
+        throw Error("the table has " + format_count(static_cast<double>(body_rows) * static_cast<double>(body_columns)) +
+                    " count cells; Assoc reads at most " + format_count(static_cast<double>(options.max_body_cells)));
 
     // Without a header row, text in row 1 next to numbers is a mistake to report as such:
     // a header row must hold only labels.
@@ -130,23 +144,38 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
         }
     }
 
-    const std::string years_hint = " holds whole numbers that look like years, and they were read as counts; if they "
-                                   "are labels, enter them as text (type an apostrophe first: '2024) or add a text header";
-    // A date arrives as its day count whatever the cell shows, so the remark names the day it stands for.
-    const auto dates_hint = [](double first) {
-        return " holds whole numbers that look like dates (a spreadsheet stores a date as its day count: " +
-               format_count(first) + " is " + date_of_serial(first) +
-               "), and they were read as counts; if they are labels, enter them as text or add a text header";
-    };
-    const auto remark_on_line = [&](const std::string& line, std::size_t length, auto cell_at) {
-        if (looks_like_labels(length, cell_at, 1900, 2100)) table.reading_remarks_.push_back(line + years_hint + ".");
-        else if (looks_like_labels(length, cell_at, first_date_serial, last_date_serial))
-            table.reading_remarks_.push_back(line + dates_hint(cell_at(0).as_number()) + ".");
+    // Numbers that look like labels, read as counts: doubts (never "Sound"), said after the totals'.
+    // The words are put together only when said (a string built here would cost allocations on every
+    // call, and thousands of ASSOC.PVALUE cells each read a small table).
+    std::vector<std::string> label_doubts;
+    const auto doubt_numbers_as_labels = [&](const char* line, std::size_t length, auto cell_at) {
+        if (looks_like_labels(length, cell_at, 1900, 2100)) {
+            label_doubts.push_back(std::string(line) +
+                                   " holds whole numbers that look like years, and they were read as counts; if they "
+                                   "are labels, enter them as text (type an apostrophe first: '2024) or add a text header.");
+        } else if (looks_like_labels(length, cell_at, first_date_serial, last_date_serial)) {
+            // A date arrives as its day count whatever the cell shows, so the doubt names the day it stands for.
+            const double first = cell_at(0).as_number();
+            label_doubts.push_back(std::string(line) + " holds whole numbers that look like dates (a spreadsheet stores "
+                                   "a date as its day count: " + format_count(first) + " is " + date_of_serial(first) +
+                                   "), and they were read as counts; if they are labels, enter them as text or add a "
+                                   "text header.");
+        } else if (looks_like_steps(length, cell_at)) {
+            const double start = cell_at(0).as_number();
+            const std::string list = format_count(start) + ", " + format_count(start + 1) + ", " + format_count(start + 2) +
+                                     (length > 3 ? ", …" : "");
+            label_doubts.push_back(std::string(line) + " holds the whole numbers " + list +
+                                   ", which look like the numbers of ordered categories (0, 1, 2, … or 1, 2, 3, …), and "
+                                   "they were read as counts; if they are labels, enter them as text (type an apostrophe "
+                                   "first: '1) or add a text header.");
+        }
     };
     if (!header_row)
-        remark_on_line("Row 1", body_columns, [&](std::size_t c) -> const Cell& { return range.at(0, first_body_column + c); });
+        doubt_numbers_as_labels("Row 1", body_columns,
+                                [&](std::size_t c) -> const Cell& { return range.at(0, first_body_column + c); });
     if (!header_column)
-        remark_on_line("Column 1", body_rows, [&](std::size_t r) -> const Cell& { return range.at(first_body_row + r, 0); });
+        doubt_numbers_as_labels("Column 1", body_rows,
+                                [&](std::size_t r) -> const Cell& { return range.at(first_body_row + r, 0); });
 
     table.has_column_labels_ = header_row;
     table.has_row_labels_ = header_column;
@@ -159,18 +188,20 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
 
     // Totals and percentages: what the author did not mean as counts.
     detail::TotalLines totals;
-    totals.rows.assign(body_rows, false);
-    totals.columns.assign(body_columns, false);
-    if (options.find_totals) {
+    if (!options.find_totals) {
+        totals.rows.assign(body_rows, false);
+        totals.columns.assign(body_columns, false);
+    } else {
         const detail::BodySide rows{"row", "column", &table.body_row_labels_, header_column, first_body_row + 1};
         const detail::BodySide columns{"column", "row", &table.body_column_labels_, header_row, first_body_column + 1};
-        totals = detail::find_total_lines(body, rows, columns, options.distinct_labels);
+        totals = detail::find_total_lines(body, rows, columns, options.distinct_labels, options.counts_only);
         table.doubts_ = totals.doubts;
     }
+    for (std::string& doubt : label_doubts) table.doubts_.push_back(std::move(doubt));
     if (options.counts_only)
         for (std::string& doubt : detail::refuse_percentages(body, totals.rows, totals.columns))
             table.doubts_.push_back(std::move(doubt));
-    table.finish(body, options, totals.rows, totals.columns);
+    table.finish(std::move(body), options, totals.rows, totals.columns);
     return table;
 }
 
@@ -179,7 +210,8 @@ CountTable CountTable::from_counts(const Matrix& counts, const ReadOptions& opti
     for (std::size_t r = 0; r < counts.rows(); ++r)
         for (std::size_t c = 0; c < counts.columns(); ++c) {
             const double value = counts(r, c);
-            require(std::isfinite(value) && value >= 0,
+            if (!(std::isfinite(value) && value >= 0))
+                throw Error(
                     "row " + std::to_string(r + 1) + ", column " + std::to_string(c + 1) +
                         " holds " + Cell::number(value).describe() + "; counts must be numbers of zero or more");
         }
@@ -191,20 +223,30 @@ CountTable CountTable::from_counts(const Matrix& counts, const ReadOptions& opti
 }
 
 // Sets aside total lines and all-zero rows and columns, then fills the totals of what is kept.
-void CountTable::finish(const Matrix& body, const ReadOptions& options, const std::vector<bool>& total_rows,
+void CountTable::finish(Matrix body, const ReadOptions& options, const std::vector<bool>& total_rows,
                         const std::vector<bool>& total_columns) {
-    body_ = body;
-    body_rows_ = body.rows();
-    body_columns_ = body.columns();
-    std::vector<double> body_row_totals(body_rows_, 0.0), body_column_totals(body_columns_, 0.0);
+    body_ = std::move(body);  // kept, not copied: a sheet may read thousands of small tables
+    body_rows_ = body_.rows();
+    body_columns_ = body_.columns();
+    // The body's row and column totals, in one block (one allocation fewer for each table read).
+    std::vector<double> body_totals(body_rows_ + body_columns_, 0.0);
+    double* const body_row_totals = body_totals.data();
+    double* const body_column_totals = body_totals.data() + body_rows_;
     for (std::size_t r = 0; r < body_rows_; ++r)
         for (std::size_t c = 0; c < body_columns_; ++c) {
             if (total_rows[r] || total_columns[c]) continue;
-            const double value = body(r, c);
+            const double value = body_(r, c);
             body_row_totals[r] += value;
             body_column_totals[c] += value;
             whole_counts_ = whole_counts_ && value == std::floor(value);
         }
+    // Room for everything at once: a sheet may read thousands of small tables per recalculation.
+    kept_rows_.reserve(body_rows_);
+    kept_columns_.reserve(body_columns_);
+    category_rows_.reserve(body_rows_);
+    category_columns_.reserve(body_columns_);
+    row_labels_.reserve(body_rows_);
+    column_labels_.reserve(body_columns_);
     for (std::size_t r = 0; r < body_rows_; ++r) {
         if (!total_rows[r]) category_rows_.push_back(r);
         if (total_rows[r]) set_aside_rows_.push_back({r, body_row_labels_[r], SetAside::Why::total, range_row(r)});
@@ -231,8 +273,8 @@ void CountTable::finish(const Matrix& body, const ReadOptions& options, const st
             if (!parts.empty()) message += " (" + name_list(parts) + " set aside)";
             return message + "; a test of association needs at least 2 rows and 2 columns with counts";
         };
-        require(kept_rows_.size() >= 2, shortfall(kept_rows_.size(), set_aside_rows_, "row"));
-        require(kept_columns_.size() >= 2, shortfall(kept_columns_.size(), set_aside_columns_, "column"));
+        if (kept_rows_.size() < 2) throw Error(shortfall(kept_rows_.size(), set_aside_rows_, "row"));
+        if (kept_columns_.size() < 2) throw Error(shortfall(kept_columns_.size(), set_aside_columns_, "column"));
     }
 
     counts_ = Matrix(kept_rows_.size(), kept_columns_.size());
@@ -241,7 +283,7 @@ void CountTable::finish(const Matrix& body, const ReadOptions& options, const st
     for (std::size_t r = 0; r < kept_rows_.size(); ++r) {
         row_totals_[r] = body_row_totals[kept_rows_[r]];
         row_labels_.push_back(body_row_labels_[kept_rows_[r]]);
-        for (std::size_t c = 0; c < kept_columns_.size(); ++c) counts_(r, c) = body(kept_rows_[r], kept_columns_[c]);
+        for (std::size_t c = 0; c < kept_columns_.size(); ++c) counts_(r, c) = body_(kept_rows_[r], kept_columns_[c]);
     }
     for (std::size_t c = 0; c < kept_columns_.size(); ++c) {
         column_totals_[c] = body_column_totals[kept_columns_[c]];

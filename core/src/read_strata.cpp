@@ -75,11 +75,26 @@ void require_pairs(const std::vector<Block>& blocks, const std::vector<std::stri
                 "out or combine the other rows");
 }
 
-// Blocks from names on some rows: a name starts a stratum and the blank rows below it belong to it.
-std::vector<Block> blocks_from_names(const std::vector<std::string>& names) {
+// Blocks from names on some rows or on every row: a name starts a stratum, and the rows below it that
+// are blank or repeat its name belong to it. A name that comes back after another stratum is refused
+// (joining its rows or splitting the stratum would both be a guess).
+std::vector<Block> blocks_from_names(const std::vector<std::string>& names, const std::vector<std::size_t>& numbers) {
     std::vector<Block> blocks;
     for (std::size_t i = 0; i < names.size(); ++i) {
-        if (!names[i].empty() || blocks.empty()) blocks.push_back({{}, names[i]});
+        const bool continues = !blocks.empty() && (names[i].empty() || folded_label(names[i]) == folded_label(blocks.back().name));
+        if (!continues) {
+            if (names[i].empty()) {  // the first rows without a name: a stratum of their own, refused by its size
+                blocks.push_back({{}, names[i]});
+                blocks.back().rows.push_back(i);
+                continue;
+            }
+            for (const Block& earlier : blocks)
+                if (folded_label(earlier.name) == folded_label(names[i]))
+                    throw Error("the stratum " + quoted_label(names[i]) + " comes back at row " + std::to_string(numbers[i]) +
+                                " after rows of another stratum; keep each stratum's rows together (sort the range by "
+                                "its first column)");
+            blocks.push_back({{}, names[i]});
+        }
         blocks.back().rows.push_back(i);
     }
     return blocks;
@@ -170,7 +185,7 @@ Strata read_strata(const CellGrid& given) {
             require(rows == 0 || !stratum_names[0].empty(),
                     "row " + std::to_string(numbers.empty() ? 1 : numbers[0]) +
                         " has no stratum name in the first label column, and there is none above it to go by");
-            blocks = blocks_from_names(stratum_names);
+            blocks = blocks_from_names(stratum_names, numbers);
             // A stratum named as a total (the rows of all strata together) is no stratum.
             std::vector<Block> kept;
             for (Block& block : blocks) {
@@ -181,7 +196,7 @@ Strata read_strata(const CellGrid& given) {
             blocks = std::move(kept);
             require_pairs(blocks, labels, numbers, "the strata are told apart by the first label column");
         } else if (any_label && !all_labelled && !labels[0].empty()) {
-            blocks = blocks_from_names(labels);
+            blocks = blocks_from_names(labels, numbers);
             require_pairs(blocks, labels, numbers,
                           "the strata are told apart by their names in the label column (a name starts a stratum)");
         } else if (all_labelled) {

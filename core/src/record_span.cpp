@@ -1,7 +1,6 @@
 #include "record_span.hpp"
 
 #include <algorithm>
-#include <map>
 #include <set>
 #include <string_view>
 
@@ -30,29 +29,9 @@ bool unique_text_at_start(const CodedLabels& labels, std::size_t end) {
     return true;
 }
 
-// Whether a range drawn with its header looks so: its first cell is a text found nowhere else in
-// it, and the records below (positions 1 to end − 1) are either all numbers (at least 2), or hold at
-// least 2 labels that each come at least twice — as the records under a column's name do, and as a
-// rare first record (the only "Promoted" above many "Not promoted") does not.
-bool header_like(const CodedLabels& labels, std::size_t end) {
-    if (!unique_text_at_start(labels, end)) return false;
-    std::map<std::string_view, std::size_t> texts;
-    std::size_t records = 0, numbers = 0;
-    for (std::size_t i = 1; i < end && i < labels.codes.size(); ++i) {
-        const std::uint32_t code = labels.codes[i];
-        if (code == CodedLabels::blank) continue;
-        ++records;
-        if (is_text_code(labels, code)) ++texts[trimmed_label(labels.spellings[code].as_text())];
-        else ++numbers;
-    }
-    if (records >= 2 && numbers == records) return true;
-    return numbers == 0 && texts.size() >= 2 &&
-           std::all_of(texts.begin(), texts.end(), [](const auto& text) { return text.second >= 2; });
-}
-
 // Whether some label comes twice among positions 1 to end − 1.
-// Texts are compared as texts, as header_like does: the host may hand equal texts over as different
-// spellings (the records fuzz target found the remark below given by one route and not the other).
+// Texts are compared as texts, as unique_text_at_start does: the host may hand equal texts over as
+// different spellings (the records fuzz target found the remark below given by one route and not the other).
 bool repeats_below(const CodedLabels& labels, std::size_t end) {
     std::set<std::string_view> texts;
     std::set<double> numbers;
@@ -65,6 +44,21 @@ bool repeats_below(const CodedLabels& labels, std::size_t end) {
         if (!fresh) return true;
     }
     return false;
+}
+
+// Whether a range drawn with its header looks so: its first cell is a text found nowhere else in
+// it, above at least 3 records that are all numbers or among which some label repeats (records
+// under a column's name do; a short list of distinct names does not).
+bool header_like(const CodedLabels& labels, std::size_t end) {
+    if (!unique_text_at_start(labels, end)) return false;
+    std::size_t records = 0, numbers = 0;
+    for (std::size_t i = 1; i < end && i < labels.codes.size(); ++i) {
+        const std::uint32_t code = labels.codes[i];
+        if (code == CodedLabels::blank) continue;
+        ++records;
+        if (!is_text_code(labels, code)) ++numbers;
+    }
+    return records >= 3 && (numbers == records || repeats_below(labels, end));
 }
 
 std::string first_cell_text(const CodedLabels& labels) {
@@ -121,30 +115,23 @@ RecordSpan record_span(const std::vector<const CodedLabels*>& labels, const Cell
     // its header (header_like). ASSOC.LEVELS decides so for its one range, so ranges that disagree are
     // refused: either choice would misalign the counts with the levels of one range.
     const std::string word = along_row ? "column" : "row";
-    std::size_t headers = 0, unique_starts = 0;
-    for (const CodedLabels* range : labels) {
+    std::size_t headers = 0;
+    for (const CodedLabels* range : labels)
         if (header_like(*range, span.end)) ++headers;
-        if (unique_text_at_start(*range, span.end)) ++unique_starts;
-    }
     if (headers == labels.size()) {
         span.first = 1;
         span.remarks.push_back(line + what + " was read as a header and left out, since " +
                                (labels.size() > 1 ? std::string("each is a text found nowhere else in its range")
                                                   : first_cell_text(shape) + " is a text found nowhere else in its range") +
-                               " above labels that repeat; if it is a record, move it to another " + word +
+                               " above records whose labels repeat; if it is a record, move it to another " + word +
                                " of the range.");
         return span;
     }
     if (headers > 0)
         throw Error(word + " 1" + what + " may be a header or a record: in some ranges it looks like a header (a "
-                    "text found nowhere else, above labels that repeat), in others it does not; if " + word +
+                    "text found nowhere else, above records whose labels repeat), in others it does not; if " + word +
                     " 1 is a header, start every range one " + word + " later; if it is a record, move it to "
                     "another " + word + " of the ranges");
-    if (unique_starts == labels.size() && std::any_of(labels.begin(), labels.end(), [&](const CodedLabels* range) {
-            return repeats_below(*range, span.end);
-        }))
-        span.remarks.push_back(line + what + " was counted as a record; if it is a header, start the range" +
-                               (labels.size() > 1 ? "s" : "") + " one " + word + " later.");
     return span;
 }
 

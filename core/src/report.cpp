@@ -249,7 +249,7 @@ std::vector<ReportLine> association_report(const CountTable& table, const Report
                             independence_test(table, Method::likelihood_ratio),
                             table.is_two_by_two() ? std::optional<TestResult>(independence_test(table, Method::yates))
                                                   : std::nullopt,
-                            attempt([&] { return exact_p_value(table, Side::two_sided, options.exact_limits); }),
+                            attempt([&] { return options.exact_test(table, Side::two_sided, options.exact_limits); }),
                             critical,
                             pearson.p_value < options.alpha,
                             attempt([&] { return cramers_v_interval(table, 0.95); }),

@@ -100,6 +100,34 @@ SelectionImpact selection_impact(const std::vector<double>& selected, const std:
     return impact_of(groups, threshold);
 }
 
+namespace {
+
+// A total row among the groups (the company as a whole under its departments) is no group: it would be
+// compared with its own parts. The first or last group that holds, in both ranges, the sums of at
+// least 2 other groups with people considered is refused; the ranges carry no labels to set it aside by.
+void refuse_total_group(const std::vector<GroupCounts>& groups, const std::string& place, std::size_t first) {
+    if (groups.size() < 3) return;
+    for (std::size_t candidate : {groups.size() - 1, std::size_t{0}}) {
+        const GroupCounts& total = groups[candidate];
+        if (!total.selected || !total.considered || *total.considered <= 0) continue;
+        double selected = 0, considered = 0;
+        std::size_t others = 0;
+        for (std::size_t i = 0; i < groups.size(); ++i) {
+            if (i == candidate) continue;
+            selected += groups[i].selected.value_or(0.0);
+            considered += groups[i].considered.value_or(0.0);
+            if (groups[i].considered.value_or(0.0) > 0) ++others;
+        }
+        if (others < 2 || *total.selected != selected || *total.considered != considered) continue;
+        throw Error("the group in " + place + std::to_string(candidate + first + 1) + " holds the sums of the other groups (" +
+                    format_number(*total.selected, 15) + " selected of " + format_number(*total.considered, 15) +
+                    "), so it looks like a total, and a total is no group to compare with its own parts; leave it "
+                    "out of the ranges");
+    }
+}
+
+}  // namespace
+
 SelectionImpact selection_impact(const CellGrid& selected, const CellGrid& considered, double threshold) {
     // Each range as given (its trailing blanks may have been left out): cells past those that arrived are blank.
     struct Line {
@@ -151,6 +179,7 @@ SelectionImpact selection_impact(const CellGrid& selected, const CellGrid& consi
         groups.push_back(group);
     }
     require(!groups.empty(), "the ranges hold no counts");
+    refuse_total_group(groups, place, first);
     SelectionImpact result = impact_of(groups, threshold);
     if (first == 1)
         result.remarks.insert(result.remarks.begin(), std::string(chosen.along_row ? "Column" : "Row") +

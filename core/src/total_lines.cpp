@@ -61,12 +61,15 @@ struct Lines {
 // Relative only: counts of any size (1e-300 as well as 1e300) are compared to their own digits.
 bool same_amount(double a, double b) { return std::fabs(a - b) <= 1e-9 * std::max(std::fabs(a), std::fabs(b)); }
 
-// Whether `line` holds the sum of `others` at every position not excluded by `skip`.
-bool holds_sum(const Lines& lines, std::size_t line, const std::vector<std::size_t>& others, const std::vector<bool>& skip) {
+// Whether `line` holds the sum of `others` (leaving out `except`) at every position not excluded
+// by `skip`.
+bool holds_sum(const Lines& lines, std::size_t line, const std::vector<std::size_t>& others, const std::vector<bool>& skip,
+               std::size_t except = static_cast<std::size_t>(-1)) {
     for (std::size_t k = 0; k < lines.length(); ++k) {
         if (skip[k]) continue;
         double sum = 0;
-        for (std::size_t other : others) sum += lines.at(other, k);
+        for (std::size_t other : others)
+            if (other != except) sum += lines.at(other, k);
         if (!same_amount(lines.at(line, k), sum)) return false;
     }
     return true;
@@ -88,6 +91,7 @@ std::string capitalised(std::string text) {
 void find_on_side(const Lines& lines, const BodySide& side, std::vector<bool>& total, const std::vector<bool>& skip,
                   std::vector<std::string>& doubts) {
     std::vector<std::size_t> data;
+    data.reserve(lines.count());
     for (std::size_t i = 0; i < lines.count(); ++i)
         if (!total[i]) data.push_back(i);
 
@@ -110,28 +114,29 @@ void find_on_side(const Lines& lines, const BodySide& side, std::vector<bool>& t
 
     // A first or last line that holds the sum of the others.
     if (data.size() < 3) return;
+    // The other lines are `data` but the candidate, walked in place: this runs for every table read,
+    // thousands of times in a sheet of small tables.
     for (std::size_t candidate : {data.back(), data.front()}) {
-        if (lines.empty(candidate)) continue;
-        std::vector<std::size_t> others;
+        // The sum first: it fails at once in almost every table, and the rest needs whole passes.
+        if (lines.empty(candidate) || !holds_sum(lines, candidate, data, skip, candidate)) continue;
         std::size_t non_empty = 0;
         for (std::size_t i : data)
-            if (i != candidate) {
-                others.push_back(i);
-                if (!lines.empty(i)) ++non_empty;
-            }
+            if (i != candidate && !lines.empty(i)) ++non_empty;
         // A sum that holds at a single position (a table of one row or column) is easily a coincidence:
         // there it takes 3 other lines to tell a total.
         std::size_t positions = 0;
         for (std::size_t k = 0; k < lines.length(); ++k) {
             double sum = 0;
-            for (std::size_t other : others) sum += lines.at(other, k);
+            for (std::size_t other : data)
+                if (other != candidate) sum += lines.at(other, k);
             if (!skip[k] && sum != 0) ++positions;
         }
-        if (non_empty < (positions >= 2 ? 2u : 3u) || !holds_sum(lines, candidate, others, skip)) continue;
+        if (non_empty < (positions >= 2 ? 2u : 3u)) continue;
         const std::string& label = (*side.labels)[candidate];
         if (label.empty()) {
             std::vector<std::size_t> numbers;
-            for (std::size_t i : others) numbers.push_back(side.first_number + i);
+            for (std::size_t i : data)
+                if (i != candidate) numbers.push_back(side.first_number + i);
             throw Error(line_name(side, candidate) + " holds the sum of " + numbered_lines(side.word, numbers) +
                         " in every " + side.other_word + ", so it looks like a total, and a total must not be tested "
                         "as if it held more counts; leave it out of the range, or label it \"Total\" (it is then set "
@@ -222,10 +227,45 @@ bool names_a_summary(std::string_view label) {
     return false;
 }
 
+// A label that says its numbers are percentages: a "%" that follows no digit ("% promoted", "Yes (%)";
+// "0-2%" names a band of pay rises) or the word itself.
+bool names_percentages(std::string_view label) {
+    const std::string text = folded_label(label);
+    for (std::size_t k = 0; k < text.size(); ++k) {
+        if (text[k] != '%') continue;
+        std::size_t before = k;
+        while (before > 0 && text[before - 1] == ' ') --before;
+        if (before == 0 || !(text[before - 1] >= '0' && text[before - 1] <= '9')) return true;
+    }
+    for (const char* word : {"percent", "percentage", "pct", "prozent", "pourcentage", "porcentaje", "percentuale", "procent"}) {
+        const std::string_view w(word);
+        for (std::size_t at = text.find(w); at != std::string::npos; at = text.find(w, at + 1)) {
+            const auto letter = [](char c) { return (c >= 'a' && c <= 'z') || static_cast<unsigned char>(c) >= 0x80; };
+            if ((at == 0 || !letter(text[at - 1])) && (at + w.size() == text.size() || !letter(text[at + w.size()])))
+                return true;
+        }
+    }
+    return false;
+}
+
 void refuse_summaries(const Lines& lines, const BodySide& side, const std::vector<bool>& total) {
     if (!side.labelled) return;
     for (std::size_t i = 0; i < lines.count(); ++i) {
-        if (total[i] || !names_a_summary((*side.labels)[i])) continue;
+        if (total[i]) continue;
+        const std::string& label = (*side.labels)[i];
+        // Percentages, whole or not, when every number of the line could be one.
+        if (names_percentages(label)) {
+            bool within = true, any = false;
+            for (std::size_t k = 0; k < lines.length(); ++k) {
+                within = within && lines.at(i, k) >= 0 && lines.at(i, k) <= 100;
+                any = any || lines.at(i, k) != 0;
+            }
+            if (within && any)
+                throw Error(line_name(side, i) + " is labelled as percentages and holds numbers from 0 to 100, so it "
+                            "holds no counts; leave it out of the range, or enter the counts (the tests need the "
+                            "number of people or items in each cell)");
+        }
+        if (!names_a_summary(label)) continue;
         for (std::size_t k = 0; k < lines.length(); ++k) {
             const double value = lines.at(i, k);
             if (value == std::floor(value)) continue;
@@ -274,15 +314,18 @@ bool is_total_label(std::string_view label) {
     return false;
 }
 
-TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns, bool distinct_labels) {
+TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns, bool distinct_labels,
+                            bool counts_only) {
     TotalLines totals;
     totals.rows.assign(body.rows(), false);
     totals.columns.assign(body.columns(), false);
     for (std::size_t r = 0; r < body.rows(); ++r) totals.rows[r] = rows.labelled && is_total_label((*rows.labels)[r]);
     for (std::size_t c = 0; c < body.columns(); ++c)
         totals.columns[c] = columns.labelled && is_total_label((*columns.labels)[c]);
-    refuse_summaries(Lines{body, true}, rows, totals.rows);
-    refuse_summaries(Lines{body, false}, columns, totals.columns);
+    if (counts_only) {
+        refuse_summaries(Lines{body, true}, rows, totals.rows);
+        refuse_summaries(Lines{body, false}, columns, totals.columns);
+    }
     find_on_side(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts);
     find_on_side(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts);
     find_subtotals(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts);
@@ -298,7 +341,10 @@ std::vector<std::string> refuse_percentages(const Matrix& body, const std::vecto
                                             const std::vector<bool>& total_columns) {
     bool all_whole = true;
     double grand = 0;
-    std::vector<double> row_sums(body.rows(), 0.0), column_sums(body.columns(), 0.0);
+    // The row and column sums in one block (one allocation fewer for each table read).
+    std::vector<double> sums(body.rows() + body.columns(), 0.0);
+    double* const row_sums = sums.data();
+    double* const column_sums = sums.data() + body.rows();
     for (std::size_t r = 0; r < body.rows(); ++r)
         for (std::size_t c = 0; c < body.columns(); ++c) {
             if (total_rows[r] || total_columns[c]) continue;
@@ -310,10 +356,11 @@ std::vector<std::string> refuse_percentages(const Matrix& body, const std::vecto
         }
 
     std::vector<std::string> doubts;
-    const auto check_side = [&](const std::vector<double>& sums, const char* word) {
+    const auto check_side = [&](const double* line_sums, std::size_t lines, const char* word) {
         std::size_t with_counts = 0;
         bool hundred = true, one = true, exactly_hundred = true;
-        for (double sum : sums) {
+        for (std::size_t i = 0; i < lines; ++i) {
+            const double sum = line_sums[i];
             if (sum == 0) continue;
             ++with_counts;
             hundred = hundred && std::fabs(sum - 100) <= 1;
@@ -321,22 +368,25 @@ std::vector<std::string> refuse_percentages(const Matrix& body, const std::vecto
             exactly_hundred = exactly_hundred && sum == 100;
         }
         if (with_counts < 2) return;
-        const std::string every = std::string("every ") + word + " adds up to ";
-        const std::string instead = "; the tests need the number of people (or items) in each cell, which a " +
-                                    std::string(hundred ? "percentage" : "share") + " hides: enter the counts instead";
+        // The words are put together only when they are said (this runs for every table read).
+        const auto every = [&] { return std::string("every ") + word + " adds up to "; };
+        const auto instead = [&] {
+            return "; the tests need the number of people (or items) in each cell, which a " +
+                   std::string(hundred ? "percentage" : "share") + " hides: enter the counts instead";
+        };
         if (!all_whole && hundred)
-            throw Error(every + "100 and some entries are not whole numbers, so these look like percentages, not counts" +
-                        instead);
+            throw Error(every() + "100 and some entries are not whole numbers, so these look like percentages, not counts" +
+                        instead());
         if (!all_whole && one)
-            throw Error(every + "1 and some entries are not whole numbers, so these look like shares (proportions), "
-                        "not counts" + instead);
+            throw Error(every() + "1 and some entries are not whole numbers, so these look like shares (proportions), "
+                        "not counts" + instead());
         if (all_whole && exactly_hundred)
             doubts.push_back("Every " + std::string(word) + " adds up to exactly 100: if these are percentages, enter the "
                              "counts instead (the tests need the number of people in each cell); if each " + word +
                              " really counts 100 people, this can be ignored.");
     };
-    check_side(row_sums, "row");
-    check_side(column_sums, "column");
+    check_side(row_sums, body.rows(), "row");
+    check_side(column_sums, body.columns(), "column");
     if (!all_whole && std::fabs(grand - 100) <= 1)
         throw Error("the entries add up to 100 and some are not whole numbers, so these look like percentages of the "
                     "whole table, not counts; the tests need the number of people (or items) in each cell: enter the "

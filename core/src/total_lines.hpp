@@ -44,10 +44,11 @@ struct TotalLines {
 // word it is kept as counts and doubted.
 // Also: a line inside the table that holds the sum of the lines just above it (a subtotal) is refused
 // without a label and doubted with one that is not a total word; a line labelled as a percentage, an
-// average or a rate ("% promoted", "Average") that holds a number that is not whole is refused; and,
-// with `distinct_labels`, lines that share a label are doubted (stacked strata repeat their labels).
+// average or a rate ("% promoted", "Average") that holds a number that is not whole is refused when
+// `counts_only` (expected shares may be percentages); and, with `distinct_labels`, lines that share a
+// label are doubted (stacked strata repeat their labels).
 TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns,
-                            bool distinct_labels = true);
+                            bool distinct_labels = true, bool counts_only = true);
 
 // Refuses percentages and shares typed instead of counts: the lines of one side (at least 2 with
 // counts) that each add up to 100 (within 1) or to 1 (within 0.01), or a body that adds up to 100 or

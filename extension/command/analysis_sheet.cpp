@@ -11,6 +11,7 @@
 #include "assoc/pairwise_comparisons.hpp"
 #include "assoc/residuals.hpp"
 #include "assoc/validity.hpp"
+#include "worksheet_limits.hpp"
 
 namespace assoc::command {
 namespace {
@@ -755,7 +756,7 @@ void check_options(const CommandOptions& options) {
 bool exact_test_is_quick(const CountTable& table) {
     if (!table.whole_counts()) return false;
     try {
-        exact_p_value(table, Side::two_sided, ExactLimits{0.05, 50'000'000});
+        exact_p_value(table, Side::two_sided, calc::command_exact_probe_limits);
         return true;
     } catch (const Error&) {
         return false;

@@ -39,7 +39,8 @@ struct CommandOptions {
 // against the table.
 void check_options(const CommandOptions& options);
 
-// Whether the exact test is quick enough (a few hundredths of a second, within a few tens of MB)
+// Whether the exact test is quick enough (command_exact_probe_limits in worksheet_limits.hpp: a few
+// hundredths of a second, within a few tens of MB)
 // for the sheet to recompute it with every change of the source; otherwise the sheet leaves the
 // exact p-value and ASSOC.REPORT out and says why (Cramér's V's interval comes from ASSOC.VINTERVAL,
 // on every sheet).

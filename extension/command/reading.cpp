@@ -72,14 +72,35 @@ Reading read_records(RangeRef rows_range, const CellGrid& rows_column, RangeRef 
                     ", the other " + rows_phrase(columns_range) + ".");
     RecordSource source;
     source.header_row = names_in_first_row(rows_column, columns_column);
-    const std::size_t first = source.header_row ? 1 : 0;
+    // The sheet's formulas read exactly the ranges counted here. Below a row of names the records
+    // alone are counted, unless the functions would take their first record for a header (or could
+    // not tell): then the ranges are given with their names, which the functions leave out themselves.
+    bool with_names = false;
+    if (source.header_row) {
+        // Whether the functions read the ranges from `start` with their first cell as a header (or refuse
+        // them: -1), or as a record (0).
+        const auto first_cell = [&](std::size_t start) {
+            try {
+                return counts_from_records(column_of(rows_column, 0, start), column_of(columns_column, 0, start), CellGrid(),
+                                           LevelOrder::sorted, collation)
+                               .header_left_out
+                           ? 1
+                           : 0;
+            } catch (const Error&) {
+                return -1;
+            }
+        };
+        with_names = first_cell(1) != 0 && first_cell(0) == 1;
+    }
+    const std::size_t first = source.header_row && !with_names ? 1 : 0;
     if (source.header_row) {
         source.row_name = rows_column.at(0, 0).as_text();
         source.column_name = columns_column.at(0, 0).as_text();
     }
-    if (rows_column.rows() - first < 2)
+    const std::size_t named = source.header_row ? 1 : 0;
+    if (rows_column.rows() - named < 2)
         throw Error("Two columns of records need at least two records; the selection has " +
-                    count_phrase(rows_column.rows() - first, "row") + " of them. " + select_hint);
+                    count_phrase(rows_column.rows() - named, "row") + " of them. " + select_hint);
     rows_range.row += first;
     rows_range.rows -= first;
     columns_range.row += first;

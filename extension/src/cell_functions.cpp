@@ -35,10 +35,15 @@
 #include "assoc_functions.hpp"
 #include "check.hpp"
 #include "office_collation.hpp"
+#include "remembered.hpp"
 #include "worksheet_limits.hpp"
 
 namespace assoc::calc {
 namespace {
+
+// The long computations (exact tests, simulations) go through the add-in's cache (extension/cache/):
+// an unchanged table is not computed again on the next recalculation or load, and a refusal is
+// remembered like an answer. Their caps are in worksheet_limits.hpp.
 
 std::vector<double> ratio_row(const RatioEstimate& ratio) {
     remark(ratio.remark);
@@ -67,7 +72,7 @@ double pvalue(const CellGrid& range, PValueMethod method) {
     case PValueMethod::yates: return independence_test(table, Method::yates).p_value;
     case PValueMethod::exact: {
         const ReturnFreedMemory after;
-        return exact_p_value(table, Side::two_sided, exact_limits());
+        return shared_exact_p_value(table, Side::two_sided, exact_limits());
     }
     }
     throw Error("unknown method");
@@ -108,7 +113,7 @@ std::vector<double> vinterval(const CellGrid& range, double confidence) {
 
 double exact(const CellGrid& range, Side side) {
     const ReturnFreedMemory after;
-    return exact_p_value(read_count_table(range), side, exact_limits());
+    return shared_exact_p_value(read_count_table(range), side, exact_limits());
 }
 
 std::vector<double> simulate(const CellGrid& range, double trials, double seed, SimulationMethod method) {
@@ -116,7 +121,8 @@ std::vector<double> simulate(const CellGrid& range, double trials, double seed, 
     options.statistic = method == SimulationMethod::g ? Method::likelihood_ratio : Method::pearson;
     if (method == SimulationMethod::exact) options.order = SimulationOrder::probability;
     options.limits = simulation_limits();
-    const SimulationResult result = monte_carlo_test(read_count_table(range), options);
+    // Remembered (keyed by the counts and every option): the same seed gives the same answer.
+    const SimulationResult result = remembered_monte_carlo_test(shared_result_cache(), read_count_table(range), options);
     return {result.p_value, result.standard_error, static_cast<double>(result.trials)};
 }
 
@@ -215,6 +221,7 @@ CellGrid report(const CellGrid& range, double alpha) {
     options.alpha = alpha;
     options.exact_limits = report_exact_limits();
     options.variables = variable_names_from_corner(range, table);
+    options.exact_test = shared_exact_p_value;  // the exact line, remembered like ASSOC.EXACT's
     const std::vector<ReportLine> lines = association_report(table, options);
     CellGrid cells(lines.size(), 2);
     for (std::size_t i = 0; i < lines.size(); ++i) {

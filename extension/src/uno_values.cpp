@@ -4,6 +4,7 @@
 #include <array>
 #include <cmath>
 #include <cstdint>
+#include <memory>
 #include <rtl/string.hxx>
 #include <rtl/ustring.hxx>
 #include <unordered_map>
@@ -132,21 +133,27 @@ CellGrid to_cell_grid(const AnyTable& range) {
     // The reader has its own cap on the body; this one keeps a huge range from being copied before
     // that check can run. A header row and column are allowed on top.
     const std::size_t cap = ReadOptions{}.max_body_cells;
-    require(used.columns == 0 || rows <= (cap + rows + used.columns) / used.columns,
-            "the range holds " + format_count(static_cast<double>(rows) * static_cast<double>(used.columns)) +
-                " cells up to its last value; Assoc reads tables of at most " + format_count(static_cast<double>(cap)) +
-                " counts");
+    if (used.columns != 0 && rows > (cap + rows + used.columns) / used.columns)
+        throw Error("the range holds " + format_count(static_cast<double>(rows) * static_cast<double>(used.columns)) +
+                    " cells up to its last value; Assoc reads tables of at most " +
+                    format_count(static_cast<double>(cap)) + " counts");
     CellGrid grid(rows, used.columns);
     grid.set_given_shape(all_rows, columns);  // a whole column keeps its height here (see CellGrid)
-    TextCells texts;
+    // A table of counts holds few texts or none (its labels), and thousands of formulas may each
+    // read one: the cache of converted texts is set up only when a text comes.
+    std::unique_ptr<TextCells> texts;
     for (std::size_t r = 0; r < rows; ++r) {
-        const Sequence<Any>& row = range[static_cast<sal_Int32>(r)];
+        const Any* row = range[static_cast<sal_Int32>(r)].getConstArray();
         for (std::size_t c = 0; c < used.columns; ++c) {
-            const Any& value = row[static_cast<sal_Int32>(c)];
-            if (value.getValueTypeClass() == TypeClass::TypeClass_STRING)
-                grid.at(r, c) = texts.cell(*static_cast<const OUString*>(value.getValue()));
-            else
-                grid.at(r, c) = to_cell(value);
+            const Any& value = row[c];
+            switch (value.getValueTypeClass()) {
+            case TypeClass::TypeClass_DOUBLE: grid.at(r, c) = Cell::number(*static_cast<const double*>(value.getValue())); break;
+            case TypeClass::TypeClass_STRING:
+                if (!texts) texts = std::make_unique<TextCells>();
+                grid.at(r, c) = texts->cell(*static_cast<const OUString*>(value.getValue()));
+                break;
+            default: grid.at(r, c) = to_cell(value);
+            }
         }
     }
     return grid;

@@ -5,9 +5,15 @@
 // cap with an error whose ASSOC.CHECK text says what to do instead:
 //
 //   ASSOC.EXACT (every side) and ASSOC.PVALUE with "exact"   5 seconds, 400 MB of working memory
+//   ASSOC.PAIRWISE with "exact"                             the same, for all its pairs together
 //   ASSOC.REPORT, its exact p-value                         2 seconds, 100 MB
 //   ASSOC.SIMULATE                                          5 seconds
 //   ASSOC.CHECK, all it tries on its range together         10 seconds (it may run two of the above)
+//   the menu command's probe of the exact test              0.05 seconds, 50 MB (whether its sheet
+//                                                           keeps the exact p-value live)
+//
+// The r×c exact test refuses at once a table it cannot finish within its cap (ExactLimits::forecast,
+// on in all of these), and the add-in's cache (extension/cache/) keys its answers on these limits.
 //
 // The exact test of a 2×2 table needs well under a millisecond whatever its counts; the caps bind
 // r×c tables. Every other function does a bounded amount of work (at most a few thousand steps of
@@ -22,6 +28,7 @@ inline constexpr ExactLimits worksheet_exact_limits{5.0, 400'000'000};
 inline constexpr ExactLimits worksheet_report_exact_limits{2.0, 100'000'000};
 inline constexpr double worksheet_simulation_seconds = 5.0;
 inline constexpr double worksheet_check_seconds = 10.0;
+inline constexpr ExactLimits command_exact_probe_limits{0.05, 50'000'000};
 
 // The limits for a computation in the current cell: the caps above, cut to what is left of
 // ASSOC.CHECK's own cap while it runs.

@@ -47,7 +47,7 @@ class ArraySpread(CalcTestCase):
         self.assertEqual([row[0] for row in listed[:2]], [20.0, 4.0])
 
     def test_repeats_a_one_column_result_across_the_extra_columns(self):
-        self.put([["b"], ["a"], ["c"], ["a"]])
+        self.put([["a"], ["b"], ["c"], ["a"]])
         rows = self.block("C1:E5", "=ASSOC.LEVELS(A1:A4)")
         self.assertEqual(rows[:3], [["a"] * 3, ["b"] * 3, ["c"] * 3])
         self.assertEqual(rows[3:], [["#N/A"] * 3] * 2)

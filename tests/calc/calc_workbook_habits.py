@@ -107,7 +107,7 @@ class WholeColumnsAndRecords(HabitCase):
         self.assertEqual(self.array("G1:H3", "=ASSOC.COUNTS(C1:C9; D1:D9)"), self.array("G5:H7", "=ASSOC.COUNTS(C2:C9; D2:D9)"))
         text = self.words("F10", '=ASSOC.CHECK(C1:D9; "counts")')
         self.assertIn('Row 1 ("Channel" and "Outcome") was read as a header and left out, since each is a text found '
-                      "nowhere else in its range above labels that repeat", text)
+                      "nowhere else in its range above records whose labels repeat", text)
 
     def test_whole_columns_on_another_sheet_are_read_the_same_way(self):
         sheets = session.document.Sheets
@@ -157,7 +157,7 @@ class SubtotalsAndSummaries(HabitCase):
         table = self.put([["Dept", "Yes", "No", "% yes"], ["Sales", 30, 45, 0.4], ["Legal", 10, 80, 0.111],
                           ["Audit", 22, 41, 0.349]])
         self.refused(f"=ASSOC.PVALUE({table})", f"=ASSOC.CHECK({table})",
-                     'the column "% yes" holds the number 0.4, not a whole number, under a label that names a percentage')
+                     'the column "% yes" is labelled as percentages and holds numbers from 0 to 100, so it holds no counts')
 
     def test_two_rows_with_one_label_are_doubted_not_sound(self):
         table = self.put([["Dept", "Yes", "No"], ["Sales", 30, 45], ["Legal", 10, 80], ["Sales", 22, 41]])

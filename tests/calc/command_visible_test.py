@@ -254,7 +254,8 @@ class VisibleSession:
 
         wait_until(lambda: doc.Sheets.hasByName(SHEET), 30, f"the sheet {SHEET}")
         sheet = doc.Sheets.getByName(SHEET)
-        assert doc.getCurrentController().getActiveSheet().Name == SHEET, "the new sheet is not shown"
+        # The sheet is inserted before the command shows it and closes its dialog: wait for both.
+        wait_until(lambda: doc.getCurrentController().getActiveSheet().Name == SHEET, 30, "the new sheet shown")
         doc.calculateAll()
         assert sheet.getCellRangeByName("A1").getString() == "Association analysis: " + SHEET
         labels = [row[0] for row in sheet.getCellRangeByName("A1:A60").getDataArray()]

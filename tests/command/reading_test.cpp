@@ -64,6 +64,25 @@ TEST(ReadSelection, ReadsTwoTextColumnsAsRecordsWithTheirNamesInTheFirstRow) {
     EXPECT_EQ(reading.variables.rows, "Region");
 }
 
+// The first record's region comes only once while the others repeat: counted alone, the functions
+// would take it for a header, so the sheet's formulas get the ranges with their names, which the
+// functions leave out themselves.
+TEST(ReadSelection, GivesTheFormulasTheNamesRowWhenTheFirstRecordAloneWouldPassForAHeader) {
+    const Reading reading = read(block(grid({{"Region", "Exception"},
+                                             {"East", "No"},
+                                             {"South", "Yes"},
+                                             {"North", "Yes"},
+                                             {"South", "No"},
+                                             {"North", "No"}}),
+                                       0, 1));
+    const RecordSource& records = *reading.record_source;
+    EXPECT_TRUE(records.header_row);
+    EXPECT_EQ(range_address(records.row_labels), "B1:B6");
+    EXPECT_EQ(range_address(records.column_labels), "C1:C6");
+    EXPECT_EQ(records.records, 5u);
+    EXPECT_EQ(reading.row_names, (std::vector<std::string>{"East", "North", "South"}));
+}
+
 TEST(ReadSelection, ReadsAFirstRowAsARecordWhenItsLabelAppearsAgainBelow) {
     const Reading reading =
         read(block(grid({{"North", "No"}, {"South", "Yes"}, {"North", "Yes"}, {"South", "No"}}), 0, 1));

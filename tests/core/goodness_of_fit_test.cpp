@@ -121,3 +121,18 @@ TEST(GoodnessOfFit, RejectsAFractionalNumberOfEstimatedParameters) {
     expect_error([] { goodness_of_fit({5, 3, 2, 4}, {}, 0.5); },
                  "the number of estimated parameters must be a whole number, not 0.5");
 }
+
+// Invented: staff by site against the planned shares, typed as percentages that miss a site.
+TEST(GoodnessOfFit, RefusesPercentagesThatDoNotAddUpToAHundred) {
+    expect_error([] { goodness_of_fit(grid({{"Staff"}, {30}, {20}, {50}}), grid({{"Plan %"}, {30}, {30}, {30}})); },
+                 "in the expected range: the percentages under the label \"Plan %\" add up to 90, not 100, so a "
+                 "category may be missing or a value mistyped; correct them, or give expected counts under a label "
+                 "that does not speak of percentages");
+}
+
+TEST(GoodnessOfFit, TakesRoundedPercentagesAndUnlabelledValuesInAnyUnit) {
+    // Rounded thirds (99.9) are percentages; 30, 30, 30 without a label are equal shares in any unit.
+    const GoodnessOfFit rounded = goodness_of_fit(grid({{"Staff"}, {30}, {20}, {50}}), grid({{"Plan %"}, {33.3}, {33.3}, {33.3}}));
+    const GoodnessOfFit plain = goodness_of_fit(grid({{30}, {20}, {50}}), grid({{30}, {30}, {30}}));
+    EXPECT_EQ(rounded.p_value, plain.p_value);  // exact identity: equal shares in any unit
+}

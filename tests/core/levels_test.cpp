@@ -20,7 +20,7 @@ std::vector<Cell> texts(std::initializer_list<const char*> values) {
 }  // namespace
 
 TEST(Levels, ListsNumbersAscendingBeforeTextsSortedWithoutRegardToCase) {  // order of texts: text_collation_test
-    const auto levels = distinct_levels(grid({{"north"}, {10}, {"East"}, {2}, {"west"}, {"East"}, {2}}));
+    const auto levels = distinct_levels(grid({{"East"}, {10}, {"north"}, {2}, {"west"}, {"East"}, {2}}));
     EXPECT_EQ(levels, (std::vector<Cell>{Cell::number(2), Cell::number(10), Cell::text("East"), Cell::text("north"),
                                          Cell::text("west")}));
 }

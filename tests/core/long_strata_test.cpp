@@ -25,6 +25,24 @@ TEST(LongStrata, ReadsAHeaderRowAndTheStrataInTheirOrder) {
     EXPECT_EQ(read.strata[1].counts(1, 0), 4.0);
 }
 
+TEST(LongStrata, SetsAsideTotalRowsTotalStrataAndTotalColumnsAndSaysSo) {
+    const LongStrata read = read_long_strata(grid({{"Office", "Department", "Low", "High", "Total"},
+                                                   {"Riverside", "Design", 3, 5, 8},
+                                                   {"Riverside", "Assembly", 7, 2, 9},
+                                                   {"Riverside", "Total", 10, 7, 17},
+                                                   {"Northgate", "Assembly", 4, 4, 8},
+                                                   {"Northgate", "Design", 1, 6, 7},
+                                                   {"All", "Design", 4, 11, 15}}));
+    ASSERT_EQ(read.strata.size(), 2u);
+    EXPECT_EQ(read.row_labels, (std::vector<std::string>{"Design", "Assembly"}));
+    EXPECT_EQ(read.column_labels, (std::vector<std::string>{"Low", "High"}));
+    EXPECT_EQ(read.strata[0].counts.columns(), 2u);
+    EXPECT_EQ(read.strata[0].counts(1, 0), 7.0);
+    EXPECT_EQ(read.remarks, (std::vector<std::string>{
+                                "The column \"Total\" is a total and was set aside.",
+                                "Rows 4 and 7 are totals and were set aside (a row or stratum label that names a total)."}));
+}
+
 TEST(LongStrata, GivesAStratumWithoutSomeRowLabelARowOfZeros) {
     const LongStrata read = read_long_strata(grid({{"A", "x", 1, 2}, {"A", "y", 3, 4}, {"B", "y", 5, 6}, {"B", "z", 7, 8}}));
     ASSERT_EQ(read.row_labels.size(), 3u);

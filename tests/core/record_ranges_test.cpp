@@ -79,7 +79,7 @@ TEST(RecordRanges, KeepRow1OfARangeThatIsNoWholeColumn) {
 }
 
 // Ranges drawn with their header (A1:A6): the header is no record when each range starts with a text
-// found nowhere else in it, above labels that repeat. Invented records of a fictional company.
+// found nowhere else in it, above records whose labels repeat. Invented records of a fictional company.
 TEST(RecordRanges, LeaveOutTheHeaderOfRangesDrawnWithItAndSaySo) {
     const CellGrid dept = grid({{"Dept"}, {"Sales"}, {"Legal"}, {"Sales"}, {"Legal"}, {"Sales"}});
     const CellGrid outcome = grid({{"Outcome"}, {"Yes"}, {"No"}, {"No"}, {"Yes"}, {"Yes"}});
@@ -91,7 +91,7 @@ TEST(RecordRanges, LeaveOutTheHeaderOfRangesDrawnWithItAndSaySo) {
     EXPECT_EQ(counts.counts.values(), (std::vector<double>{1, 1, 1, 2}));
     EXPECT_TRUE(contains(counts.feedback(),
                          "Row 1 (\"Dept\" and \"Outcome\") was read as a header and left out, since each is a text "
-                         "found nowhere else in its range above labels that repeat; if it is a record, move it to "
+                         "found nowhere else in its range above records whose labels repeat; if it is a record, move it to "
                          "another row of the range."))
         << counts.feedback();
 }
@@ -103,13 +103,6 @@ TEST(RecordRanges, LeaveOutATextHeaderAboveNumberCodes) {
     EXPECT_EQ(counts.row_levels.size(), 3u);
 }
 
-// A rare outcome in the first record (the only "Promoted" above "Not promoted") is no header.
-TEST(RecordRanges, KeepARareFirstRecordAboveASingleRepeatedLabel) {
-    const CellGrid outcome = grid({{"Promoted"}, {"Not promoted"}, {"Not promoted"}, {"Not promoted"}});
-    EXPECT_EQ(distinct_levels(outcome), texts({"Not promoted", "Promoted"}));
-    EXPECT_EQ(counts_from_records(grid({{"Sales"}, {"Sales"}, {"Legal"}, {"Legal"}}), outcome).records, 4u);
-}
-
 TEST(RecordRanges, RefuseARow1ThatIsAHeaderInOneRangeAndARecordLabelInTheOther) {
     expect_error(
         [] {
@@ -117,16 +110,25 @@ TEST(RecordRanges, RefuseARow1ThatIsAHeaderInOneRangeAndARecordLabelInTheOther) 
                                 grid({{"Yes"}, {"Yes"}, {"No"}, {"No"}, {"Yes"}}));
         },
         "row 1 (\"Dept\" and \"Yes\") may be a header or a record: in some ranges it looks like a header (a text "
-        "found nowhere else, above labels that repeat), in others it does not; if row 1 is a header, start every "
+        "found nowhere else, above records whose labels repeat), in others it does not; if row 1 is a header, start every "
         "range one row later; if it is a record, move it to another row of the ranges");
 }
 
-TEST(RecordRanges, CountRow1AsARecordWhenNoRangeLooksDrawnWithAHeaderButSaySoWhenItCouldBeOne) {
+// A header above a column with a level of one person (the only "Audit") is still a header.
+TEST(RecordRanges, LeaveOutAHeaderAboveALevelThatComesOnce) {
     const RecordCounts counts = counts_from_records(grid({{"Dept"}, {"Sales"}, {"Legal"}, {"Sales"}, {"Audit"}}),
-                                                    grid({{"Outcome"}, {"Yes"}, {"No"}, {"No"}, {"Maybe"}}));
-    EXPECT_EQ(counts.records, 5u);
-    EXPECT_TRUE(contains(counts.feedback(), "Row 1 (\"Dept\" and \"Outcome\") was counted as a record; if it is a "
-                                            "header, start the ranges one row later."))
+                                                    grid({{"Outcome"}, {"Yes"}, {"No"}, {"No"}, {"Yes"}}));
+    EXPECT_EQ(counts.records, 4u);
+    EXPECT_TRUE(counts.header_left_out);
+}
+
+// Known limit: a first record whose labels each come once, above others that repeat, looks like a header
+// and is left out, and the feedback says so.
+TEST(RecordRanges, TakeAFirstRecordOfLabelsThatComeOnceForAHeaderAndSaySo) {
+    const RecordCounts counts = counts_from_records(grid({{"Audit"}, {"Sales"}, {"Legal"}, {"Sales"}}),
+                                                    grid({{"Maybe"}, {"Yes"}, {"No"}, {"No"}}));
+    EXPECT_EQ(counts.records, 3u);
+    EXPECT_TRUE(contains(counts.feedback(), "Row 1 (\"Audit\" and \"Maybe\") was read as a header and left out"))
         << counts.feedback();
 }
 

@@ -123,3 +123,10 @@ TEST(SelectionImpact, RefusesAGroupWithOnlyOneOfItsCountsNamingItsRow) {
                  "the selected count of the group in row 3 is blank; give a number of 0 or more (leave both cells "
                  "blank for a group without counts)");
 }
+
+// Invented: the company's row under its two groups.
+TEST(SelectionImpact, RefusesAGroupThatHoldsTheSumsOfTheOthers) {
+    expect_error([] { selection_impact(grid({{"Selected"}, {12}, {30}, {42}}), grid({{"Considered"}, {80}, {120}, {200}})); },
+                 "the group in row 4 holds the sums of the other groups (42 selected of 200), so it looks like a total, "
+                 "and a total is no group to compare with its own parts; leave it out of the ranges");
+}

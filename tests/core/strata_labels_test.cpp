@@ -56,6 +56,48 @@ TEST(StrataLabels, ReadTwoRowsPerStratumFromAStratumColumn) {
     EXPECT_EQ(strata.tables[1].d, 8);
 }
 
+// The stratum's name on every row, as a sorted or filtered list has it.
+TEST(StrataLabels, ReadAStratumColumnThatNamesTheStratumOnEveryRow) {
+    const Strata every = read_strata(grid({{"Office", "Group", "Promoted", "Not"},
+                                           {"North", "Women", 5, 10},
+                                           {"North", "Men", 7, 9},
+                                           {"South", "Women", 4, 11},
+                                           {"South", "Men", 6, 8}}));
+    const Strata once = read_strata(grid({{"Office", "Group", "Promoted", "Not"},
+                                          {"North", "Women", 5, 10},
+                                          {nullptr, "Men", 7, 9},
+                                          {"South", "Women", 4, 11},
+                                          {nullptr, "Men", 6, 8}}));
+    ASSERT_EQ(every.tables.size(), 2u);
+    EXPECT_EQ(every.tables[1].label, "South");
+    EXPECT_EQ(mantel_haenszel_test(every).p_value, mantel_haenszel_test(once).p_value);
+}
+
+TEST(StrataLabels, LeaveOutATotalRowInEveryStratumNamedOnEveryRow) {
+    const Strata strata = read_strata(grid({{"Office", "Group", "Promoted", "Not"},
+                                            {"North", "Women", 5, 10},
+                                            {"North", "Men", 7, 9},
+                                            {"North", "Total", 12, 19},
+                                            {"South", "Women", 4, 11},
+                                            {"South", "Men", 6, 8},
+                                            {"South", "Total", 10, 19}}));
+    ASSERT_EQ(strata.tables.size(), 2u);
+    EXPECT_EQ(strata.tables[1].c, 6);
+}
+
+TEST(StrataLabels, RefuseAStratumNameThatComesBackAfterAnotherStratum) {
+    expect_error(
+        [] {
+            read_strata(grid({{"Office", "Group", "Promoted", "Not"},
+                              {"North", "Women", 5, 10},
+                              {"South", "Women", 4, 11},
+                              {"North", "Men", 7, 9},
+                              {"South", "Men", 6, 8}}));
+        },
+        "the stratum \"North\" comes back at row 4 after rows of another stratum; keep each stratum's rows together "
+        "(sort the range by its first column)");
+}
+
 TEST(StrataLabels, MatchAStratumWhoseGroupsComeInTheOtherOrderAndSaySo) {
     const Strata strata = read_strata(grid({{"Office", "Group", "Promoted", "Not"},
                                             {"North", "Women", 5, 10},

@@ -27,8 +27,11 @@ CellGrid column_of(const std::vector<std::string>& labels) {
 
 std::vector<std::string> sorted_texts(const std::vector<std::string>& labels,
                                       const TextCollation& collation = unicode_collation()) {
+    // Each label twice, so that no first label stands alone above the others as a header does.
+    std::vector<std::string> twice = labels;
+    twice.insert(twice.end(), labels.begin(), labels.end());
     std::vector<std::string> texts;
-    for (const Cell& level : distinct_levels(column_of(labels), LevelOrder::sorted, collation))
+    for (const Cell& level : distinct_levels(column_of(twice), LevelOrder::sorted, collation))
         texts.push_back(level.as_text());
     return texts;
 }

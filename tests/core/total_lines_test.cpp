@@ -187,6 +187,15 @@ TEST(SummaryLines, AreRefusedWhenLabelledAsAPercentageAverageOrRateAndNotWhole) 
                  "people or items in each cell)");
 }
 
+TEST(SummaryLines, AreRefusedWhenLabelledAsPercentagesEvenWhenWhole) {
+    expect_error([] {
+        read_count_table(grid({{"Dept", "Yes %", "No %"}, {"Sales", 40, 60}, {"Legal", 11, 89}, {"Audit", 35, 65}}));
+    },
+                 "the column \"Yes %\" is labelled as percentages and holds numbers from 0 to 100, so it holds no "
+                 "counts; leave it out of the range, or enter the counts (the tests need the number of people or items "
+                 "in each cell)");
+}
+
 // Categories can carry such words: bands of a pay rise, ratings around the average.
 TEST(SummaryLines, KeepLinesOfWholeCountsWhateverTheirLabels) {
     const CountTable read = read_count_table(grid({{"Rise", "Yes", "No"}, {"0-2%", 30, 45}, {"2-4%", 10, 80},

@@ -156,6 +156,22 @@ TEST(ValidityCheck, NamesLeapDaysAndTheEndsOfTheDateRangeRight) {
     }
 }
 
+TEST(ValidityCheck, IsDoubtfulNotSoundWhenYearsMayHaveBeenReadAsCounts) {
+    const CountTable table = assoc::test::table({{"Dept", 2023, 2024, 2025}, {"Sales", 12, 15, 9}, {"Legal", 30, 28, 33}});
+    EXPECT_EQ(check_validity(table).summary().rfind("Doubtful: Row 1 holds whole numbers that look like years", 0), 0u);
+}
+
+// Invented: promotions by the number of courses taken, the numbers typed as numbers.
+TEST(ValidityCheck, IsDoubtfulWhenTheFirstRowCountsUpByOneAsCategoryNumbersDo) {
+    const CountTable table =
+        assoc::test::table({{"Courses", 0, 1, 2, 3}, {"Promoted", 5, 9, 14, 20}, {"Not promoted", 20, 16, 11, 5}});
+    EXPECT_EQ(check_validity(table).summary().rfind(
+                  "Doubtful: Row 1 holds the whole numbers 0, 1, 2, …, which look like the numbers of ordered categories",
+                  0),
+              0u)
+        << check_validity(table).summary();
+}
+
 TEST(ValidityCheck, SaysNothingAboutYearsWhenTheyAreTextLabels) {
     const CountTable table = assoc::test::table({{"2023", "2024", "2025"}, {12, 15, 9}, {30, 28, 33}});
     EXPECT_EQ(check_validity(table).summary().find("look like years"), std::string::npos);

@@ -83,6 +83,9 @@ const Function functions[] = {
      {"first", "second"}},
     {"readone", "TRANSFERFLOOR.READONE", "Bench only: reads every element of one range, returns their number",
      {"range", nullptr}},
+    {"readtable", "TRANSFERFLOOR.READTABLE",
+     "Bench only: reads every element of one range and its optional second argument, returns their number",
+     {"range", "option"}},
 };
 
 const Function* by_method(const OUString& method) {
@@ -115,6 +118,13 @@ public:
         Tally tally;
         read_range(range, tally);
         return finish(tally);
+    }
+    Any SAL_CALL readtable(const AnyTable& range, const Any& option) override {
+        Tally tally;
+        read_range(range, tally);
+        read_element(option, tally);
+        tally.elements -= 1;  // the option is read, not counted
+        return Any(finish(tally));
     }
 
     // XAddIn

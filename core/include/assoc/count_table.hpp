@@ -99,7 +99,7 @@ public:
 
 private:
     friend CountTable read_count_table(const CellGrid&, const ReadOptions&);
-    void finish(const Matrix& body, const ReadOptions& options, const std::vector<bool>& total_rows,
+    void finish(Matrix body, const ReadOptions& options, const std::vector<bool>& total_rows,
                 const std::vector<bool>& total_columns);
 
     Matrix counts_;

@@ -23,6 +23,7 @@ struct RecordCounts {
     // Records in the ranges: their cells, without a header in the first cell and without the blank
     // cells after the last record (see record_span.hpp).
     std::size_t records = 0;
+    bool header_left_out = false;   // the first cell of the ranges was read as a header (record_span.hpp)
     std::size_t skipped_blank = 0;  // records left out because a label is blank
     // Records left out because their weight is blank, and their rows (columns) in the ranges, 1-based.
     std::size_t skipped_weight = 0;

@@ -15,5 +15,11 @@ public:
 inline void require(bool condition, const std::string& message) {
     if (!condition) throw Error(message);
 }
+// The same for a fixed message, which then costs nothing when the condition holds (checks on the
+// path of every cell formula run thousands of times per recalculation). A message composed with
+// numbers is better built only on failure: `if (!condition) throw Error(...)`.
+inline void require(bool condition, const char* message) {
+    if (!condition) throw Error(message);
+}
 
 }  // namespace assoc

@@ -30,6 +30,7 @@ struct LongStrata {
     std::vector<std::string> column_labels;  // from the header row; "" without one
     std::vector<LongStratum> strata;         // in the order of the range
     std::size_t empty_rows = 0;              // wholly blank rows of the range, skipped
+    std::vector<std::string> remarks;        // total rows, strata and columns set aside, in words
 };
 
 // Reads the long layout. The first row is a header when it holds no number and its count columns
@@ -41,7 +42,10 @@ struct LongStrata {
 // - a stratum is a run of rows with the same stratum label; the runs may come in any order, but a
 //   stratum's rows must be together (a label that comes back after another stratum is an error, not
 //   silently joined or split);
-// - a row label appears at most once within a stratum.
+// - a row label appears at most once within a stratum;
+// - rows whose row label or stratum label names a total ("Total", "All", … as total_lines.hpp knows
+//   them), and count columns whose header names one, are set aside and named in `remarks`: a total
+//   is not more people.
 // At most `max_cells` counts are read (strata × row labels × columns).
 LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells = 2'000'000);
 

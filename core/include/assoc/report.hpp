@@ -29,6 +29,9 @@ struct ReportOptions {
     // The exact test runs on every recalculation of the report, so it gets a short leash
     // (work_limits.hpp); past it the line says why it was not computed (ASSOC.EXACT allows more).
     ExactLimits exact_limits = default_report_exact_limits;
+    // How the exact p-value is computed: exact_p_value, or a caller's equivalent that remembers
+    // earlier answers (the add-in's cache); it must give the same answers and the same errors.
+    double (*exact_test)(const CountTable&, Side, const ExactLimits&) = exact_p_value;
 };
 
 // The lines, always the same ones in the same order so that a sheet can refer to them by

@@ -17,6 +17,10 @@ namespace assoc {
 struct ExactLimits {
     double max_seconds = 20.0;
     std::size_t max_memory_bytes = 1'000'000'000;  // 1 GB
+    // Refuse at once a table that cannot finish within the limits: the r×c test counts the work of
+    // each of its stages before doing it and measures its pace as it goes, and stops as soon as the
+    // rest cannot fit (see freeman_halton.cpp). Off, it runs until a limit is reached (benches).
+    bool forecast = true;
 };
 
 // The exact part of the report runs whenever the report does, so it has a short leash by default.
