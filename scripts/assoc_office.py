@@ -130,7 +130,7 @@ class ThrowawayOffice:
     def _start(self):
         started = time.monotonic()
         pipe = f"assoc_{os.getpid()}_{uuid.uuid4().hex[:8]}"
-        self.office_log = open(self.folder / "soffice.log", "w")
+        self.office_log = open(self.folder / "soffice.log", "a")  # a restart adds to it
         unseen = [] if self.display else ["--headless", "--invisible"]
         self.process = subprocess.Popen(
             [SOFFICE, *unseen, "--nologo", "--norestore", "--nodefault", "--nolockcheck",
@@ -163,6 +163,46 @@ class ThrowawayOffice:
 
     def close(self):
         """Quits the office (killing its process group if it lingers) and removes the folder."""
+        self._quit()
+        if self.folder is not None:
+            shutil.rmtree(self.folder, ignore_errors=True)
+            self.folder = None
+
+    def restart(self):
+        """Quits the office and starts it again on the same profile, as a user closes LibreOffice and
+        opens it again. Documents of the office are gone; open them again with load()."""
+        self._quit()
+        self._start()
+
+    def remove_extension(self):
+        """Quits the office, removes the extension from the throwaway profile and starts the office
+        again (without the extension), as a colleague's office without it."""
+        self._quit()
+        result = subprocess.run([UNOPKG, "remove", "--shared", "-s", *self.office_flags, self.identifier()],
+                                env=self.env, capture_output=True, text=True, timeout=INSTALL_TIMEOUT_SECONDS,
+                                start_new_session=True)
+        if result.returncode != 0:
+            raise RuntimeError(f"unopkg remove failed ({result.returncode}):\n{result.stdout}{result.stderr}")
+        self._start()
+
+    def add_extension(self):
+        """Quits the office, installs the extension again and starts the office again."""
+        self._quit()
+        self._install_extension()
+        self._start()
+
+    def identifier(self):
+        """The extension's identifier, from the description.xml inside the .oxt."""
+        import re
+        import zipfile
+        with zipfile.ZipFile(self.oxt) as archive:
+            found = re.search(rb'<identifier value="([^"]+)"', archive.read("description.xml"))
+        if not found:
+            raise RuntimeError(f"{self.oxt} has no identifier in its description.xml")
+        return found.group(1).decode()
+
+    def _quit(self):
+        """Quits the office (killing its process group if it lingers); keeps the folder."""
         asked_to_quit = False
         if self.desktop is not None:
             try:
@@ -194,9 +234,6 @@ class ThrowawayOffice:
         if getattr(self, "office_log", None) is not None:
             self.office_log.close()
             self.office_log = None
-        if self.folder is not None:
-            shutil.rmtree(self.folder, ignore_errors=True)
-            self.folder = None
 
     # -- working with documents ---------------------------------------------------------------
 

@@ -7,7 +7,9 @@ set -euo pipefail
 # libreoffice-calc (not the -nogui variant): the same office runs headless for the tests and in a
 # window under a virtual X server (xvfb) for the visible test of the menu command, which takes its
 # screenshots with python3-pil.
-packages=(cmake g++ make libboost-math-dev libgtest-dev libicu-dev
+# clang-14 and libclang-rt-14-dev (its sanitizer and libFuzzer runtimes): the second compiler and the
+# fuzz targets of the test command (build-clang/); gcc's sanitizer runtimes come with g++.
+packages=(cmake g++ make libboost-math-dev libgtest-dev libicu-dev clang-14 libclang-rt-14-dev
           libreoffice-dev libreoffice-calc python3 python3-uno python3-pil poppler-utils xvfb xauth)
 for arg in "$@"; do
   case "$arg" in

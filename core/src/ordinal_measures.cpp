@@ -42,6 +42,21 @@ Pairs pairs(const CountTable& table) {
     return result;
 }
 
+// n² − Σ T² over one side's totals T (twice the pairs not tied on that side), as Σ T_i·(Σ_{k≠i} T_k):
+// when one total dwarfs the others, n² and Σ T² share their leading digits and their difference
+// loses them (2.5% off for 1e15 beside a few ones); the sum of products loses none.
+double untied_pairs(const std::vector<double>& totals, int scale) {
+    std::vector<double> after(totals.size() + 1, 0.0);
+    for (std::size_t i = totals.size(); i-- > 0;) after[i] = after[i + 1] + std::ldexp(totals[i], -scale);
+    double before = 0.0, untied = 0.0;
+    for (std::size_t i = 0; i < totals.size(); ++i) {
+        const double total = std::ldexp(totals[i], -scale);
+        untied += total * (before + after[i + 1]);
+        before += total;
+    }
+    return untied;
+}
+
 void require_ordered_table(const CountTable& table, const char* measure) {
     require(table.rows() >= 2 && table.columns() >= 2,
             std::string(measure) + " needs at least 2 rows and 2 columns with counts");
@@ -62,11 +77,8 @@ double kendall_tau_b(const CountTable& table) {
     require_ordered_table(table, "tau-b");
     const Pairs p = pairs(table);
     const int scale = pair_scale(table);
-    const double n = std::ldexp(table.total(), -scale);
-    double row_squares = 0.0, column_squares = 0.0;
-    for (double total : table.row_totals()) row_squares += std::ldexp(total, -scale) * std::ldexp(total, -scale);
-    for (double total : table.column_totals()) column_squares += std::ldexp(total, -scale) * std::ldexp(total, -scale);
-    const double untied_rows = n * n - row_squares, untied_columns = n * n - column_squares;
+    const double untied_rows = untied_pairs(table.row_totals(), scale);
+    const double untied_columns = untied_pairs(table.column_totals(), scale);
     require(untied_rows > 0 && untied_columns > 0, "tau-b is undefined: every pair of counts is tied on the rows or the columns");
     const double tau = 2 * (p.concordant - p.discordant) / (std::sqrt(untied_rows) * std::sqrt(untied_columns));
     return std::fmax(-1.0, std::fmin(1.0, tau));

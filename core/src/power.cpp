@@ -29,7 +29,10 @@ void check_w(double w) {
 double power_at(double lambda, double df, double critical_value, double alpha) {
     // With no effect the chance of rejecting is alpha by the definition of the critical value;
     // recomputing it from the critical value would be off in the last digit.
-    if (lambda == 0) return alpha;
+    // The power grows from alpha with slope ½[P(χ²(df + 2) > c) − P(χ²(df) > c)] ≤ ½ in λ, so below
+    // λ = 1e-17·alpha it is alpha to the last digit; Boost's series is unreliable for such a λ
+    // (subnormal noncentralities gave powers that fell as n doubled).
+    if (lambda < 1e-17 * alpha) return alpha;
     // The chance of missing is P(X ≤ c) ≤ e^(c/2) E[e^(−X/2)] = e^(c/2 − λ/4) 2^(−df/2) (Chernoff's
     // bound at t = 1/2). Past e^−750 it is below the smallest double, so the power is exactly 1 in
     // double precision; Boost's series would give up on such a λ (about 2^31 and beyond).

@@ -54,7 +54,8 @@ RatioEstimate log_scale_estimate(double log_estimate, double log_standard_error,
     result.zero_cell_corrected = zero_cell_corrected;
     if (zero_cell_corrected) result.remark = zero_cell_correction_remark();
     require(std::isfinite(result.estimate) && std::isfinite(result.upper) && result.lower > 0,
-            "the ratio is too large or too small for a spreadsheet number with these counts");
+            "the ratio or its confidence limits are too large or too small for a spreadsheet number with these "
+            "counts");
     return result;
 }
 

@@ -29,20 +29,40 @@ bool is_header_line(std::size_t length, CellAt cell_at) {
     return any_text;
 }
 
-// Whole numbers from 1900 to 2100 rising along a first row or column are most likely years
-// meant as labels; read as counts they would silently change the test.
+// Whole numbers from `low` to `high` rising along a first row or column: years (1900 to 2100) or
+// dates (a spreadsheet hands a date over as its day count) most likely meant as labels; read as counts
+// they would silently change the test.
 template <class CellAt>
-bool looks_like_years(std::size_t length, CellAt cell_at) {
+bool looks_like_labels(std::size_t length, CellAt cell_at, double low, double high) {
     if (length < 2) return false;
     double previous = 0;
     for (std::size_t i = 0; i < length; ++i) {
         const Cell& cell = cell_at(i);
         if (!cell.is_number()) return false;
         const double v = cell.as_number();
-        if (v != std::floor(v) || v < 1900 || v > 2100 || (i > 0 && v <= previous)) return false;
+        if (v != std::floor(v) || v < low || v > high || (i > 0 && v <= previous)) return false;
         previous = v;
     }
     return true;
+}
+
+// Dates from 1 January 1990 to 31 December 2099 as spreadsheets store them: days since 30 December 1899.
+constexpr double first_date_serial = 32874, last_date_serial = 73050;
+
+// "1 January 2024" for the day count 45292 (days since 30 December 1899; civil calendar from days
+// since 1970 after H. Hinnant's days_from_civil inverse, exact for every day of the range).
+std::string date_of_serial(double serial) {
+    const long z = static_cast<long>(serial) - 25569 + 719468;  // 25569: 1 January 1970
+    const long era = z / 146097, day_of_era = z - era * 146097;
+    const long year_of_era = (day_of_era - day_of_era / 1460 + day_of_era / 36524 - day_of_era / 146096) / 365;
+    const long day_of_year = day_of_era - (365 * year_of_era + year_of_era / 4 - year_of_era / 100);
+    const long shifted_month = (5 * day_of_year + 2) / 153;
+    const long day = day_of_year - (153 * shifted_month + 2) / 5 + 1;
+    const long month = shifted_month < 10 ? shifted_month + 3 : shifted_month - 9;
+    const long year = year_of_era + era * 400 + (month <= 2 ? 1 : 0);
+    static const char* const names[] = {"January", "February", "March",     "April",   "May",      "June",
+                                        "July",    "August",   "September", "October", "November", "December"};
+    return std::to_string(day) + " " + names[month - 1] + " " + std::to_string(year);
 }
 
 // 0, 1, 2, … or 1, 2, 3, … along a first row or column of at least 3: the numbers of ordered
@@ -129,10 +149,17 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
     // call, and thousands of ASSOC.PVALUE cells each read a small table).
     std::vector<std::string> label_doubts;
     const auto doubt_numbers_as_labels = [&](const char* line, std::size_t length, auto cell_at) {
-        if (looks_like_years(length, cell_at)) {
+        if (looks_like_labels(length, cell_at, 1900, 2100)) {
             label_doubts.push_back(std::string(line) +
                                    " holds whole numbers that look like years, and they were read as counts; if they "
                                    "are labels, enter them as text (type an apostrophe first: '2024) or add a text header.");
+        } else if (looks_like_labels(length, cell_at, first_date_serial, last_date_serial)) {
+            // A date arrives as its day count whatever the cell shows, so the doubt names the day it stands for.
+            const double first = cell_at(0).as_number();
+            label_doubts.push_back(std::string(line) + " holds whole numbers that look like dates (a spreadsheet stores "
+                                   "a date as its day count: " + format_count(first) + " is " + date_of_serial(first) +
+                                   "), and they were read as counts; if they are labels, enter them as text or add a "
+                                   "text header.");
         } else if (looks_like_steps(length, cell_at)) {
             const double start = cell_at(0).as_number();
             const std::string list = format_count(start) + ", " + format_count(start + 1) + ", " + format_count(start + 2) +

@@ -230,7 +230,9 @@ Strata read_strata(const CellGrid& given) {
                 require(rows % 2 == 0, "stacked 2×2 tables need an even number of rows of counts; this range has " +
                                            std::to_string(rows));
                 blocks = blocks_of(2, rows);
-                result.remarks.push_back("The row labels do not show which rows form a stratum, so the rows were "
+                // No rows at all (every row set aside as a total) is refused below: fewer than 2 strata.
+                if (rows >= 2)
+                    result.remarks.push_back("The row labels do not show which rows form a stratum, so the rows were "
                                          "taken two by two in order (" +
                                          numbered_lines("row", {numbers[0], numbers[1]}) + " the first stratum, and so "
                                          "on); if that is wrong, give a first label column that names the strata.");

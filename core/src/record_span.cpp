@@ -1,6 +1,8 @@
 #include "record_span.hpp"
 
 #include <algorithm>
+#include <set>
+#include <string_view>
 
 #include "assoc/error.hpp"
 #include "assoc/wording.hpp"
@@ -28,13 +30,18 @@ bool unique_text_at_start(const CodedLabels& labels, std::size_t end) {
 }
 
 // Whether some label comes twice among positions 1 to end − 1.
+// Texts are compared as texts, as unique_text_at_start does: the host may hand equal texts over as
+// different spellings (the records fuzz target found the remark below given by one route and not the other).
 bool repeats_below(const CodedLabels& labels, std::size_t end) {
-    std::vector<bool> seen(labels.spellings.size(), false);
+    std::set<std::string_view> texts;
+    std::set<double> numbers;
     for (std::size_t i = 1; i < end && i < labels.codes.size(); ++i) {
         const std::uint32_t code = labels.codes[i];
-        if (code == CodedLabels::blank || code >= seen.size()) continue;
-        if (seen[code]) return true;
-        seen[code] = true;
+        if (code == CodedLabels::blank || code >= labels.spellings.size()) continue;
+        const Cell& spelling = labels.spellings[code];
+        const bool fresh = spelling.is_text() ? texts.insert(trimmed_label(spelling.as_text())).second
+                                              : numbers.insert(spelling.as_number()).second;
+        if (!fresh) return true;
     }
     return false;
 }

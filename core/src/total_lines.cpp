@@ -58,7 +58,8 @@ struct Lines {
     }
 };
 
-bool same_amount(double a, double b) { return std::fabs(a - b) <= 1e-9 * std::max({1.0, std::fabs(a), std::fabs(b)}); }
+// Relative only: counts of any size (1e-300 as well as 1e300) are compared to their own digits.
+bool same_amount(double a, double b) { return std::fabs(a - b) <= 1e-9 * std::max(std::fabs(a), std::fabs(b)); }
 
 // Whether `line` holds the sum of `others` (leaving out `except`) at every position not excluded
 // by `skip`.

@@ -71,8 +71,10 @@ TrendResult trend_test(const Matrix& table, const std::vector<double>& scores) {
     require(spread.hi > 0x1p-96 * (n * weighted_squares).hi,
             "the categories that hold counts all have the same score, so there is no order to test");
     const DoubleDouble numerator = n * weighted_events - events * weighted;
+    // Each factor under its own root: with one count near 1e301 beside single digits, X, N − X and U
+    // scale to about 1, 1e-300 and 1e-300, whose product underflowed to 0 (z was infinite).
     const double scaled_z = numerator.value() * std::sqrt(n.value()) /
-                            std::sqrt(events.value() * others.value() * spread.value());
+                            (std::sqrt(events.value()) * std::sqrt(others.value()) * std::sqrt(spread.value()));
     result.z = std::ldexp(scaled_z, count_exponent / 2);
     result.statistic = result.z * result.z;
     const boost::math::normal_distribution<double, detail::Policy> normal;

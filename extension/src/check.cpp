@@ -160,6 +160,8 @@ std::string check_range(const CellGrid& range, const Cell& function_or_word) {
         return "The second argument must be an option word or the name of an ASSOC function (for example \"exact\"), not " +
                function_or_word.describe() + ".";
     const std::string word = normalized_word(function_or_word.as_text());
+    // Only spaces: blank, as every function reads such an option word (its default).
+    if (word.empty()) return verdict(range);
     const std::string name = word.rfind("assoc.", 0) == 0 ? word.substr(6) : word;
 
     std::vector<Candidate> candidates;

@@ -59,6 +59,15 @@ TEST(KendallTauB, IsSmallerThanGammaWhenThereAreTies) {
     EXPECT_LT(std::fabs(kendall_tau_b(job)), std::fabs(goodman_kruskal_gamma(job)));
 }
 
+// Exact fractions (Python's fractions): for [[1e15, 1], [1, 1]], C − D = 1e15 − 1 and the untied pairs
+// on either side 2·(1e15 + 1)·2, so τ-b = (1e15 − 1)/(2e15 + 2); n² − ΣT² lost 2.5% of it (found by
+// the ordinal fuzz target: τ-b further from 0 than γ).
+TEST(KendallTauB, KeepsItsDigitsWhenOneCountDwarfsTheOthers) {
+    const CountTable lopsided = table({{1e15, 1}, {1, 1}});
+    EXPECT_NEAR_REL(kendall_tau_b(lopsided), 0.499999999999999, 1e-14);
+    EXPECT_NEAR_REL(goodman_kruskal_gamma(lopsided), 0.999999999999998, 1e-14);
+}
+
 // Exact identity: both measures are ratios of pair counts, so multiplying every count by the same
 // factor changes neither, also for weights so large that n² would overflow.
 TEST(OrdinalMeasures, AreUnchangedWhenEveryCountIsMultipliedByAHugeFactor) {

@@ -30,6 +30,13 @@ TEST(ChiSquaredPower, IsAlphaForAnEffectOfZero) {
 
 // Exact bound: P(miss) ≤ e^(c/2 − λ/4)·2^(−df/2) (Chernoff at t = 1/2), here e^(−2.5e9): the power
 // is 1 in double precision, also where the noncentral series cannot be summed.
+// Exact identity: the power's slope in λ is ½[P(χ²(df + 2) > c) − P(χ²(df) > c)] ≤ ½, so a subnormal
+// noncentrality leaves it at alpha to the last digit (the fuzz target found it falling as n doubled).
+TEST(ChiSquaredPower, IsAlphaForASubnormalNoncentralityWhateverN) {
+    for (double n : {0x1p-1074, 0x1p-1073, 1e-310, 1e-300})
+        EXPECT_EQ(chi_squared_power(19, n, 1, 0.05), 0.05) << n;
+}
+
 TEST(ChiSquaredPower, IsOneWhenTheNoncentralityIsHuge) {
     EXPECT_EQ(chi_squared_power(1, 1e10, 1), 1.0);
     EXPECT_EQ(chi_squared_power(0.5, 1e12, 30, 0.001), 1.0);

@@ -73,6 +73,14 @@ TEST(TotalLines, RefusesAColumnWithoutALabelThatHoldsTheSumOfTheOthersCountingRo
                  "set aside). If it does hold counts, give the columns labels");
 }
 
+// Found by the bad-input battery: at 1e-300 every difference fell below an absolute tolerance.
+TEST(TotalLines, TakesNoLineOfTinyCountsForATotalWhenItIsNotTheSum) {
+    const CountTable read = read_count_table(grid({{10e-300, 20e-300, 30e-300}, {20e-300, 20e-300, 20e-300},
+                                                   {30e-300, 20e-300, 10e-300}}));
+    EXPECT_EQ(read.rows(), 3u);
+    EXPECT_EQ(read.columns(), 3u);
+}
+
 TEST(TotalLines, RefusesUnlabelledTotalsOnBothSides) {
     EXPECT_THROW(read_count_table(grid({{30, 45, 75}, {10, 80, 90}, {40, 125, 165}})), Error);
 }

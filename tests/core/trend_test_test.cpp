@@ -4,6 +4,8 @@
 // formula in numpy 1.24.2 / scipy 1.10.1 (tests/reference/workflow_generate.*).
 #include <gtest/gtest.h>
 
+#include <cmath>
+
 #include "assoc/trend_test.hpp"
 #include "published_tables.hpp"
 #include "test_support.hpp"
@@ -61,6 +63,16 @@ TEST(TrendTest, IsUnchangedByShiftingAndStretchingTheScores) {
     const TrendResult plain = trend_test(alcohol(), alcohol_scores());
     const TrendResult moved = trend_test(alcohol(), grid({{10, 11, 13, 18, 24}}));
     EXPECT_NEAR_REL(moved.z, plain.z, 1e-12);
+}
+
+// Exact identity: z grows with the square root of the counts, so the table times 2^10 (exact) has
+// z times 2^5. With 5.1e301 beside single digits the root's factors are about 1, 1e-300 and 1e-300,
+// whose product underflowed (z was infinite; found by the trend fuzz target).
+TEST(TrendTest, KeepsZFiniteWithACountNear1e301BesideSingleDigits) {
+    const TrendResult huge = trend_test(grid({{5.1e301, 0, 0}, {8, 9, 4}}), grid({{0, 1, 1}}));
+    const TrendResult larger = trend_test(grid({{5.1e301 * 1024, 0, 0}, {8 * 1024, 9 * 1024, 4 * 1024}}), grid({{0, 1, 1}}));
+    ASSERT_TRUE(std::isfinite(huge.z));
+    EXPECT_NEAR_REL(huge.z * 32, larger.z, 1e-12);
 }
 
 TEST(TrendTest, ReadsATwoByTwoTheSameWayRoundEitherWay) {

@@ -132,6 +132,30 @@ TEST(ValidityCheck, WarnsWhenTheFirstRowLooksLikeYearsReadAsCounts) {
         << summary;
 }
 
+// Issue 9: a date arrives from a spreadsheet as its day count since 30 December 1899 (45292 is
+// 1 January 2024, 45323 is 1 February 2024: common practice of spreadsheets), so a header row of
+// dates is read as counts unless the check says so.
+TEST(ValidityCheck, WarnsWhenTheFirstRowLooksLikeDatesReadAsCountsAndNamesTheFirstDate) {
+    const CountTable table = assoc::test::table({{45292, 45323, 45352}, {4, 5, 6}, {7, 8, 9}});
+    const std::string summary = check_validity(table).summary();
+    EXPECT_NE(summary.find("Row 1 holds whole numbers that look like dates (a spreadsheet stores a date as its day "
+                           "count: 45,292 is 1 January 2024), and they were read as counts; if they are labels, enter "
+                           "them as text or add a text header."),
+              std::string::npos)
+        << summary;
+}
+
+TEST(ValidityCheck, NamesLeapDaysAndTheEndsOfTheDateRangeRight) {
+    // The first day, a leap day and the last two days of the range as day counts (Python's datetime
+    // gives the same dates); the first of the two rising numbers is named.
+    for (const auto& [serial, day] : {std::pair<double, const char*>{32874, "is 1 January 1990"},
+                                      {45351, "is 29 February 2024"}, {73049, "is 30 December 2099"}}) {
+        const CountTable table = assoc::test::table({{serial, 5}, {serial + 1, 4}});
+        const std::string summary = check_validity(table).summary();
+        EXPECT_NE(summary.find(day), std::string::npos) << summary;
+    }
+}
+
 TEST(ValidityCheck, IsDoubtfulNotSoundWhenYearsMayHaveBeenReadAsCounts) {
     const CountTable table = assoc::test::table({{"Dept", 2023, 2024, 2025}, {"Sales", 12, 15, 9}, {"Legal", 30, 28, 33}});
     EXPECT_EQ(check_validity(table).summary().rfind("Doubtful: Row 1 holds whole numbers that look like years", 0), 0u);
