@@ -2,6 +2,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <string_view>
+#include <unordered_map>
 
 #include "assoc/cell.hpp"
 #include "assoc/error.hpp"
@@ -280,18 +282,20 @@ void refuse_summaries(const Lines& lines, const BodySide& side, const std::vecto
 void doubt_repeated_labels(const BodySide& side, const std::vector<bool>& total, std::vector<std::string>& doubts) {
     if (!side.labelled) return;
     const std::vector<std::string>& labels = *side.labels;
-    std::vector<bool> said(labels.size(), false);
+    // Each label's lines in one pass (a table may have thousands of lines), said in order of first use.
+    std::unordered_map<std::string_view, std::vector<std::size_t>> lines_of;
+    std::vector<std::string_view> order;
     for (std::size_t i = 0; i < labels.size(); ++i) {
-        if (labels[i].empty() || total[i] || said[i]) continue;
-        std::vector<std::size_t> numbers{side.first_number + i};
-        for (std::size_t j = i + 1; j < labels.size(); ++j)
-            if (!total[j] && labels[j] == labels[i]) {
-                numbers.push_back(side.first_number + j);
-                said[j] = true;
-            }
+        if (labels[i].empty() || total[i]) continue;
+        std::vector<std::size_t>& lines = lines_of[labels[i]];
+        if (lines.empty()) order.push_back(labels[i]);
+        lines.push_back(side.first_number + i);
+    }
+    for (std::string_view label : order) {
+        const std::vector<std::size_t>& numbers = lines_of[label];
         if (numbers.size() < 2) continue;
         doubts.push_back(capitalised(numbered_lines(side.word, numbers)) + " have the same label, " +
-                         quoted_label(labels[i]) + ", and were tested as different " + side.word +
+                         quoted_label(label) + ", and were tested as different " + side.word +
                          "s; if they are one group, add their counts together.");
     }
 }
