@@ -4,6 +4,7 @@
 #include <algorithm>
 #include <cmath>
 #include <string>
+#include <vector>
 
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
@@ -37,40 +38,60 @@ TrendResult trend_test(const Matrix& table, const std::vector<double>& scores) {
                 "counts must be numbers of 0 or more");
         if (!std::isfinite(score(i))) throw Error("scores must be ordinary numbers, not " + format_number(score(i)));
     }
-    // z = T √N / √(X (N − X) U) with T = N Σ x s − X Σ n s and U = N Σ n s² − (Σ n s)²: the same z
-    // without the mean score, whose rounding cost up to 2e-11 of z at counts near 1e5 (and z enters a
-    // far-tail p-value roughly squared). Every sum is in double-double from exact products, on counts
-    // scaled by an even power of two and scores by any power of two (both exact; z scales with the
+    // z = T √N / √(X Y U), X and Y the two outcomes' totals, N = X + Y, with
+    //   T = Σ (x_i Y − y_i X) d_i   and   U = N Σ n_i d_i² − (Σ n_i d_i)²,
+    // where d_i = s_i − s_m is each score less the score of the category with the most counts. Any
+    // shift of the scores gives the same T and U in exact arithmetic (Σ (x_i Y − y_i X) = 0); this
+    // one keeps U free of cancellation: the category m weighs at least 1/k of N, so N Σ n d² is at
+    // most k + 1 times U. Centred on an arbitrary score instead (or written N Σ x s − X Σ n s), a
+    // count near 1e30 beside single digits left U and T as the difference of two numbers equal to
+    // 30 digits, and z depended on the scores at 2e-4 (fuzz/corpus/trend/lopsided_counts_*). Every
+    // sum is in double-double from exact products and differences, on counts scaled by an even
+    // power of two and differences of scores by any power of two (both exact; z scales with the
     // square root of the counts and not at all with the scores), so nothing overflows.
     using detail::DoubleDouble;
     using detail::exact_product;
-    double largest_count = 0.0, largest_score = 0.0;
+    using detail::exact_sum;
+    double largest_count = 0.0;
+    std::size_t most = 0;
     for (std::size_t i = 0; i < k; ++i) {
         largest_count = std::max({largest_count, first(i), second(i)});
-        largest_score = std::max(largest_score, std::fabs(score(i)));
+        if (first(i) + second(i) > first(most) + second(most)) most = i;
     }
     require(largest_count > 0, "the table holds no counts");
     const int count_exponent = 2 * (std::ilogb(largest_count) / 2);
-    const int score_exponent = largest_score > 0 ? std::ilogb(largest_score) : 0;
-    DoubleDouble n, events, others, weighted_events, weighted, weighted_squares;  // N, X, N − X, Σxs, Σns, Σns²
+    std::vector<DoubleDouble> difference(k);
+    double largest_difference = 0.0;
+    bool scores_differ = false;
     for (std::size_t i = 0; i < k; ++i) {
-        const double x = std::ldexp(first(i), -count_exponent), y = std::ldexp(second(i), -count_exponent);
-        const double s = std::ldexp(score(i), -score_exponent);
-        const DoubleDouble square = exact_product(s, s);
-        events = events + DoubleDouble{x, 0};
-        others = others + DoubleDouble{y, 0};
-        weighted_events = weighted_events + exact_product(x, s);
-        weighted = weighted + exact_product(x, s) + exact_product(y, s);
-        weighted_squares = weighted_squares + DoubleDouble{x, 0} * square + DoubleDouble{y, 0} * square;
+        difference[i] = exact_sum(score(i), -score(most));
+        largest_difference = std::max(largest_difference, std::fabs(difference[i].hi));
+        if (difference[i].hi != 0 && first(i) + second(i) > 0) scores_differ = true;
     }
-    n = events + others;
+    require(scores_differ, "the categories that hold counts all have the same score, so there is no order to test");
+    const int score_exponent = std::ilogb(largest_difference);
+    DoubleDouble events, others;  // X, N − X
+    std::vector<double> x(k), y(k);
+    for (std::size_t i = 0; i < k; ++i) {
+        x[i] = std::ldexp(first(i), -count_exponent);
+        y[i] = std::ldexp(second(i), -count_exponent);
+        difference[i] = {std::ldexp(difference[i].hi, -score_exponent), std::ldexp(difference[i].lo, -score_exponent)};
+        events = events + DoubleDouble{x[i], 0};
+        others = others + DoubleDouble{y[i], 0};
+    }
     require(events.hi > 0 && others.hi > 0, std::string("every count is in the ") + (events.hi > 0 ? "first" : "second") +
                                                 " outcome, so there is no share that could change");
+    const DoubleDouble n = events + others;
+    DoubleDouble numerator, weighted, weighted_squares;  // T, Σ n d, Σ n d²
+    for (std::size_t i = 0; i < k; ++i) {
+        const DoubleDouble count = exact_sum(x[i], y[i]);
+        const DoubleDouble weighted_difference = count * difference[i];
+        weighted = weighted + weighted_difference;
+        weighted_squares = weighted_squares + weighted_difference * difference[i];
+        numerator = numerator + (DoubleDouble{x[i], 0} * others - DoubleDouble{y[i], 0} * events) * difference[i];
+    }
     const DoubleDouble spread = n * weighted_squares - weighted * weighted;
-    // Equal scores give U = 0 exactly in exact arithmetic; here it is within rounding of 0.
-    require(spread.hi > 0x1p-96 * (n * weighted_squares).hi,
-            "the categories that hold counts all have the same score, so there is no order to test");
-    const DoubleDouble numerator = n * weighted_events - events * weighted;
+    require(spread.hi > 0, "the scores of the categories that hold counts differ too little to be told apart");
     // Each factor under its own root: with one count near 1e301 beside single digits, X, N − X and U
     // scale to about 1, 1e-300 and 1e-300, whose product underflowed to 0 (z was infinite).
     const double scaled_z = numerator.value() * std::sqrt(n.value()) /

@@ -53,6 +53,11 @@ TEST(ExactRefusal, RefusesATableWhoseFuturesCannotFitInTheMemoryLimit) {
 // Tables of bench/exact_suite.txt that finish well within ASSOC.EXACT's limits (5 s, 400 MB), of
 // the shapes the forecast treats differently (few and many stages, 2 to 8 rows): computed, with
 // the very p-value the test gives without the forecast (exact identity: the forecast only reads).
+// The forecast reads the clock, so the limit here is four times the worksheet's: under the
+// sanitizers (build-sanitize/, build-clang/) the enumeration is 2 to 8 times slower, unevenly
+// across its stages, and on a machine running two test commands at once the 2×12 table was
+// refused at 5 s. That no table finishing within 5 s is refused in the release build is measured
+// by bench/exact_refusal_validation.cpp, not here.
 TEST(ExactRefusal, ComputesTablesThatFinishWithTheSameValueAsWithoutTheForecast) {
     const std::vector<std::vector<std::vector<double>>> tables = {
         {{6, 4, 8, 8, 5, 5}, {2, 15, 6, 8, 8, 4}, {0, 3, 9, 2, 4, 3}},                                    // 3x6_n100
@@ -67,6 +72,6 @@ TEST(ExactRefusal, ComputesTablesThatFinishWithTheSameValueAsWithoutTheForecast)
         for (const auto& row : rows) counts.insert(counts.end(), row.begin(), row.end());
         const CountTable table = counts_table(rows.size(), rows.front().size(), counts);
         const double without = exact_p_value(table, Side::two_sided, with_forecast(600, 400'000'000, false));
-        EXPECT_EQ(exact_p_value(table, Side::two_sided, with_forecast(5, 400'000'000)), without);
+        EXPECT_EQ(exact_p_value(table, Side::two_sided, with_forecast(20, 400'000'000)), without);
     }
 }

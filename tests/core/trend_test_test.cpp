@@ -75,6 +75,19 @@ TEST(TrendTest, KeepsZFiniteWithACountNear1e301BesideSingleDigits) {
     EXPECT_NEAR_REL(huge.z * 32, larger.z, 1e-12);
 }
 
+// Exact identity: on two categories z is (x₁y₂ − x₂y₁)√N / √(X Y n₁ n₂) whatever the two (different)
+// scores, up to their order. Expected value: mpmath 1.3.0 at 50 digits, -272165526975908.67758. With
+// 1e30 beside single digits the sums the statistic was formed from agreed to 30 digits, and z moved
+// by 2e-4 with the scores; (1, 2) was even refused as equal scores (found by the trend fuzz target).
+TEST(TrendTest, KeepsZIndependentOfTheScoresBesideACountNear1e30) {
+    const CellGrid table = grid({{4, 1e30}, {2, 7}});
+    const double expected = -272165526975908.67758;
+    EXPECT_NEAR_REL(trend_test(table, grid({{2, 2841e-300}})).z, expected, 1e-14);
+    EXPECT_NEAR_REL(trend_test(table, grid({{5, 1}})).z, expected, 1e-14);
+    EXPECT_NEAR_REL(trend_test(table, grid({{2, 1}})).z, expected, 1e-14);
+    EXPECT_NEAR_REL(trend_test(table).z, -expected, 1e-14);
+}
+
 TEST(TrendTest, ReadsATwoByTwoTheSameWayRoundEitherWay) {
     const TrendResult across = trend_test(grid({{12, 30}, {20, 18}}));
     const TrendResult down = trend_test(grid({{12, 20}, {30, 18}}));
