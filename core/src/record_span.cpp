@@ -6,6 +6,7 @@
 
 #include "assoc/error.hpp"
 #include "assoc/wording.hpp"
+#include "total_lines.hpp"
 
 namespace assoc::detail {
 namespace {
@@ -72,7 +73,10 @@ std::string record_place(const CodedLabels& labels, std::size_t i) {
     return std::string(labels.rows == 1 && labels.columns > 1 ? "column " : "row ") + std::to_string(i + 1);
 }
 
-RecordSpan record_span(const std::vector<const CodedLabels*>& labels, const Cell* first_weight, std::size_t weights_end) {
+namespace {
+
+RecordSpan records_and_header(const std::vector<const CodedLabels*>& labels, const Cell* first_weight,
+                              std::size_t weights_end) {
     RecordSpan span;
     for (const CodedLabels* range : labels) {
         std::size_t end = range->codes.size();
@@ -132,6 +136,41 @@ RecordSpan record_span(const std::vector<const CodedLabels*>& labels, const Cell
                     "text found nowhere else, above records whose labels repeat), in others it does not; if " + word +
                     " 1 is a header, start every range one " + word + " later; if it is a record, move it to "
                     "another " + word + " of the ranges");
+    return span;
+}
+
+// A list of records that ends in a line such as "Total | 250" (the count of the records above, typed
+// under them): that line is no record, and counting it would add a level of one person. It is refused
+// rather than left out, since ASSOC.LEVELS on another range of the same records cannot see it and
+// would list its other cells as a level. A total word counts only when it comes once in its range,
+// last: an answer "All" given by several people is a record.
+void refuse_total_line_at_end(const std::vector<const CodedLabels*>& labels, const RecordSpan& span) {
+    if (span.end <= span.first + 1) return;
+    const std::size_t last = span.end - 1;
+    for (const CodedLabels* range : labels) {
+        if (last >= range->codes.size() || !is_text_code(*range, range->codes[last])) continue;
+        const std::string& text = range->spellings[range->codes[last]].as_text();
+        if (!is_total_label(text)) continue;
+        const std::string_view trimmed = trimmed_label(text);
+        bool once = true;
+        for (std::size_t i = span.first; i < last && once; ++i) {
+            const std::uint32_t code = range->codes[i];
+            once = !(is_text_code(*range, code) && trimmed_label(range->spellings[code].as_text()) == trimmed);
+        }
+        if (!once) continue;
+        const bool several = labels.size() > 1;
+        throw Error("the last record, " + record_place(*range, last) + ", holds " + quoted_label(text) +
+                    ", which reads as a total line under the records rather than a record: leave it out of the " +
+                    (several ? "ranges" : "range") + " (Assoc counts the records itself); if it is a record, "
+                    "move it up among the others");
+    }
+}
+
+}  // namespace
+
+RecordSpan record_span(const std::vector<const CodedLabels*>& labels, const Cell* first_weight, std::size_t weights_end) {
+    RecordSpan span = records_and_header(labels, first_weight, weights_end);
+    refuse_total_line_at_end(labels, span);
     return span;
 }
 

@@ -191,6 +191,10 @@ std::string v_in_words(double value) {
     return buffer;
 }
 
+// "p = 0.0041", or "p < 1e-300" where the p-value is below the smallest number a double holds (it
+// is then 0, which would read as a certainty).
+std::string p_equals(double p) { return p == 0 ? "p < 1e-300" : "p = " + format_p_value(p); }
+
 void add_conclusion(const Findings& f, Lines& lines) {
     const VariableNames& names = f.options.variables;
     const std::string rows = names.rows.empty()
@@ -199,7 +203,7 @@ void add_conclusion(const Findings& f, Lines& lines) {
     const std::string columns = names.columns.empty()
                                     ? describe_side("columns", f.table.has_column_labels(), f.table.column_labels())
                                     : names.columns;
-    const std::string p = "(p = " + format_p_value(f.pearson.p_value) + ")";
+    const std::string p = "(" + p_equals(f.pearson.p_value) + ")";
     std::string text = "At the " + level(f.options.alpha) + " level, ";
     text += f.independence_rejected ? rows + " and " + columns + " appear associated " + p
                                     : "the data do not show an association between " + rows + " and " + columns +
@@ -219,7 +223,7 @@ void add_conclusion(const Findings& f, Lines& lines) {
     if (f.validity.exact_test_recommended) {
         text += " The chi-squared approximation is doubtful for this table (see the validity line), so this "
                 "p-value may be unreliable";
-        text += f.exact.value ? "; the exact test gives p = " + format_p_value(*f.exact.value) + "." : ".";
+        text += f.exact.value ? "; the exact test gives " + p_equals(*f.exact.value) + "." : ".";
     }
     lines.text("Conclusion", text);
 }

@@ -46,6 +46,22 @@ const char* const total_beginnings[] = {"total ",  "grand total", "subtotal ", "
                                                           "summe ",  "totale ",     "totaal ",   "totalt ",
                                                           "sub-total "};
 
+// Labels that name everyone ("All staff", "Overall figure", "Whole company"): not totals by the label
+// alone (a survey answer may read "All of the time"), but a line so labelled that also holds the sum
+// of the others is a total.
+const char* const whole_group_beginnings[] = {"all ",     "overall ",     "whole ",       "entire ",
+                                              "everyone", "everybody",    "company-wide", "company wide"};
+
+bool names_the_whole_group(std::string_view label) {
+    const std::string text = folded_total_label(label);
+    if (text == "company" || text == "everyone" || text == "everybody") return true;
+    for (const char* beginning : whole_group_beginnings) {
+        const std::string_view start(beginning);
+        if (text.size() >= start.size() && text.compare(0, start.size(), start) == 0) return true;
+    }
+    return false;
+}
+
 // A view of the body's rows, or of its columns, as lines of numbers.
 struct Lines {
     const Matrix& body;
@@ -143,6 +159,10 @@ void find_on_side(const Lines& lines, const BodySide& side, std::vector<bool>& t
                         " in every " + side.other_word + ", so it looks like a total, and a total must not be tested "
                         "as if it held more counts; leave it out of the range, or label it \"Total\" (it is then set "
                         "aside). If it does hold counts, give the " + side.word + "s labels");
+        }
+        if (names_the_whole_group(label)) {
+            total[candidate] = true;  // said with the other totals set aside
+            return;
         }
         doubts.push_back(capitalised(line_name(side, candidate)) + " holds the sum of the other " + side.word +
                          "s in every " + side.other_word + ": if it is a total, leave it out of the range or label "

@@ -78,10 +78,20 @@ class TotalsInsideTheRange(HabitCase):
 
     def test_a_line_labelled_as_data_that_holds_the_sum_is_doubtful_not_sound(self):
         rows = [row[:] for row in WITH_TOTALS]
-        rows[-1][0] = "Company"
+        rows[-1][0] = "Finance"
         table = self.put([row[:3] for row in rows])
         text = self.words("H1", f"=ASSOC.CHECK({table})")
-        self.assertTrue(text.startswith('Doubtful: The row "Company" holds the sum of the other rows'), text)
+        self.assertTrue(text.startswith('Doubtful: The row "Finance" holds the sum of the other rows'), text)
+
+    def test_a_line_that_names_everyone_and_holds_the_sum_is_set_aside(self):
+        rows = [row[:3] for row in WITH_TOTALS]
+        rows[-1][0] = "All staff"
+        table = self.put(rows)
+        without = self.put(PROMOTIONS, row=10)
+        self.assertEqual(self.number("H1", f"=ASSOC.PVALUE({table})"), self.number("H2", f"=ASSOC.PVALUE({without})"))
+        text = self.words("H3", f"=ASSOC.CHECK({table})")
+        self.assertTrue(text.startswith("Sound:"), text)
+        self.assertIn('The row "All staff" is a total and was set aside.', text)
 
 
 class WholeColumnsAndRecords(HabitCase):
@@ -119,6 +129,15 @@ class WholeColumnsAndRecords(HabitCase):
                              [[1, 1], [1, 1], [2, 2]])  # counted by hand from CHANNELS and OUTCOMES
         finally:
             sheets.removeByName("HabitRecords")
+
+    def test_a_total_line_under_the_records_is_refused_with_words(self):
+        self.put_records()
+        self.sheet.getCellRangeByName("C10:D10").setDataArray((("Total", 8),))
+        for formula in ("=ASSOC.COUNTS(C:C; D:D)", "=ASSOC.LEVELS(C1:C10)"):
+            with self.subTest(formula=formula):
+                self.refused(formula, '=ASSOC.CHECK(C:D; "counts")',
+                             'the last record, row 10, holds "Total", which reads as a total line under the records '
+                             "rather than a record")
 
     def test_row_1_stays_a_record_when_its_label_appears_again_below(self):
         self.sheet.getCellRangeByName("C1:C4").setDataArray((("Web",), ("Shop",), ("Web",), ("Shop",)))

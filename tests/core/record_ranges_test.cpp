@@ -217,3 +217,31 @@ TEST(LevelOrder, TakesAHundredLabels) {
     EXPECT_EQ(levels.front(), Cell::text("level 99"));
     EXPECT_EQ(levels.back(), Cell::text("level 0"));
 }
+
+// A count typed under the records ("Total | 5") is no record: counted, it would add a level of one
+// person on each side. It is refused, in both functions, with what was found.
+TEST(RecordRanges, RefuseATotalLineUnderTheRecords) {
+    expect_error(
+        [] {
+            counts_from_records(grid({{"Dept"}, {"Sales"}, {"Legal"}, {"Legal"}, {"Sales"}, {"Sales"}, {"Total"}}),
+                                grid({{"Outcome"}, {"Yes"}, {"No"}, {"Yes"}, {"No"}, {"Yes"}, {5}}));
+        },
+        "the last record, row 7, holds \"Total\", which reads as a total line under the records rather than a "
+        "record: leave it out of the ranges (Assoc counts the records itself); if it is a record, move it up among "
+        "the others");
+}
+
+TEST(RecordRanges, RefuseATotalLineUnderTheRecordsWhenListingTheirLevels) {
+    expect_error([] { distinct_levels(whole_column({"Dept", "Sales", "Legal", "Sales", nullptr, "Grand total"})); },
+                 "the last record, row 6, holds \"Grand total\", which reads as a total line under the records rather "
+                 "than a record: leave it out of the range (Assoc counts the records itself); if it is a record, move "
+                 "it up among the others");
+}
+
+// An answer that reads like a total word but that several people gave is a record.
+TEST(RecordRanges, CountAnAnswerAllGivenMoreThanOnceEvenLast) {
+    const RecordCounts counts =
+        counts_from_records(grid({{"Sales"}, {"Legal"}, {"Sales"}, {"Legal"}}), grid({{"All"}, {"Some"}, {"All"}, {"All"}}));
+    EXPECT_EQ(counts.records, 4u);
+    EXPECT_EQ(counts.column_levels.size(), 2u);
+}

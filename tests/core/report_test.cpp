@@ -151,6 +151,15 @@ TEST(AssociationReport, NamesTheVariablesOfTheCornerCellInTheConclusion) {
               "At the 5% level, gender and party appear associated (p = 3.0e-07)" + party_strength);
 }
 
+// X² = 2,000,000 on 1 degree of freedom: the tail, about exp(−10⁶), is far below the smallest
+// double (exact identity for this diagonal table: X² = n), so the p-value is 0 and is said as a bound.
+TEST(AssociationReport, SaysAPValueBelowTheSmallestDoubleAsABoundNotAsZero) {
+    const std::string conclusion = text(report_of(grid({{"", "Yes", "No"}, {"Group A", 1e6, 0}, {"Group B", 0, 1e6}})),
+                                        "Conclusion");
+    EXPECT_NE(conclusion.find("(p < 1e-300)"), std::string::npos) << conclusion;
+    EXPECT_EQ(conclusion.find("p = 0"), std::string::npos) << conclusion;
+}
+
 TEST(AssociationReport, NamesTheHeaderLabelsWhenTheCornerIsBlank) {
     EXPECT_EQ(text(report_of(party_range("")), "Conclusion"),
               "At the 5% level, the rows (Females, Males) and the columns (Democrat, Independent, Republican) "

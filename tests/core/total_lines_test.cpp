@@ -94,12 +94,34 @@ TEST(TotalLines, FindsATotalAtTheTopToo) {
 
 TEST(TotalLines, KeepsALineLabelledAsDataThatHoldsTheSumButDoubtsIt) {
     const CountTable read =
-        read_count_table(grid({{"", "Yes", "No"}, {"North", 5, 9}, {"South", 7, 3}, {"Company", 12, 12}}));
+        read_count_table(grid({{"", "Yes", "No"}, {"North", 5, 9}, {"South", 7, 3}, {"East", 12, 12}}));
     EXPECT_EQ(read.rows(), 3u);
     ASSERT_EQ(read.doubts().size(), 1u);
-    EXPECT_EQ(read.doubts()[0], "The row \"Company\" holds the sum of the other rows in every column: if it is a total, "
+    EXPECT_EQ(read.doubts()[0], "The row \"East\" holds the sum of the other rows in every column: if it is a total, "
                                 "leave it out of the range or label it \"Total\"; it was tested as counts.");
-    EXPECT_EQ(check_validity(read).summary().rfind("Doubtful: The row \"Company\"", 0), 0u);
+    EXPECT_EQ(check_validity(read).summary().rfind("Doubtful: The row \"East\"", 0), 0u);
+}
+
+// "All staff", "Company": labels that name everyone, on a line that holds the sum of the others.
+TEST(TotalLines, SetsAsideALineNamingEveryoneThatHoldsTheSum) {
+    for (const char* label : {"All staff", "Company", "Overall figure", "Whole company"}) {
+        const CountTable read =
+            read_count_table(grid({{"", "Yes", "No"}, {label, 12, 12}, {"North", 5, 9}, {"South", 7, 3}}));
+        EXPECT_EQ(read.rows(), 2u) << label;
+        EXPECT_TRUE(read.doubts().empty()) << label;
+        EXPECT_NE(check_validity(read).summary().find(std::string("The row \"") + label +
+                                                      "\" is a total and was set aside."),
+                  std::string::npos)
+            << label << ": " << check_validity(read).summary();
+    }
+}
+
+// A survey answer such as "All of the time" is data: by its label alone it is never a total.
+TEST(TotalLines, KeepsALineNamingEveryoneThatDoesNotHoldTheSum) {
+    const CountTable read =
+        read_count_table(grid({{"", "Yes", "No"}, {"All of the time", 12, 10}, {"Sometimes", 5, 9}, {"Never", 7, 3}}));
+    EXPECT_EQ(read.rows(), 3u);
+    EXPECT_TRUE(read.doubts().empty());
 }
 
 TEST(TotalLines, SetsAsideALabelledTotalThatIsNotTheSumButDoubtsIt) {
