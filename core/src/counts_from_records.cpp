@@ -1,11 +1,13 @@
 #include "assoc/counts_from_records.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdint>
 #include <limits>
 
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "assoc/levels.hpp"
 #include "assoc/wording.hpp"
 #include "cell_line.hpp"
 #include "level_index.hpp"
@@ -60,6 +62,37 @@ double checked_weight(const Cell& cell, const CodedLabels& shape, std::size_t i)
                     "record stands for, so it cannot be negative (leave out a record that undoes another, such as a "
                     "credit note, or net the two)");
     throw Error(where + " holds " + cell.describe() + "; weights must be numbers of 0 or more");
+}
+
+// Before/after answers or two raters' verdicts counted into a table are read by ASSOC.PAIRED by
+// position: row i and column i must be the same category. Each side's levels are its own, so when
+// the two sides share some labels but not all (nobody answered "Neutral" afterwards) the positions
+// no longer match, and a paired test of the table would compare different categories. Said here,
+// since the table itself carries no labels.
+std::string partial_overlap_remark(const std::vector<Cell>& rows, const std::vector<Cell>& columns) {
+    std::vector<std::string> row_texts, column_texts, shared, rows_only, columns_only;
+    for (const Cell& level : rows) row_texts.push_back(level_text(level));
+    for (const Cell& level : columns) column_texts.push_back(level_text(level));
+    const auto holds = [](const std::vector<std::string>& texts, const std::string& text) {
+        return std::find(texts.begin(), texts.end(), text) != texts.end();
+    };
+    for (const std::string& text : row_texts) (holds(column_texts, text) ? shared : rows_only).push_back(text);
+    for (const std::string& text : column_texts)
+        if (!holds(row_texts, text)) columns_only.push_back(text);
+    if (shared.empty() || (rows_only.empty() && columns_only.empty())) return "";
+    const auto quoted = [](const std::vector<std::string>& texts) {
+        std::vector<std::string> labels;
+        for (const std::string& text : texts) labels.push_back(quoted_label(text));
+        return name_list(labels);
+    };
+    std::string remark = "The row and column labels share " + quoted(shared) + " but not ";
+    if (!rows_only.empty()) remark += quoted(rows_only) + " (rows only)";
+    if (!rows_only.empty() && !columns_only.empty()) remark += " and ";
+    if (!columns_only.empty()) remark += quoted(columns_only) + " (columns only)";
+    return remark + ", so row k and column k are not always the same category: if the two ranges hold the same "
+                    "people's answers twice (before and after, two raters), the paired test (ASSOC.PAIRED) would "
+                    "compare different categories; give both sides every label with an order range, as in "
+                    "ASSOC.COUNTS(B2:B81; C2:C81; ; H1:H5) with the labels listed in H1:H5.";
 }
 
 }  // namespace
@@ -162,6 +195,8 @@ RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabel
     for (std::string& remark : order_remarks) result.remarks.push_back(std::move(remark));
     for (std::string& remark : row_index.lookalike_remarks("row labels")) result.remarks.push_back(std::move(remark));
     for (std::string& remark : column_index.lookalike_remarks("column labels")) result.remarks.push_back(std::move(remark));
+    std::string overlap = partial_overlap_remark(result.row_levels, result.column_levels);
+    if (!overlap.empty()) result.remarks.push_back(std::move(overlap));
     return result;
 }
 

@@ -139,6 +139,20 @@ class WholeColumnsAndRecords(HabitCase):
                              'the last record, row 10, holds "Total", which reads as a total line under the records '
                              "rather than a record")
 
+    def test_paired_answers_whose_sides_hold_different_labels_are_said_and_an_order_aligns_them(self):
+        before = ["Agree", "Neutral", "Agree", "Neutral", "Agree", "Agree", "Neutral", "Agree"]
+        after = ["Agree", "Disagree", "Agree", "Agree", "Disagree", "Agree", "Disagree", "Agree"]
+        self.sheet.getCellRangeByName("C1:D8").setDataArray(tuple(zip(before, after)))
+        self.sheet.getCellRangeByName("E1:E3").setDataArray((("Agree",), ("Neutral",), ("Disagree",)))
+        self.assertIn('The row and column labels share "Agree" but not "Neutral" (rows only) and "Disagree" '
+                      "(columns only)", self.words("F10", '=ASSOC.CHECK(C1:D8; "counts")'))
+        # Aligned by the order: 3×3 with rows and columns Agree, Neutral, Disagree (counted by hand), whose
+        # Bowker statistic is (0−1)²/1 + (1−0)²/1 + (2−0)²/2 = 4 on 3 degrees of freedom; p from scipy
+        # 1.10.1, chi2.sf(4, 3). Read by position without the order, the same answers give p = 1.
+        self.assertEqual(self.array("G1:I3", "=ASSOC.COUNTS(C1:C8; D1:D8; ; E1:E3)"), [[4, 0, 1], [1, 0, 2], [0, 0, 0]])
+        self.assertAlmostEqual(self.number("G5", "=ASSOC.PAIRED(ASSOC.COUNTS(C1:C8; D1:D8; ; E1:E3))"),
+                               0.26146412994911117, places=12)
+
     def test_row_1_stays_a_record_when_its_label_appears_again_below(self):
         self.sheet.getCellRangeByName("C1:C4").setDataArray((("Web",), ("Shop",), ("Web",), ("Shop",)))
         self.assertEqual(self.number("F1", "=ROWS(ASSOC.LEVELS(C:C))"), 2)

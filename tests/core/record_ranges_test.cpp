@@ -245,3 +245,22 @@ TEST(RecordRanges, CountAnAnswerAllGivenMoreThanOnceEvenLast) {
     EXPECT_EQ(counts.records, 4u);
     EXPECT_EQ(counts.column_levels.size(), 2u);
 }
+
+// Before/after answers whose sides hold different labels: read by position (as ASSOC.PAIRED reads a
+// table), "Neutral" would meet "Disagree". Counted as given, and said, with the way to align them.
+TEST(RecordRanges, SayWhenTheTwoSidesShareSomeLabelsButNotAll) {
+    const RecordCounts counts = counts_from_records(grid({{"Agree"}, {"Neutral"}, {"Agree"}, {"Neutral"}}),
+                                                    grid({{"Agree"}, {"Disagree"}, {"Agree"}, {"Agree"}}));
+    EXPECT_EQ(counts.counts.rows(), 2u);
+    EXPECT_TRUE(contains(counts.feedback(),
+                         "The row and column labels share \"Agree\" but not \"Neutral\" (rows only) and \"Disagree\" "
+                         "(columns only), so row k and column k are not always the same category"))
+        << counts.feedback();
+}
+
+TEST(RecordRanges, SayNothingOfLabelsWhenTheSidesShareAllOrNone) {
+    const RecordCounts same = counts_from_records(grid({{"Yes"}, {"No"}, {"Yes"}}), grid({{"No"}, {"No"}, {"Yes"}}));
+    const RecordCounts apart = counts_from_records(grid({{"Sales"}, {"Legal"}, {"Sales"}}), grid({{"No"}, {"No"}, {"Yes"}}));
+    EXPECT_FALSE(contains(same.feedback(), "share"));
+    EXPECT_FALSE(contains(apart.feedback(), "share"));
+}
