@@ -782,7 +782,8 @@ ORDERED_FUNCTIONS = [
         "continuity correction.",
         [Argument("answers", "range",
                   "One row per person and one column per occasion, each answer 1 (yes) or 0 (no), or one of two "
-                  "text labels; a header row naming the occasions is optional. A row with a blank answer is set "
+                  "text labels; a header row naming the occasions is optional, and so is a first column of the "
+                  "people's numbers or names (a different entry on every row). A row with a blank answer is set "
                   "aside."),
          Argument("yes", "value",
                   "Optional. The text label that counts as yes, in any case (for example \"Agree\"); when omitted, "

@@ -49,6 +49,38 @@ bool first_row_is_header(const CellGrid& range) {
     return true;
 }
 
+// A first column that names the people (an ID or a name per row): its entries, below the header,
+// are all filled and all different, while the other columns hold answers (1 and 0, or at most two
+// texts), and it holds something that is no answer. Read as answers, employee numbers were refused
+// as answers other than 1 and 0, and names as a third label.
+bool first_column_names_people(const CellGrid& range, std::size_t first_row) {
+    if (range.columns() < 3 || range.rows() < first_row + 2) return false;
+    std::vector<const Cell*> names;
+    for (std::size_t r = first_row; r < range.rows(); ++r) {
+        const Cell& cell = range.at(r, 0);
+        if (cell.is_blank()) return false;
+        for (const Cell* seen : names)
+            if (*seen == cell) return false;
+        names.push_back(&cell);
+    }
+    std::vector<const Cell*> answers;  // the distinct answers of the other columns
+    for (std::size_t r = first_row; r < range.rows(); ++r)
+        for (std::size_t c = 1; c < range.columns(); ++c) {
+            const Cell& cell = range.at(r, c);
+            if (cell.is_blank()) continue;
+            if (cell.is_number() && cell.as_number() != 0 && cell.as_number() != 1) return false;
+            if (std::none_of(answers.begin(), answers.end(), [&](const Cell* a) { return *a == cell; })) {
+                answers.push_back(&cell);
+                if (answers.size() > 2) return false;
+            }
+        }
+    if (answers.empty()) return false;
+    return std::any_of(names.begin(), names.end(), [&](const Cell* name) {
+        return std::none_of(answers.begin(), answers.end(), [&](const Cell* a) { return *a == *name; }) &&
+               !(name->is_number() && (name->as_number() == 0 || name->as_number() == 1));
+    });
+}
+
 }  // namespace
 
 RepeatedResult cochrans_q_test(const Matrix& answers) {
@@ -88,6 +120,8 @@ RepeatedResult cochrans_q_test(const Matrix& answers) {
 RepeatedResult cochrans_q_test(const CellGrid& range, const Cell& yes) {
     require(!range.empty(), "the range is empty; select the answers, one row per person and one column per occasion");
     const std::size_t first = first_row_is_header(range) ? 1 : 0;
+    // c0: the first column of answers (1 when column 1 names the people).
+    const std::size_t c0 = first_column_names_people(range, first) ? 1 : 0;
     const std::size_t k = range.columns();
     require(k >= 2, "Cochran's Q needs at least 2 occasions (columns of answers); this range has 1 column");
 
@@ -96,7 +130,7 @@ RepeatedResult cochrans_q_test(const CellGrid& range, const Cell& yes) {
     std::size_t number_row = 0, number_column = 0, text_row = 0, text_column = 0;
     bool numbers = false;
     for (std::size_t r = first; r < range.rows(); ++r)
-        for (std::size_t c = 0; c < k; ++c) {
+        for (std::size_t c = c0; c < k; ++c) {
             const Cell& cell = range.at(r, c);
             if (cell.is_number()) {
                 if (cell.as_number() != 0 && cell.as_number() != 1)
@@ -126,6 +160,9 @@ RepeatedResult cochrans_q_test(const CellGrid& range, const Cell& yes) {
 
     // Which answer counts as yes.
     RepeatedResult reading;
+    if (c0 == 1)
+        reading.remarks.push_back("Column 1 holds a different entry on every row and no answer, so it was read as "
+                                  "the people's names or numbers and left out of the answers.");
     Cell yes_cell = Cell::number(1);
     if (!labels.empty()) {
         std::size_t chosen = labels.size();
@@ -162,14 +199,14 @@ RepeatedResult cochrans_q_test(const CellGrid& range, const Cell& yes) {
     std::size_t empty = 0;
     for (std::size_t r = first; r < range.rows(); ++r) {
         std::size_t blanks = 0;
-        for (std::size_t c = 0; c < k; ++c) blanks += range.at(r, c).is_blank();
-        if (blanks == k) ++empty;
+        for (std::size_t c = c0; c < k; ++c) blanks += range.at(r, c).is_blank();
+        if (blanks == k - c0) ++empty;
         else if (blanks > 0) incomplete.push_back(r);
         else kept.push_back(r);
     }
-    Matrix answers(kept.size(), k);
+    Matrix answers(kept.size(), k - c0);
     for (std::size_t i = 0; i < kept.size(); ++i)
-        for (std::size_t c = 0; c < k; ++c) answers(i, c) = range.at(kept[i], c) == yes_cell ? 1.0 : 0.0;
+        for (std::size_t c = c0; c < k; ++c) answers(i, c - c0) = range.at(kept[i], c) == yes_cell ? 1.0 : 0.0;
     if (!incomplete.empty())
         reading.remarks.push_back(std::to_string(incomplete.size()) +
                                   (incomplete.size() == 1 ? " person with a blank answer was" : " people with a blank answer were") +

@@ -192,6 +192,15 @@ class Repeated(CalcTestCase, ErrorCheckMixin):
         paired = self.array("H2:J2", f'=ASSOC.PAIRED({square}; "uncorrected")')[0]
         self.assertAllClose([[p, q, df]], [paired], 1e-12, "ASSOC.PAIRED uncorrected")
 
+    def test_reads_a_first_column_of_employee_numbers_as_the_peoples_labels(self):
+        tasks = ORDERED["tasks"]
+        numbered = [[4400 + i] + row for i, row in enumerate(tasks["answers"])]
+        answers = self.put(numbered)
+        self.assertAllClose(self.array("H1:J1", f"=ASSOC.REPEATED({answers})"), [tasks["repeated"]], 1e-10,
+                            "statsmodels cochrans_q, without the column of numbers")
+        self.assertIn("Column 1 holds a different entry on every row and no answer, so it was read as the people's "
+                      "names or numbers", self.words("H2", f'=ASSOC.CHECK({answers}; "repeated")'))
+
     def test_refuses_a_third_label_and_check_says_why(self):
         answers = self.put([["Yes", "No"], ["Maybe", "Yes"]])
         self.assertErrorExplained(f"=ASSOC.REPEATED({answers})", f'=ASSOC.CHECK({answers}; "repeated")',

@@ -113,6 +113,33 @@ TEST(CochransQ, ReadsOnesAndZerosWithoutAHeader) {
     EXPECT_TRUE(result.remarks.empty());
 }
 
+// Exact identity: a first column of employee numbers or names, one per person, leaves the test as
+// it is without that column, and the feedback says it was read so.
+TEST(CochransQ, ReadsAFirstColumnOfPeoplesNumbersOrNamesAsTheirLabels) {
+    const RepeatedResult plain = cochrans_q_test(grid({{"W1", "W2", "W3"}, {1, 0, 1}, {1, 1, 1}, {0, 0, 1}, {1, 0, 0}}));
+    for (const CellGrid& range :
+         {grid({{"ID", "W1", "W2", "W3"}, {101, 1, 0, 1}, {102, 1, 1, 1}, {103, 0, 0, 1}, {104, 1, 0, 0}}),
+          grid({{"Name", "W1", "W2", "W3"}, {"Ada", 1, 0, 1}, {"Ben", 1, 1, 1}, {"Cy", 0, 0, 1}, {"Di", 1, 0, 0}}),
+          grid({{4401, 1, 0, 1}, {4402, 1, 1, 1}, {4403, 0, 0, 1}, {4404, 1, 0, 0}}),
+          grid({{"ID", "W1", "W2", "W3"}, {"a", "Yes", "No", "Yes"}, {"b", "Yes", "Yes", "Yes"}, {"c", "No", "No", "Yes"},
+                {"d", "Yes", "No", "No"}})}) {
+        const RepeatedResult result = cochrans_q_test(range);
+        EXPECT_EQ(result.occasions, 3u);
+        EXPECT_EQ(result.people, 4u);
+        EXPECT_EQ(result.statistic, plain.statistic);
+        ASSERT_FALSE(result.remarks.empty());
+        EXPECT_EQ(result.remarks[0], "Column 1 holds a different entry on every row and no answer, so it was read as "
+                                     "the people's names or numbers and left out of the answers.");
+    }
+}
+
+// A first column that repeats an entry, or holds only answers, is answers.
+TEST(CochransQ, ReadsAFirstColumnThatRepeatsAnEntryAsAnswers) {
+    expect_error([] { cochrans_q_test(grid({{101, 1, 0}, {101, 1, 1}, {103, 0, 0}})); },
+                 "row 1, column 1 holds the number 101; answers must be 1 (yes) or 0 (no), or two text labels");
+    EXPECT_EQ(cochrans_q_test(grid({{1, 0, 0}, {0, 1, 0}, {1, 0, 1}})).occasions, 3u);
+}
+
 TEST(CochransQ, RefusesAThirdLabel) {
     expect_error([] { cochrans_q_test(grid({{"Yes", "No"}, {"No", "yes"}})); },
                  "the answers hold more than two labels (\"Yes\", \"No\" and \"yes\"); a yes/no test needs exactly two "
