@@ -1,5 +1,8 @@
 #include "assoc/selection_impact.hpp"
 
+#include <algorithm>
+#include <cmath>
+
 #include <cmath>
 #include <optional>
 
@@ -37,9 +40,20 @@ SelectionImpact impact_of(const std::vector<GroupCounts>& groups, double thresho
         if (!(std::isfinite(chosen) && chosen >= 0 && std::isfinite(pool) && pool >= 0))
             throw Error(counts.name + " has " + format_number(chosen, 15) + " selected of " + format_number(pool, 15) +
                         " considered; both must be numbers of 0 or more");
-        if (chosen > pool)
+        if (chosen != std::floor(chosen) || pool != std::floor(pool))
+            throw Error(counts.name + " has " + format_number(chosen, 15) + " selected of " + format_number(pool, 15) +
+                        " considered; both are numbers of people and must be whole: a rate or a percentage (0.15, "
+                        "15%) goes in neither range, give the number selected and the number considered");
+        if (chosen > pool) {
+            const bool all_above = std::all_of(groups.begin(), groups.end(), [](const GroupCounts& g) {
+                return !g.selected || !g.considered || *g.selected > *g.considered;
+            });
             throw Error(counts.name + " has more selected (" + format_number(chosen, 15) + ") than considered (" +
-                        format_number(pool, 15) + ")");
+                        format_number(pool, 15) + ")" +
+                        (all_above ? std::string("; every group does, so the ranges may be the wrong way round: the "
+                                                 "selected counts come first, then the considered")
+                                   : std::string()));
+        }
         if (pool == 0) {
             group.has_rate = false;
             group.flag = "no one considered: no selection rate";

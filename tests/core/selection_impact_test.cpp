@@ -87,6 +87,21 @@ TEST(SelectionImpact, RejectsMoreSelectedThanConsidered) {
                  "the group in row 2 has more selected (13) than considered (12)");
 }
 
+TEST(SelectionImpact, SuggestsTheRangesAreSwappedWhenEveryGroupHasMoreSelected) {
+    expect_error([] { selection_impact(grid({{80}, {120}}), grid({{12}, {30}})); },
+                 "the group in row 1 has more selected (80) than considered (12); every group does, so the ranges may "
+                 "be the wrong way round: the selected counts come first, then the considered");
+}
+
+// Selection rates typed instead of the number selected (0.15 of 80) gave an impact ratio of rates of
+// rates, with no word of doubt.
+TEST(SelectionImpact, RejectsRatesOrPercentagesInsteadOfNumbersOfPeople) {
+    expect_error([] { selection_impact(grid({{0.15}, {0.25}}), grid({{80}, {120}})); },
+                 "the group in row 1 has 0.15 selected of 80 considered; both are numbers of people and must be "
+                 "whole: a rate or a percentage (0.15, 15%) goes in neither range, give the number selected and the "
+                 "number considered");
+}
+
 TEST(SelectionImpact, RejectsRangesOfDifferentLengths) {
     expect_error([] { selection_impact(grid({{5}, {3}, {2}}), grid({{10}, {12}})); },
                  "there are 3 selected counts and 2 considered counts; give both for every group");
