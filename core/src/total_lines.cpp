@@ -54,7 +54,7 @@ const char* const whole_group_beginnings[] = {"all ",     "overall ",     "whole
 
 bool names_the_whole_group(std::string_view label) {
     const std::string text = folded_total_label(label);
-    if (text == "company" || text == "everyone" || text == "everybody") return true;
+    if (text == "company") return true;
     for (const char* beginning : whole_group_beginnings) {
         const std::string_view start(beginning);
         if (text.size() >= start.size() && text.compare(0, start.size(), start) == 0) return true;
