@@ -6,6 +6,7 @@
 
 #include "assoc/chi_squared_distribution.hpp"
 #include "assoc/error.hpp"
+#include "assoc/validity.hpp"
 #include "assoc/expected_counts.hpp"
 #include "assoc/format.hpp"
 #include "cell_line.hpp"
@@ -120,7 +121,10 @@ OrdinalResult ordinal_test(const CountTable& table, const std::vector<double>& r
 }
 
 OrdinalResult ordinal_test(const CellGrid& table, const CellGrid& row_scores, const CellGrid& column_scores) {
-    return ordinal_test(read_count_table(table), read_scores(row_scores, "row"), read_scores(column_scores, "column"));
+    const CountTable read = read_count_table(table);
+    OrdinalResult result = ordinal_test(read, read_scores(row_scores, "row"), read_scores(column_scores, "column"));
+    result.remarks = table_notes(read);
+    return result;
 }
 
 }  // namespace assoc

@@ -7,6 +7,7 @@
 #include "assoc/chi_squared_distribution.hpp"
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
+#include "assoc/validity.hpp"
 #include "assoc/format.hpp"
 #include "assoc/wording.hpp"
 #include "discrete_tail.hpp"
@@ -159,7 +160,8 @@ PairedResult paired_test(const CellGrid& table, std::optional<PairedMethod> meth
     for (std::size_t r = 0; r < counts.rows(); ++r)
         for (std::size_t c = 0; c < counts.columns(); ++c) square(r, c) = counts(r, column_of_row[c]);
     PairedResult result = paired_test(square, method);
-    result.remarks = std::move(remarks);
+    result.remarks = table_notes(read);
+    result.remarks.insert(result.remarks.end(), remarks.begin(), remarks.end());
     return result;
 }
 

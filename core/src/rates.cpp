@@ -7,6 +7,7 @@
 #include "argument_checks.hpp"
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
+#include "assoc/validity.hpp"
 #include "assoc/format.hpp"
 #include "boost_policy.hpp"
 #include "row_names.hpp"
@@ -148,7 +149,9 @@ RateDifference rate_difference(const CellGrid& range, double confidence) {
                                                                    names[table.category_rows()[r]]) +
                                                  " has no counts, so it has no rate to compare; the rate difference "
                                                  "needs counts in both rows");
-    return newcombe(body(0, 0), body(0, 0) + body(0, 1), body(1, 0), body(1, 0) + body(1, 1), confidence);
+    RateDifference result = newcombe(body(0, 0), body(0, 0) + body(0, 1), body(1, 0), body(1, 0) + body(1, 1), confidence);
+    result.remarks = table_notes(table);
+    return result;
 }
 
 }  // namespace assoc

@@ -9,6 +9,7 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "assoc/validity.hpp"
 #include "boost_policy.hpp"
 #include "cell_line.hpp"
 #include "extended_arithmetic.hpp"
@@ -118,7 +119,9 @@ TrendResult trend_test(const CellGrid& table, const CellGrid& scores) {
             score_values.push_back(cell.as_number());
         }
     }
-    return trend_test(body, score_values);
+    TrendResult result = trend_test(body, score_values);
+    result.remarks = table_notes(read);
+    return result;
 }
 
 }  // namespace assoc

@@ -193,6 +193,7 @@ std::vector<double> paired(const CellGrid& range, std::optional<PairedMethod> me
 
 std::vector<double> trend(const CellGrid& range, const CellGrid& scores) {
     const TrendResult result = trend_test(range, scores);
+    for (const std::string& sentence : result.remarks) remark(sentence);
     return {result.p_value, result.z};
 }
 
@@ -251,6 +252,7 @@ CellGrid rates(const CellGrid& range, double confidence) {
 
 std::vector<double> ratediff(const CellGrid& range, double confidence) {
     const RateDifference result = rate_difference(range, confidence);
+    for (const std::string& sentence : result.remarks) remark(sentence);
     return {result.difference, result.lower, result.upper};
 }
 
@@ -279,6 +281,7 @@ std::vector<double> stratarisk(const CellGrid& range, double confidence) {
 
 std::vector<double> ordinal(const CellGrid& range, const CellGrid& row_scores, const CellGrid& column_scores) {
     const OrdinalResult result = ordinal_test(range, row_scores, column_scores);
+    for (const std::string& sentence : result.remarks) remark(sentence);
     return {result.p_value, result.statistic, result.df, result.correlation};
 }
 

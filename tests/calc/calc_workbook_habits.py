@@ -83,6 +83,17 @@ class TotalsInsideTheRange(HabitCase):
         text = self.words("H1", f"=ASSOC.CHECK({table})")
         self.assertTrue(text.startswith('Doubtful: The row "Finance" holds the sum of the other rows'), text)
 
+    def test_functions_without_the_verdict_say_what_they_set_aside(self):
+        table = self.put([["Team", "Yes", "No", "Total"], ["A", 10, 30, 40], ["B", 5, 40, 45], ["Total", 15, 70, 85]])
+        paired = self.put([["Before/After", "Yes", "No", "Total"], ["Yes", 20, 5, 25], ["No", 15, 30, 45],
+                           ["Total", 35, 35, 70]], row=10)
+        for word in ("ratediff", "trend", "ordinal", "paired"):
+            with self.subTest(function=word):
+                source = paired if word == "paired" else table
+                text = self.words("H1", f'=ASSOC.CHECK({source}; "{word}")')
+                self.assertIn('The row "Total" is a total and was set aside. The column "Total" is a total and was '
+                              "set aside.", text)
+
     def test_a_line_that_names_everyone_and_holds_the_sum_is_set_aside(self):
         rows = [row[:3] for row in WITH_TOTALS]
         rows[-1][0] = "All staff"

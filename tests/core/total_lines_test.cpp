@@ -3,10 +3,15 @@
 #include <gtest/gtest.h>
 
 #include <string>
+#include <vector>
 
 #include "assoc/count_table.hpp"
 #include "assoc/goodness_of_fit.hpp"
+#include "assoc/ordinal_test.hpp"
+#include "assoc/paired_tests.hpp"
+#include "assoc/rates.hpp"
 #include "assoc/statistics.hpp"
+#include "assoc/trend_test.hpp"
 #include "assoc/validity.hpp"
 #include "test_support.hpp"
 
@@ -273,4 +278,29 @@ TEST(Percentages, AreAllowedAsExpectedShares) {
     // X² = 196/417 exactly; the shares are the same ratios).
     const GoodnessOfFit fit = goodness_of_fit(grid({{315, 108, 101, 32}}), grid({{56.25, 18.75, 18.75, 6.25}}));
     EXPECT_NEAR(fit.statistic, 196.0 / 417.0, 1e-13);
+}
+
+// Functions without the chi-squared verdict pass on what was set aside, for ASSOC.CHECK to say.
+// Exact identity: each gives what it gives on the table without its total row and column.
+TEST(TotalLines, AreNamedByTheFunctionsThatReadTheTableWithoutTheVerdict) {
+    const CellGrid with_totals = grid({{"", "Yes", "No", "Total"}, {"A", 10, 30, 40}, {"B", 5, 40, 45}, {"Total", 15, 70, 85}});
+    const CellGrid plain = grid({{"", "Yes", "No"}, {"A", 10, 30}, {"B", 5, 40}});
+    const std::vector<std::string> said = {"The row \"Total\" is a total and was set aside.",
+                                           "The column \"Total\" is a total and was set aside."};
+    EXPECT_EQ(rate_difference(with_totals).remarks, said);
+    EXPECT_EQ(rate_difference(with_totals).difference, rate_difference(plain).difference);
+    EXPECT_EQ(trend_test(with_totals).remarks, said);
+    EXPECT_EQ(trend_test(with_totals).z, trend_test(plain).z);
+    EXPECT_EQ(ordinal_test(with_totals).remarks, said);
+    EXPECT_EQ(ordinal_test(with_totals).statistic, ordinal_test(plain).statistic);
+    EXPECT_TRUE(rate_difference(plain).remarks.empty());
+}
+
+TEST(TotalLines, AreNamedByThePairedTestBeforeItsOwnRemarks) {
+    const PairedResult result =
+        paired_test(grid({{"Before/After", "Yes", "No", "Total"}, {"Yes", 20, 5, 25}, {"No", 15, 30, 45}, {"Total", 35, 35, 70}}));
+    ASSERT_GE(result.remarks.size(), 2u);
+    EXPECT_EQ(result.remarks[0], "The row \"Total\" is a total and was set aside.");
+    EXPECT_EQ(result.remarks[1], "The column \"Total\" is a total and was set aside.");
+    EXPECT_EQ(result.statistic, paired_test(grid({{20, 5}, {15, 30}})).statistic);
 }

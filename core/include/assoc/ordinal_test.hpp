@@ -3,6 +3,8 @@
 // (tenure band by satisfaction on a five-point scale): does a higher row go with a higher column?
 // Where the association follows the order, it is far more powerful than the chi-squared test of
 // independence, which ignores the order.
+#include <string>
+#include <vector>
 #include <vector>
 
 #include "assoc/cell.hpp"
@@ -17,6 +19,7 @@ struct OrdinalResult {
     // r: the Pearson correlation of the row scores with the column scores, each person (count)
     // weighing once. Positive when higher rows go with higher columns.
     double correlation = 0.0;
+    std::vector<std::string> remarks;  // from a range: how it was read (table_notes)
 };
 
 // Mantel's linear-by-linear test (Mantel 1963; Agresti 2007, section 2.5): with row scores u and

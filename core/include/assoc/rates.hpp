@@ -52,6 +52,7 @@ struct RateDifference {
     double lower = 0.0, upper = 0.0;  // Newcombe's hybrid score interval, inside [−1, 1]
     RateInterval first, second;       // each row's rate with its Wilson interval
     double confidence = 0.95;
+    std::vector<std::string> remarks;  // from a range: how it was read (table_notes)
 };
 
 // Newcombe (1998, Statistics in Medicine 17:873–890, method 10), built from the Wilson intervals

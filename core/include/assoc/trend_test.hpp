@@ -5,6 +5,9 @@
 #include <cstddef>
 #include <vector>
 
+#include <string>
+#include <vector>
+
 #include "assoc/cell.hpp"
 #include "assoc/matrix.hpp"
 
@@ -17,6 +20,7 @@ struct TrendResult {
     double statistic = 0.0;  // z², chi-squared with 1 degree of freedom
     std::size_t categories = 0;
     bool categories_in_columns = true;  // 2×k table (true) or k×2 table (false)
+    std::vector<std::string> remarks;   // from a range: how it was read (table_notes)
 };
 
 // `table` is 2×k (the outcomes are the rows, the ordered categories the columns) or k×2 (the

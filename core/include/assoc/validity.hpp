@@ -36,4 +36,9 @@ struct ValidityCheck {
 
 ValidityCheck check_validity(const CountTable& table);
 
+// What a function that reads the table without the chi-squared verdict (the trend, ordinal, paired
+// tests, the rate difference) passes on to ASSOC.CHECK: the table's doubts, how it was read, and the
+// rows and columns set aside as totals ("The row "Total" is a total and was set aside.").
+std::vector<std::string> table_notes(const CountTable& table);
+
 }  // namespace assoc
