@@ -182,11 +182,16 @@ void find_subtotals(const Lines& lines, const BodySide& side, const std::vector<
     std::size_t data_lines = 0;
     for (std::size_t i = 0; i < lines.count(); ++i)
         if (!total[i] && !lines.empty(i)) ++data_lines;
+    if (lines.count() < 3) return;
+    // Reused from line to line: this runs on every read of a table, thousands of times in a sheet of
+    // small tables, where allocations cost more than the sums.
     std::vector<double> sum(lines.length());
+    std::vector<std::size_t> block;
+    block.reserve(std::min(lines.count(), longest_block + 1));
     for (std::size_t i = 2; i < lines.count(); ++i) {
         if (total[i] || lines.empty(i)) continue;
         std::fill(sum.begin(), sum.end(), 0.0);
-        std::vector<std::size_t> block;
+        block.clear();
         for (std::size_t j = i; j-- > 0 && !total[j] && i - j <= longest_block;) {
             if (lines.empty(j)) continue;
             bool equal = true, within = true;
