@@ -99,8 +99,7 @@ RowRates row_rates(const CellGrid& range, double confidence) {
 
     RowRates result;
     result.confidence = confidence;
-    result.remarks = table.doubts();
-    result.remarks.insert(result.remarks.end(), table.reading_remarks().begin(), table.reading_remarks().end());
+    result.remarks = table_notes(table);
     for (std::size_t r = 0; r < table.body_rows(); ++r) {
         RowRate row;
         row.name = names[r];

@@ -87,7 +87,7 @@ class TotalsInsideTheRange(HabitCase):
         table = self.put([["Team", "Yes", "No", "Total"], ["A", 10, 30, 40], ["B", 5, 40, 45], ["Total", 15, 70, 85]])
         paired = self.put([["Before/After", "Yes", "No", "Total"], ["Yes", 20, 5, 25], ["No", 15, 30, 45],
                            ["Total", 35, 35, 70]], row=10)
-        for word in ("ratediff", "trend", "ordinal", "paired"):
+        for word in ("rates", "ratediff", "trend", "ordinal", "paired"):
             with self.subTest(function=word):
                 source = paired if word == "paired" else table
                 text = self.words("H1", f'=ASSOC.CHECK({source}; "{word}")')
