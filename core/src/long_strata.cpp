@@ -1,5 +1,6 @@
 #include "assoc/long_strata.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <map>
 #include <string>
@@ -12,6 +13,34 @@
 #include "total_lines.hpp"
 
 namespace assoc {
+
+namespace {
+
+// A stratum named as everyone ("All offices") whose counts are, cell by cell, the sums of the other
+// strata's is the company as a whole, not one more stratum: set aside, and said. Only with at least
+// 2 other strata (with one, equal counts are easily a coincidence).
+void set_aside_whole_group_stratum(LongStrata& strata) {
+    if (strata.strata.size() < 3) return;
+    for (std::size_t k = 0; k < strata.strata.size(); ++k) {
+        if (!detail::names_the_whole_group(strata.strata[k].label)) continue;
+        const Matrix& whole = strata.strata[k].counts;
+        bool sums = true;
+        for (std::size_t r = 0; r < whole.rows() && sums; ++r)
+            for (std::size_t c = 0; c < whole.columns() && sums; ++c) {
+                double sum = 0.0;
+                for (std::size_t j = 0; j < strata.strata.size(); ++j)
+                    if (j != k) sum += strata.strata[j].counts(r, c);
+                sums = std::fabs(sum - whole(r, c)) <= 1e-9 * std::max(1.0, std::fabs(whole(r, c)));
+            }
+        if (!sums) continue;
+        strata.remarks.push_back("The rows of " + quoted_label(strata.strata[k].label) +
+                                 " hold the sums of the other strata and were set aside as totals.");
+        strata.strata.erase(strata.strata.begin() + static_cast<std::ptrdiff_t>(k));
+        return;
+    }
+}
+
+}  // namespace
 namespace {
 
 std::string range_row(std::size_t row) { return "row " + std::to_string(row + 1); }
@@ -178,6 +207,7 @@ LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
                 table(pending[k].rows[i].first, c) = counts[k][i * categories_kept + c];
         result.strata[k].counts = std::move(table);
     }
+    set_aside_whole_group_stratum(result);
     return result;
 }
 

@@ -1,4 +1,5 @@
 #include <algorithm>
+#include <cmath>
 #include <string>
 
 #include "assoc/count_table.hpp"
@@ -42,6 +43,34 @@ struct Block {
     std::vector<std::size_t> rows;
     std::string name;
 };
+
+// Whether each row of `block` holds, in every column, the sum of the rows of the same group (the
+// same label, or the same place in its stratum where the groups have no labels) in the other blocks.
+bool holds_the_other_strata(const Block& block, const std::vector<Block>& blocks, const std::vector<std::string>& labels,
+                            const Matrix& counts) {
+    if (blocks.size() < 3) return false;  // with one other stratum, equal counts are easily a coincidence
+    for (std::size_t p = 0; p < block.rows.size(); ++p) {
+        const std::size_t i = block.rows[p];
+        for (std::size_t c = 0; c < counts.columns(); ++c) {
+            double sum = 0.0;
+            std::size_t found = 0;
+            for (const Block& other : blocks) {
+                if (&other == &block) continue;
+                for (std::size_t q = 0; q < other.rows.size(); ++q) {
+                    const std::size_t j = other.rows[q];
+                    const bool same = labels[i].empty() ? q == p : folded_label(labels[j]) == folded_label(labels[i]);
+                    if (!same) continue;
+                    sum += counts(j, c);
+                    ++found;
+                }
+            }
+            if (found + 1 != blocks.size() ||
+                std::fabs(sum - counts(i, c)) > 1e-9 * std::max(1.0, std::fabs(counts(i, c))))
+                return false;
+        }
+    }
+    return !block.rows.empty();
+}
 
 std::string rows_in_words(const std::vector<std::string>& labels, const Block& block, const std::vector<std::size_t>& numbers) {
     std::vector<std::string> names;
@@ -186,12 +215,21 @@ Strata read_strata(const CellGrid& given) {
                     "row " + std::to_string(numbers.empty() ? 1 : numbers[0]) +
                         " has no stratum name in the first label column, and there is none above it to go by");
             blocks = blocks_from_names(stratum_names, numbers);
-            // A stratum named as a total (the rows of all strata together) is no stratum.
+            // A stratum named as a total (the rows of all strata together) is no stratum; nor is one
+            // named as everyone ("All offices") whose rows hold the sums of the other strata's.
+            // (Decided for every block before any is moved.)
+            std::vector<bool> whole(blocks.size(), false);
+            for (std::size_t b = 0; b < blocks.size(); ++b)
+                whole[b] = !detail::is_total_label(blocks[b].name) && detail::names_the_whole_group(blocks[b].name) &&
+                           holds_the_other_strata(blocks[b], blocks, labels, counts);
             std::vector<Block> kept;
-            for (Block& block : blocks) {
-                if (detail::is_total_label(block.name)) result.remarks.push_back("The rows of " + quoted_label(block.name) +
-                                                                                 " were set aside as totals.");
-                else kept.push_back(std::move(block));
+            for (std::size_t b = 0; b < blocks.size(); ++b) {
+                if (detail::is_total_label(blocks[b].name))
+                    result.remarks.push_back("The rows of " + quoted_label(blocks[b].name) + " were set aside as totals.");
+                else if (whole[b])
+                    result.remarks.push_back("The rows of " + quoted_label(blocks[b].name) +
+                                             " hold the sums of the other strata and were set aside as totals.");
+                else kept.push_back(std::move(blocks[b]));
             }
             blocks = std::move(kept);
             require_pairs(blocks, labels, numbers, "the strata are told apart by the first label column");

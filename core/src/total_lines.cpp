@@ -52,7 +52,7 @@ const char* const total_beginnings[] = {"total ",  "grand total", "subtotal ", "
 const char* const whole_group_beginnings[] = {"all ",     "overall ",     "whole ",       "entire ",
                                               "everyone", "everybody",    "company-wide", "company wide"};
 
-bool names_the_whole_group(std::string_view label) {
+bool whole_group_label(std::string_view label) {
     const std::string text = folded_total_label(label);
     if (text == "company") return true;
     for (const char* beginning : whole_group_beginnings) {
@@ -160,7 +160,7 @@ void find_on_side(const Lines& lines, const BodySide& side, std::vector<bool>& t
                         "as if it held more counts; leave it out of the range, or label it \"Total\" (it is then set "
                         "aside). If it does hold counts, give the " + side.word + "s labels");
         }
-        if (names_the_whole_group(label)) {
+        if (whole_group_label(label)) {
             total[candidate] = true;  // said with the other totals set aside
             return;
         }
@@ -326,6 +326,8 @@ void doubt_repeated_labels(const BodySide& side, const std::vector<bool>& total,
 }
 
 }  // namespace
+
+bool names_the_whole_group(std::string_view label) { return whole_group_label(label); }
 
 bool is_total_label(std::string_view label) {
     const std::string text = folded_total_label(label);

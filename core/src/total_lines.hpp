@@ -22,6 +22,11 @@ namespace assoc::detail {
 // ("Total staff", "Total 2024"). Exact words only otherwise: "Allowances" or "Summer" are no totals.
 bool is_total_label(std::string_view label);
 
+// Whether a label names everyone ("All staff", "All offices", "Overall figure", "Whole company",
+// "Company", "Everyone"): not a total by the label alone ("All of the time" may be an answer), but
+// a line or a stratum so labelled that holds the sums of the others is one.
+bool names_the_whole_group(std::string_view label);
+
 // One side of a table body: its rows (or its columns), how they are labelled and numbered.
 struct BodySide {
     const char* word;                   // "row" or "column"

@@ -94,6 +94,23 @@ class TotalsInsideTheRange(HabitCase):
                 self.assertIn('The row "Total" is a total and was set aside. The column "Total" is a total and was '
                               "set aside.", text)
 
+    def test_a_stratum_that_names_everyone_and_holds_the_sums_is_set_aside(self):
+        strata = [["Office", "Group", "Yes", "No", "Maybe"], ["North", "Women", 5, 10, 3], ["North", "Men", 8, 9, 4],
+                  ["South", "Women", 7, 3, 2], ["South", "Men", 6, 6, 5], ["East", "Women", 2, 6, 1],
+                  ["East", "Men", 4, 3, 2]]
+        whole = [["All offices", "Women", 14, 19, 6], ["All offices", "Men", 18, 18, 11]]
+        with_whole = self.put(strata + whole)
+        without = self.put(strata, row=12)
+        self.assertEqual(self.number("H1", f"=ASSOC.WITHIN({with_whole})"), self.number("H2", f"=ASSOC.WITHIN({without})"))
+        self.assertIn('The rows of "All offices" hold the sums of the other strata and were set aside as totals.',
+                      self.words("H3", f'=ASSOC.CHECK({with_whole}; "within")'))
+        two_by_two = [row[:4] for row in strata]
+        with_whole = self.put(two_by_two + [row[:4] for row in whole], column=8)
+        without = self.put(two_by_two, row=12, column=8)
+        self.assertEqual(self.number("H4", f"=ASSOC.STRATA({with_whole})"), self.number("H5", f"=ASSOC.STRATA({without})"))
+        self.assertIn('The rows of "All offices" hold the sums of the other strata and were set aside as totals.',
+                      self.words("H6", f'=ASSOC.CHECK({with_whole}; "strata")'))
+
     def test_a_line_that_names_everyone_and_holds_the_sum_is_set_aside(self):
         rows = [row[:3] for row in WITH_TOTALS]
         rows[-1][0] = "All staff"

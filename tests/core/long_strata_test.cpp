@@ -43,6 +43,25 @@ TEST(LongStrata, SetsAsideTotalRowsTotalStrataAndTotalColumnsAndSaysSo) {
                                 "Rows 4 and 7 are totals and were set aside (a row or stratum label that names a total)."}));
 }
 
+// A stratum named as everyone whose counts are the sums of the other strata's is the company as a
+// whole: set aside, and said; named as data ("East") it is a stratum.
+TEST(LongStrata, SetsAsideAStratumNamingEveryoneThatHoldsTheSumsOfTheOthers) {
+    const auto with_sums_named = [](const char* name) {
+        return read_long_strata(grid({{"Office", "Group", "Yes", "No", "Maybe"},
+                                      {"North", "Women", 5, 10, 3},
+                                      {"North", "Men", 8, 9, 4},
+                                      {"South", "Women", 7, 3, 2},
+                                      {"South", "Men", 6, 6, 5},
+                                      {name, "Women", 12, 13, 5},
+                                      {name, "Men", 14, 15, 9}}));
+    };
+    const LongStrata all_offices = with_sums_named("All offices");
+    ASSERT_EQ(all_offices.strata.size(), 2u);
+    EXPECT_EQ(all_offices.remarks, (std::vector<std::string>{"The rows of \"All offices\" hold the sums of the other "
+                                                             "strata and were set aside as totals."}));
+    EXPECT_EQ(with_sums_named("East").strata.size(), 3u);
+}
+
 TEST(LongStrata, GivesAStratumWithoutSomeRowLabelARowOfZeros) {
     const LongStrata read = read_long_strata(grid({{"A", "x", 1, 2}, {"A", "y", 3, 4}, {"B", "y", 5, 6}, {"B", "z", 7, 8}}));
     ASSERT_EQ(read.row_labels.size(), 3u);

@@ -157,8 +157,13 @@ TEST(StrataLabels, LeaveOutATotalRowAndATotalStratum) {
                                  {name, "Women", 9, 21},
                                  {nullptr, "Men", 13, 17}}));
     };
-    // "All offices" is no total word: read as a stratum, though its rows hold sums (each row is a sum of two).
-    EXPECT_EQ(with_sums_named("All offices").tables.size(), 3u);
+    // "All offices" is no total word, but it names everyone and its rows hold the sums of the other
+    // strata's (each row is a sum of two): set aside, and said. A stratum of another name is kept.
+    const Strata with_all_offices = with_sums_named("All offices");
+    EXPECT_EQ(with_all_offices.tables.size(), 2u);
+    EXPECT_EQ(with_all_offices.remarks, (std::vector<std::string>{"The rows of \"All offices\" hold the sums of the "
+                                                                  "other strata and were set aside as totals."}));
+    EXPECT_EQ(with_sums_named("East").tables.size(), 3u);
     const Strata with_total_word = with_sums_named("Total");
     EXPECT_EQ(with_total_word.tables.size(), 2u);
     EXPECT_EQ(with_total_word.remarks, (std::vector<std::string>{"The rows of \"Total\" were set aside as totals."}));
