@@ -5,6 +5,7 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/strata.hpp"
+#include "assoc/validity.hpp"
 #include "assoc/wording.hpp"
 #include "total_lines.hpp"
 
@@ -183,7 +184,7 @@ Strata read_strata(const CellGrid& given) {
 
     Strata result;
     result.blank_cells = read.blank_cells();
-    result.remarks = read.doubts();
+    result.remarks = table_notes(read);  // doubts, how it was read, total lines set aside
     std::vector<std::string> labels;        // the group (or stratum) label of each category row
     std::vector<std::string> stratum_names;  // from the stratum column(s), "" where blank
     std::vector<std::size_t> numbers;       // each category row's row in the range

@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <unordered_set>
 
 #include "ascii_case.hpp"
 #include "assoc/error.hpp"
@@ -31,13 +32,26 @@ std::string describe_set_aside(const std::vector<SetAside>& all, const char* wor
     const std::size_t count = labelled.size() + numbers.size();
     if (count == 0) return "";
     const bool one = count == 1;
+    // A label that comes more than once (a "Total" row in every stratum) is named once, and the
+    // lines are counted: "The 2 rows "Total" are totals …".
+    const std::size_t labelled_lines = labelled.size();
+    {
+        std::unordered_set<std::string> seen;
+        std::vector<std::string> distinct;
+        for (std::string& label : labelled)
+            if (seen.insert(label).second) distinct.push_back(std::move(label));
+        labelled = std::move(distinct);
+    }
+    const std::string how_many =
+        labelled.size() < labelled_lines && numbers.empty() ? format_count(static_cast<double>(labelled_lines)) + " " : "";
     std::vector<std::string> names;
     const std::size_t shown = 5;
     for (std::size_t i = 0; i < labelled.size() && i < shown; ++i) names.push_back(labelled[i]);
     if (labelled.size() > shown) names.push_back(format_count(static_cast<double>(labelled.size() - shown)) + " more");
     if (!numbers.empty()) names.push_back(numbered_lines(word, numbers));
     std::string text = labelled.empty() ? capitalised(name_list(names, names.size()))
-                                        : "The " + std::string(word) + (one ? " " : "s ") + name_list(names, names.size());
+                                        : "The " + how_many + std::string(word) + (one ? " " : "s ") +
+                                              name_list(names, names.size());
     if (why == SetAside::Why::total) return text + (one ? " is a total and was set aside." : " are totals and were set aside.");
     return text + (one ? " has no counts and was set aside." : " have no counts and were set aside.");
 }

@@ -147,6 +147,7 @@ TEST(StrataLabels, LeaveOutATotalRowAndATotalStratum) {
                                                     {"South", 5, 6, 7, 8},
                                                     {"Total", 6, 8, 10, 12}}));
     EXPECT_EQ(with_total_row.tables.size(), 2u);
+    EXPECT_EQ(with_total_row.remarks, (std::vector<std::string>{"The row \"Total\" is a total and was set aside."}));
     // Two offices and a third stratum of their sums, named `name`.
     const auto with_sums_named = [](const char* name) {
         return read_strata(grid({{"Office", "Group", "Promoted", "Not"},
@@ -167,6 +168,19 @@ TEST(StrataLabels, LeaveOutATotalRowAndATotalStratum) {
     const Strata with_total_word = with_sums_named("Total");
     EXPECT_EQ(with_total_word.tables.size(), 2u);
     EXPECT_EQ(with_total_word.remarks, (std::vector<std::string>{"The rows of \"Total\" were set aside as totals."}));
+}
+
+// A Total row in every stratum: named once, and counted.
+TEST(StrataLabels, SayOnceThatTheTotalRowOfEveryStratumWasSetAside) {
+    const Strata read = read_strata(grid({{"Office", "Group", "Yes", "No"},
+                                          {"North", "Women", 5, 10},
+                                          {"North", "Men", 8, 9},
+                                          {"North", "Total", 13, 19},
+                                          {"South", "Women", 7, 3},
+                                          {"South", "Men", 6, 6},
+                                          {"South", "Total", 13, 9}}));
+    EXPECT_EQ(read.tables.size(), 2u);
+    EXPECT_EQ(read.remarks, (std::vector<std::string>{"The 2 rows \"Total\" are totals and were set aside."}));
 }
 
 TEST(StrataLabels, ReachTheRemarksOfTheMantelHaenszelTest) {
