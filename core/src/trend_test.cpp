@@ -98,6 +98,10 @@ TrendResult trend_test(const Matrix& table, const std::vector<double>& scores) {
     const double scaled_z = numerator.value() * std::sqrt(n.value()) /
                             (std::sqrt(events.value()) * std::sqrt(others.value()) * std::sqrt(spread.value()));
     result.z = std::ldexp(scaled_z, count_exponent / 2);
+    // |z| ≤ √N (z² = N r², r the correlation of the outcome with the score); rounding could pass it by
+    // an ulp, and at N near the largest double z² then overflowed (found by the trend fuzz target).
+    const double total = std::ldexp(n.value(), count_exponent);
+    if (std::isfinite(total) && std::fabs(result.z) > std::sqrt(total)) result.z = std::copysign(std::sqrt(total), result.z);
     result.statistic = result.z * result.z;
     const boost::math::normal_distribution<double, detail::Policy> normal;
     result.p_value = std::min(1.0, 2 * boost::math::cdf(boost::math::complement(normal, std::fabs(result.z))));

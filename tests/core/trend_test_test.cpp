@@ -5,6 +5,7 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <limits>
 
 #include "assoc/trend_test.hpp"
 #include "published_tables.hpp"
@@ -86,6 +87,17 @@ TEST(TrendTest, KeepsZIndependentOfTheScoresBesideACountNear1e30) {
     EXPECT_NEAR_REL(trend_test(table, grid({{5, 1}})).z, expected, 1e-14);
     EXPECT_NEAR_REL(trend_test(table, grid({{2, 1}})).z, expected, 1e-14);
     EXPECT_NEAR_REL(trend_test(table).z, -expected, 1e-14);
+}
+
+// Exact identity: a table with each outcome in its own category has z² = N (r = ±1); with N the
+// largest double, z² once rounded past it to infinity (found by the trend fuzz target).
+TEST(TrendTest, KeepsTheStatisticFiniteWhenItEqualsATotalNearTheLargestDouble) {
+    const double largest = std::numeric_limits<double>::max();
+    const TrendResult result = trend_test(grid({{largest, 0}, {0, 4}}));
+    ASSERT_TRUE(std::isfinite(result.statistic));
+    EXPECT_NEAR_REL(std::fabs(result.z), std::sqrt(largest), 1e-15);
+    EXPECT_NEAR_REL(result.statistic, largest, 1e-15);
+    EXPECT_EQ(result.p_value, 0.0);
 }
 
 TEST(TrendTest, ReadsATwoByTwoTheSameWayRoundEitherWay) {
