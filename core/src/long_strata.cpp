@@ -1,6 +1,5 @@
 #include "assoc/long_strata.hpp"
 
-#include <algorithm>
 #include <cmath>
 #include <map>
 #include <string>
@@ -30,7 +29,7 @@ void set_aside_whole_group_stratum(LongStrata& strata) {
                 double sum = 0.0;
                 for (std::size_t j = 0; j < strata.strata.size(); ++j)
                     if (j != k) sum += strata.strata[j].counts(r, c);
-                sums = std::fabs(sum - whole(r, c)) <= 1e-9 * std::max(1.0, std::fabs(whole(r, c)));
+                sums = detail::same_amount(sum, whole(r, c));
             }
         if (!sums) continue;
         strata.remarks.push_back("The rows of " + quoted_label(strata.strata[k].label) +
@@ -40,8 +39,6 @@ void set_aside_whole_group_stratum(LongStrata& strata) {
     }
 }
 
-}  // namespace
-namespace {
 
 std::string range_row(std::size_t row) { return "row " + std::to_string(row + 1); }
 

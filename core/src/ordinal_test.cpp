@@ -6,9 +6,9 @@
 
 #include "assoc/chi_squared_distribution.hpp"
 #include "assoc/error.hpp"
-#include "assoc/validity.hpp"
 #include "assoc/expected_counts.hpp"
 #include "assoc/format.hpp"
+#include "assoc/validity.hpp"
 #include "cell_line.hpp"
 
 namespace assoc {

@@ -7,8 +7,8 @@
 #include "argument_checks.hpp"
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
-#include "assoc/validity.hpp"
 #include "assoc/format.hpp"
+#include "assoc/validity.hpp"
 #include "boost_policy.hpp"
 #include "row_names.hpp"
 

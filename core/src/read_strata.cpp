@@ -1,5 +1,4 @@
 #include <algorithm>
-#include <cmath>
 #include <string>
 
 #include "assoc/count_table.hpp"
@@ -65,9 +64,7 @@ bool holds_the_other_strata(const Block& block, const std::vector<Block>& blocks
                     ++found;
                 }
             }
-            if (found + 1 != blocks.size() ||
-                std::fabs(sum - counts(i, c)) > 1e-9 * std::max(1.0, std::fabs(counts(i, c))))
-                return false;
+            if (found + 1 != blocks.size() || !detail::same_amount(sum, counts(i, c))) return false;
         }
     }
     return !block.rows.empty();

@@ -2,8 +2,6 @@
 
 #include <algorithm>
 #include <cmath>
-
-#include <cmath>
 #include <optional>
 
 #include "assoc/error.hpp"

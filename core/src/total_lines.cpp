@@ -52,7 +52,9 @@ const char* const total_beginnings[] = {"total ",  "grand total", "subtotal ", "
 const char* const whole_group_beginnings[] = {"all ",     "overall ",     "whole ",       "entire ",
                                               "everyone", "everybody",    "company-wide", "company wide"};
 
-bool whole_group_label(std::string_view label) {
+}  // namespace
+
+bool names_the_whole_group(std::string_view label) {
     const std::string text = folded_total_label(label);
     if (text == "company") return true;
     for (const char* beginning : whole_group_beginnings) {
@@ -61,6 +63,10 @@ bool whole_group_label(std::string_view label) {
     }
     return false;
 }
+
+bool same_amount(double a, double b) { return std::fabs(a - b) <= 1e-9 * std::max(std::fabs(a), std::fabs(b)); }
+
+namespace {
 
 // A view of the body's rows, or of its columns, as lines of numbers.
 struct Lines {
@@ -77,7 +83,6 @@ struct Lines {
 };
 
 // Relative only: counts of any size (1e-300 as well as 1e300) are compared to their own digits.
-bool same_amount(double a, double b) { return std::fabs(a - b) <= 1e-9 * std::max(std::fabs(a), std::fabs(b)); }
 
 // Whether `line` holds the sum of `others` (leaving out `except`) at every position not excluded
 // by `skip`.
@@ -160,7 +165,7 @@ void find_on_side(const Lines& lines, const BodySide& side, std::vector<bool>& t
                         "as if it held more counts; leave it out of the range, or label it \"Total\" (it is then set "
                         "aside). If it does hold counts, give the " + side.word + "s labels");
         }
-        if (whole_group_label(label)) {
+        if (names_the_whole_group(label)) {
             total[candidate] = true;  // said with the other totals set aside
             return;
         }
@@ -326,8 +331,6 @@ void doubt_repeated_labels(const BodySide& side, const std::vector<bool>& total,
 }
 
 }  // namespace
-
-bool names_the_whole_group(std::string_view label) { return whole_group_label(label); }
 
 bool is_total_label(std::string_view label) {
     const std::string text = folded_total_label(label);

@@ -27,6 +27,10 @@ bool is_total_label(std::string_view label);
 // a line or a stratum so labelled that holds the sums of the others is one.
 bool names_the_whole_group(std::string_view label);
 
+// Whether two sums are the same amount, to 1e-9 relative (rounding of sums of non-whole counts):
+// how a total line, a subtotal or a stratum of totals is recognised.
+bool same_amount(double a, double b);
+
 // One side of a table body: its rows (or its columns), how they are labelled and numbered.
 struct BodySide {
     const char* word;                   // "row" or "column"

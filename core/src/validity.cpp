@@ -56,7 +56,9 @@ std::string describe_set_aside(const std::vector<SetAside>& all, const char* wor
     return text + (one ? " has no counts and was set aside." : " have no counts and were set aside.");
 }
 
-std::vector<std::string> table_notes_of(const CountTable& table) {
+}  // namespace
+
+std::vector<std::string> table_notes(const CountTable& table) {
     std::vector<std::string> notes = table.doubts();
     notes.insert(notes.end(), table.reading_remarks().begin(), table.reading_remarks().end());
     for (const auto& [lines, word] : {std::pair{&table.set_aside_rows(), "row"}, std::pair{&table.set_aside_columns(), "column"}}) {
@@ -65,6 +67,8 @@ std::vector<std::string> table_notes_of(const CountTable& table) {
     }
     return notes;
 }
+
+namespace {
 
 // When the rows and the columns carry the same set of labels, the table may classify the same people
 // twice, and then the paired test is the one that fits.
@@ -164,7 +168,5 @@ std::string ValidityCheck::summary() const {
     for (const std::string& remark : remarks) text += " " + remark;
     return text;
 }
-
-std::vector<std::string> table_notes(const CountTable& table) { return table_notes_of(table); }
 
 }  // namespace assoc

@@ -83,6 +83,8 @@ TEST(StrataLabels, LeaveOutATotalRowInEveryStratumNamedOnEveryRow) {
                                             {"South", "Total", 10, 19}}));
     ASSERT_EQ(strata.tables.size(), 2u);
     EXPECT_EQ(strata.tables[1].c, 6);
+    // The Total row of every stratum: named once, and counted.
+    EXPECT_EQ(strata.remarks, (std::vector<std::string>{"The 2 rows \"Total\" are totals and were set aside."}));
 }
 
 TEST(StrataLabels, RefuseAStratumNameThatComesBackAfterAnotherStratum) {
@@ -168,19 +170,6 @@ TEST(StrataLabels, LeaveOutATotalRowAndATotalStratum) {
     const Strata with_total_word = with_sums_named("Total");
     EXPECT_EQ(with_total_word.tables.size(), 2u);
     EXPECT_EQ(with_total_word.remarks, (std::vector<std::string>{"The rows of \"Total\" were set aside as totals."}));
-}
-
-// A Total row in every stratum: named once, and counted.
-TEST(StrataLabels, SayOnceThatTheTotalRowOfEveryStratumWasSetAside) {
-    const Strata read = read_strata(grid({{"Office", "Group", "Yes", "No"},
-                                          {"North", "Women", 5, 10},
-                                          {"North", "Men", 8, 9},
-                                          {"North", "Total", 13, 19},
-                                          {"South", "Women", 7, 3},
-                                          {"South", "Men", 6, 6},
-                                          {"South", "Total", 13, 9}}));
-    EXPECT_EQ(read.tables.size(), 2u);
-    EXPECT_EQ(read.remarks, (std::vector<std::string>{"The 2 rows \"Total\" are totals and were set aside."}));
 }
 
 TEST(StrataLabels, ReachTheRemarksOfTheMantelHaenszelTest) {

@@ -5,7 +5,6 @@
 // independence, which ignores the order.
 #include <string>
 #include <vector>
-#include <vector>
 
 #include "assoc/cell.hpp"
 #include "assoc/count_table.hpp"

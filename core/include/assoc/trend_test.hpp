@@ -3,8 +3,6 @@
 // staff promoted by number of training sessions attended). More powerful than the chi-squared
 // test of independence when the categories have an order and the share rises or falls steadily.
 #include <cstddef>
-#include <vector>
-
 #include <string>
 #include <vector>
 
