@@ -93,12 +93,19 @@ struct TableMargins {
     // 616 digits. Exact for whole counts whose total is below 2^53; otherwise to about 2^-104 of
     // the larger product.
     Scaled numerator(double observed, std::size_t r, std::size_t c) const {
+        if (whole_below_2_53) return {whole_numerator(observed, rows[r].hi, columns[c].hi, total.hi), 0};
         const DoubleDouble o{observed, 0.0};
         const DoubleDouble row_rest = rows[r] - o, column_rest = columns[c] - o;
         const DoubleDouble others = (total - rows[r]) - column_rest;
-        if (whole_below_2_53)
-            return {exact_product(o.hi, others.hi) - exact_product(row_rest.hi, column_rest.hi), 0};
         return difference_of_products(o, others, row_rest, column_rest);
+    }
+
+    // The numerator for whole counts whose total is at most 2^53: every difference of margins is a
+    // whole double, exact in double arithmetic, and the two products are exact double-doubles.
+    static DoubleDouble whole_numerator(double observed, double row, double column, double total) {
+        const double row_rest = row - observed, column_rest = column - observed;
+        const double others = (total - row) - column_rest;
+        return exact_product(observed, others) - exact_product(row_rest, column_rest);
     }
 
     // A numerator divided by n: accurate to about 1.5 units in the last place.

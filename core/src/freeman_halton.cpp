@@ -6,7 +6,8 @@
 // Tables are built one column at a time (a "network", after Mehta & Patel 1983): after k
 // columns, all that matters for the rest is the multiset of row totals still to fill, so partial
 // tables meet in shared nodes keyed by those totals, sorted. Each node keeps the distinct "past"
-// values (log ∏ 1/x! of the filled columns) that reach it, with their multiplicity.
+// values (log ∏ 1/x! of the filled columns) that reach it, with their multiplicity (arrivals are
+// merged into the values already there through a hash over the values; see NodePasts).
 //
 // Three devices keep the work small:
 // - Bounds. For every node the largest and smallest "future" value over all completions is known
@@ -181,12 +182,6 @@ public:
 
     double p_value() {
         const std::size_t meeting = meeting_;
-        // A node's pasts are merged whenever they have doubled since the last merge, so memory
-        // follows the number of distinct values rather than the number of paths.
-        struct NodePasts {
-            std::vector<Past> pasts;
-            std::size_t merge_at = 4096;
-        };
         using Stage = std::unordered_map<NodeKey, NodePasts, NodeKeyHash>;
         const std::size_t node_bytes = map_node_bytes<Stage>();
         Stage stage;
@@ -208,6 +203,7 @@ public:
             double units = 0;
             for (auto& [node, entry] : stage) {
                 std::vector<Past>& pasts = entry.pasts;
+                release(entry.slots);
                 merge_equal_values(pasts);
                 const auto [first, end] = split_by_bounds(pasts, bounds_of(k, node), log_total_future(k, node));
                 if (first == end) {
@@ -247,11 +243,8 @@ public:
                         reserve_for(target.pasts, target.pasts.size() + (end - first));
                         for (std::size_t i = first; i < end; ++i)
                             target.pasts.push_back(Past{pasts[i].log_value + fill_value, pasts[i].mass * arrangements});
-                        // A merge keeps the vector's capacity, so the bytes stay counted.
-                        if (target.pasts.size() >= target.merge_at) {
-                            merge_equal_values(target.pasts);
-                            target.merge_at = std::max<std::size_t>(4096, 2 * target.pasts.size());
-                        }
+                        // Absorbing keeps the vector's capacity, so the bytes stay counted.
+                        if (target.pasts.size() >= target.absorb_at) absorb_arrivals(target);
                         units_done_ += static_cast<double>(end - first);
                         if ((work_ += end - first) > next_time_check_) check_time();
                     });
@@ -596,14 +589,93 @@ private:
         std::sort(pasts.begin(), pasts.end(), [](const Past& a, const Past& b) { return a.log_value < b.log_value; });
         std::size_t kept = 0;
         for (std::size_t i = 0; i < pasts.size(); ++i) {
-            if (kept > 0 && pasts[i].log_value - pasts[kept - 1].log_value <= 1e-9) {
-                pasts[kept - 1].mass += pasts[i].mass * std::exp(pasts[i].log_value - pasts[kept - 1].log_value);
+            if (kept > 0 && pasts[i].log_value - pasts[kept - 1].log_value <= merge_tolerance) {
+                merge_into(pasts[kept - 1], pasts[i].log_value, pasts[i].mass);
             } else {
                 pasts[kept++] = pasts[i];
             }
             if (++work_ > next_time_check_) check_time();
         }
         pasts.resize(kept);  // the capacity stays, and stays counted
+    }
+
+    // Values closer than this are one value (they differ by rounding: sums of the same log
+    // factorials in another order).
+    static constexpr double merge_tolerance = 1e-9;
+
+    // Adds a past of value `value` and mass `mass` to `kept`, whose value is within the tolerance:
+    // mass·e^(value − kept), with e^d taken as 1 + d (|d| ≤ 1e-9, so d²/2 is below the rounding).
+    static void merge_into(Past& kept, double value, double mass) {
+        kept.mass += mass * (1 + (value - kept.log_value));
+    }
+
+    // The pasts arriving at a node of the next stage. They are stored as they arrive (one after the
+    // other in memory, which keeps the stage's pushes cheap) and, once they have doubled since the
+    // last time or grown by 4096, the new arrivals are absorbed into the distinct values before them:
+    // a hash table over the values, cut into intervals of the tolerance, finds a value already there
+    // and adds the arrival's mass to it. So memory follows the number of distinct values, not the
+    // number of paths, and no sort is needed until the next stage (sorting every few thousand
+    // arrivals had cost more than half of a forward stage). Values that straddle the border of two
+    // intervals stay apart here and are merged when the next stage sorts the node's pasts.
+    struct NodePasts {
+        std::vector<Past> pasts;  // [0, distinct): absorbed, distinct; then arrivals
+        std::size_t distinct = 0;
+        std::size_t absorb_at = 4096;
+        // 1 + the position of a distinct past, or 0 for an empty slot; a power of two long, at most
+        // half full.
+        std::vector<std::uint32_t> slots;
+    };
+
+    static std::int64_t interval_of(double value) {
+        // |value| ≤ ln(10^7!) ≈ 1.5e8, so value/tolerance fits in 64 bits. Rounded down by hand:
+        // std::floor is a library call on the baseline x86-64 instruction set.
+        const double scaled = value * (1 / merge_tolerance);
+        const auto truncated = static_cast<std::int64_t>(scaled);
+        return static_cast<double>(truncated) > scaled ? truncated - 1 : truncated;
+    }
+
+    static std::size_t slot_of(std::int64_t interval, std::size_t mask) {
+        return static_cast<std::size_t>((static_cast<std::uint64_t>(interval) * 0x9E3779B97F4A7C15ull) >> 32) & mask;
+    }
+
+    void absorb_arrivals(NodePasts& node) {
+        std::vector<Past>& pasts = node.pasts;
+        for (std::size_t i = node.distinct; i < pasts.size(); ++i) {
+            if (2 * (node.distinct + 1) > node.slots.size()) grow_slots(node);
+            const std::int64_t interval = interval_of(pasts[i].log_value);
+            const std::size_t mask = node.slots.size() - 1;
+            for (std::size_t s = slot_of(interval, mask);; s = (s + 1) & mask) {
+                std::uint32_t& slot = node.slots[s];
+                if (slot == 0) {
+                    pasts[node.distinct++] = pasts[i];
+                    slot = static_cast<std::uint32_t>(node.distinct);
+                    break;
+                }
+                Past& kept = pasts[slot - 1];
+                if (interval_of(kept.log_value) == interval) {
+                    merge_into(kept, pasts[i].log_value, pasts[i].mass);
+                    break;
+                }
+            }
+            if (++work_ > next_time_check_) check_time();
+        }
+        pasts.resize(node.distinct);  // the capacity stays, and stays counted
+        node.absorb_at = std::max<std::size_t>(4096, 2 * node.distinct);
+    }
+
+    void grow_slots(NodePasts& node) {
+        const std::size_t size = std::max<std::size_t>(64, 2 * node.slots.size());
+        if (node.distinct >= std::numeric_limits<std::uint32_t>::max() / 2) fail("memory");
+        release(node.slots);
+        take(size * sizeof(std::uint32_t));
+        node.slots.assign(size, 0);
+        const std::size_t mask = size - 1;
+        for (std::size_t i = 0; i < node.distinct; ++i) {
+            std::size_t s = slot_of(interval_of(node.pasts[i].log_value), mask);
+            while (node.slots[s] != 0) s = (s + 1) & mask;
+            node.slots[s] = static_cast<std::uint32_t>(i + 1);
+            if (++work_ > next_time_check_) check_time();
+        }
     }
 
     // Room for `needed` elements, at least doubling, so that pushes stay amortised. The new
@@ -734,10 +806,14 @@ private:
     // and fill of the column (a push of a forward stage, a search of the last stage), and the
     // futures the last stage needs are counted in values. The forecast adds up what is left:
     // - the current stage's units left, at its own pace so far: measured in processor time over
-    //   the last doubling of its progress once 2% of it is done (a stage's pace only slows as its
-    //   lists grow, so the rest takes at least that long); before that, at the pace of the last
-    //   forward stage but no slower than 15 ns a unit (small stages cost more per unit than large
-    //   ones, up to 16 times on the bench tables), or 1 ns a unit for the last stage;
+    //   the last doubling of its progress once 2% of it is done (a forward stage's pace only slows
+    //   as its lists grow, so the rest takes at least that long). The last stage's pace quickens
+    //   instead (its first searches meet futures lists not yet in the cache; on the bench tables it
+    //   was 1.5 to 2.5 times its average over the first 2%), so there it is measured from 10% on,
+    //   and the faster of the pace over the whole stage and that over the last doubling is taken.
+    //   Before that, at the pace of the last forward stage but no slower than 15 ns a unit (small
+    //   stages cost more per unit than large ones, up to 16 times on the bench tables), or 1 ns a
+    //   unit for the last stage;
     // - for a forward stage of 100,000 units or more, as many more stages of the same cost as
     //   forward stages remain (on the bench suite and random tables of its sizes each took 1.2 to
     //   40 times as long as the one before);
@@ -754,8 +830,7 @@ private:
         units_done_ = 0;
         stage_started_ = cpu_seconds();
         stage_futures_seconds_ = futures_seconds_;
-        window_units_ = 0;
-        window_seconds_ = 0;
+        window_units_ = window_seconds_ = mark_units_ = mark_seconds_ = 0;
         check_forecast();
     }
 
@@ -773,16 +848,21 @@ private:
         if (!limits_.forecast) return;
         const double wall = elapsed(), cpu = cpu_seconds(), in_stage = stage_seconds();
         // The pace over the last doubling of the stage's progress.
-        if (units_done_ >= 2 * window_units_) {
-            window_units_ = units_done_;
-            window_seconds_ = in_stage;
+        // The window runs from the last doubling but one, so that it always spans the last doubling.
+        if (units_done_ >= 2 * mark_units_) {
+            window_units_ = mark_units_;
+            window_seconds_ = mark_seconds_;
+            mark_units_ = units_done_;
+            mark_seconds_ = in_stage;
         }
         double rate = last_stage_ ? settle_rate : std::min(forward_rate_, early_forward_rate);
-        if (units_done_ >= 0.02 * stage_units_ && in_stage >= 0.01) {
+        if (units_done_ >= (last_stage_ ? 0.1 : 0.02) * stage_units_ && in_stage >= 0.01) {
             rate = in_stage / units_done_;
             const double window = units_done_ - window_units_;
-            if (window >= 0.01 * stage_units_ && in_stage - window_seconds_ >= 0.005)
-                rate = std::max(rate, (in_stage - window_seconds_) / window);
+            if (window >= 0.01 * stage_units_ && in_stage - window_seconds_ >= 0.005) {
+                const double recent = (in_stage - window_seconds_) / window;
+                rate = last_stage_ ? std::min(rate, recent) : std::max(rate, recent);
+            }
         }
         double seconds_left = std::max(0.0, stage_units_ - units_done_) * rate;
         if (!last_stage_ && stage_units_ >= 1e5 && stage_ + 2 < meeting_)
@@ -839,7 +919,7 @@ private:
     double planned_future_values_ = 0, built_future_values_ = 0;
     std::size_t stage_ = 0;
     bool last_stage_ = false;
-    double window_units_ = 0, window_seconds_ = 0;
+    double window_units_ = 0, window_seconds_ = 0, mark_units_ = 0, mark_seconds_ = 0;
 };
 
 }  // namespace

@@ -130,6 +130,11 @@ larger = {
     "three_by_six_n100": [[6, 4, 8, 8, 5, 5], [2, 15, 6, 8, 8, 4], [0, 3, 9, 2, 4, 3]],
     "four_by_four_n80": [[6, 3, 0, 4], [4, 6, 1, 6], [5, 2, 4, 7], [7, 2, 6, 17]],
     "five_by_five_n50": [[1, 3, 2, 3, 0], [2, 1, 1, 4, 2], [3, 2, 3, 1, 1], [1, 4, 0, 3, 2], [2, 1, 3, 2, 3]],
+    # Two with thousands of partial tables arriving at a node of a forward stage (they are merged as
+    # they arrive: freeman_halton.cpp, NodePasts).
+    "three_by_eight_n120": [[4, 7, 6, 3, 2, 7, 9, 3], [8, 3, 5, 2, 5, 3, 2, 2], [5, 6, 6, 4, 5, 8, 9, 6]],
+    "five_by_six_n70": [[4, 4, 3, 4, 4, 1], [2, 2, 2, 6, 6, 2], [3, 3, 2, 2, 7, 1], [0, 1, 0, 4, 1, 0],
+                        [0, 1, 1, 1, 2, 1]],
 }
 out.append(f"// R {R_VERSION.split()[2]} fisher.test(m, workspace = 2e8)$p.value. Invented tables.")
 out.append("inline constexpr ExactCase r_fisher_test[] = {")
