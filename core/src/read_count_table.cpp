@@ -189,8 +189,8 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
     // Totals and percentages: what the author did not mean as counts.
     detail::TotalLines totals;
     if (!options.find_totals) {
-        totals.rows.assign(body_rows, false);
-        totals.columns.assign(body_columns, false);
+        totals.rows.assign(body_rows, 0);
+        totals.columns.assign(body_columns, 0);
     } else {
         const detail::BodySide rows{"row", "column", &table.body_row_labels_, header_column, first_body_row + 1};
         const detail::BodySide columns{"column", "row", &table.body_column_labels_, header_row, first_body_column + 1};
@@ -198,10 +198,10 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
         table.doubts_ = totals.doubts;
     }
     for (std::string& doubt : label_doubts) table.doubts_.push_back(std::move(doubt));
+    detail::LineSums sums = detail::line_sums(body, totals.rows, totals.columns);
     if (options.counts_only)
-        for (std::string& doubt : detail::refuse_percentages(body, totals.rows, totals.columns))
-            table.doubts_.push_back(std::move(doubt));
-    table.finish(std::move(body), options, totals.rows, totals.columns);
+        for (std::string& doubt : detail::refuse_percentages(body, sums)) table.doubts_.push_back(std::move(doubt));
+    table.finish(std::move(body), options, totals.rows, totals.columns, std::move(sums.sums), sums.all_whole);
     return table;
 }
 
@@ -218,28 +218,21 @@ CountTable CountTable::from_counts(const Matrix& counts, const ReadOptions& opti
     CountTable table;
     table.body_row_labels_.assign(counts.rows(), "");
     table.body_column_labels_.assign(counts.columns(), "");
-    table.finish(counts, options, std::vector<bool>(counts.rows(), false), std::vector<bool>(counts.columns(), false));
+    const std::vector<char> no_rows(counts.rows(), 0), no_columns(counts.columns(), 0);
+    detail::LineSums sums = detail::line_sums(counts, no_rows, no_columns);
+    table.finish(counts, options, no_rows, no_columns, std::move(sums.sums), sums.all_whole);
     return table;
 }
 
 // Sets aside total lines and all-zero rows and columns, then fills the totals of what is kept.
-void CountTable::finish(Matrix body, const ReadOptions& options, const std::vector<bool>& total_rows,
-                        const std::vector<bool>& total_columns) {
+void CountTable::finish(Matrix body, const ReadOptions& options, const std::vector<char>& total_rows,
+                        const std::vector<char>& total_columns, std::vector<double> body_totals, bool whole) {
     body_ = std::move(body);  // kept, not copied: a sheet may read thousands of small tables
     body_rows_ = body_.rows();
     body_columns_ = body_.columns();
-    // The body's row and column totals, in one block (one allocation fewer for each table read).
-    std::vector<double> body_totals(body_rows_ + body_columns_, 0.0);
-    double* const body_row_totals = body_totals.data();
-    double* const body_column_totals = body_totals.data() + body_rows_;
-    for (std::size_t r = 0; r < body_rows_; ++r)
-        for (std::size_t c = 0; c < body_columns_; ++c) {
-            if (total_rows[r] || total_columns[c]) continue;
-            const double value = body_(r, c);
-            body_row_totals[r] += value;
-            body_column_totals[c] += value;
-            whole_counts_ = whole_counts_ && value == std::floor(value);
-        }
+    whole_counts_ = whole;
+    const double* const body_row_totals = body_totals.data();
+    const double* const body_column_totals = body_totals.data() + body_rows_;
     // Room for everything at once: a sheet may read thousands of small tables per recalculation.
     kept_rows_.reserve(body_rows_);
     kept_columns_.reserve(body_columns_);

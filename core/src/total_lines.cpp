@@ -2,6 +2,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <string_view>
 #include <unordered_map>
 
@@ -64,8 +65,6 @@ bool names_the_whole_group(std::string_view label) {
     return false;
 }
 
-bool same_amount(double a, double b) { return std::fabs(a - b) <= 1e-9 * std::max(std::fabs(a), std::fabs(b)); }
-
 namespace {
 
 // A view of the body's rows, or of its columns, as lines of numbers.
@@ -86,7 +85,7 @@ struct Lines {
 
 // Whether `line` holds the sum of `others` (leaving out `except`) at every position not excluded
 // by `skip`.
-bool holds_sum(const Lines& lines, std::size_t line, const std::vector<std::size_t>& others, const std::vector<bool>& skip,
+bool holds_sum(const Lines& lines, std::size_t line, const std::vector<std::size_t>& others, const std::vector<char>& skip,
                std::size_t except = static_cast<std::size_t>(-1)) {
     for (std::size_t k = 0; k < lines.length(); ++k) {
         if (skip[k]) continue;
@@ -109,12 +108,19 @@ std::string capitalised(std::string text) {
     return text;
 }
 
+// Buffers that the searches of both sides reuse: every table read runs them, thousands of times in a
+// sheet of small tables, where allocations cost more than the sums.
+struct Workspace {
+    std::vector<std::size_t> lines;
+    std::vector<double> sums;
+};
+
 // Looks for total lines on one side: `total` gets the labelled ones and `skip` holds the labelled
 // totals of the other side, whose positions take no part in the sums.
-void find_on_side(const Lines& lines, const BodySide& side, std::vector<bool>& total, const std::vector<bool>& skip,
-                  std::vector<std::string>& doubts) {
-    std::vector<std::size_t> data;
-    data.reserve(lines.count());
+void find_on_side(const Lines& lines, const BodySide& side, std::vector<char>& total, const std::vector<char>& skip,
+                  std::vector<std::string>& doubts, Workspace& workspace) {
+    std::vector<std::size_t>& data = workspace.lines;
+    data.clear();
     for (std::size_t i = 0; i < lines.count(); ++i)
         if (!total[i]) data.push_back(i);
 
@@ -181,18 +187,16 @@ void find_on_side(const Lines& lines, const BodySide& side, std::vector<bool>& t
 // each group does. The first and last lines' sums of all the others are found by find_on_side.
 // Without a label it is refused; with a label that is not a total word it is doubted. Each line's
 // search stops when the running sum passes the line's value, and after 100 lines.
-void find_subtotals(const Lines& lines, const BodySide& side, const std::vector<bool>& total, const std::vector<bool>& skip,
-                    std::vector<std::string>& doubts) {
+void find_subtotals(const Lines& lines, const BodySide& side, const std::vector<char>& total, const std::vector<char>& skip,
+                    std::vector<std::string>& doubts, Workspace& workspace) {
     constexpr std::size_t longest_block = 100;
     std::size_t data_lines = 0;
     for (std::size_t i = 0; i < lines.count(); ++i)
         if (!total[i] && !lines.empty(i)) ++data_lines;
     if (lines.count() < 3) return;
-    // Reused from line to line: this runs on every read of a table, thousands of times in a sheet of
-    // small tables, where allocations cost more than the sums.
-    std::vector<double> sum(lines.length());
-    std::vector<std::size_t> block;
-    block.reserve(std::min(lines.count(), longest_block + 1));
+    std::vector<double>& sum = workspace.sums;
+    sum.resize(lines.length());
+    std::vector<std::size_t>& block = workspace.lines;
     for (std::size_t i = 2; i < lines.count(); ++i) {
         if (total[i] || lines.empty(i)) continue;
         std::fill(sum.begin(), sum.end(), 0.0);
@@ -280,7 +284,7 @@ bool names_percentages(std::string_view label) {
     return false;
 }
 
-void refuse_summaries(const Lines& lines, const BodySide& side, const std::vector<bool>& total) {
+void refuse_summaries(const Lines& lines, const BodySide& side, const std::vector<char>& total) {
     if (!side.labelled) return;
     for (std::size_t i = 0; i < lines.count(); ++i) {
         if (total[i]) continue;
@@ -309,7 +313,7 @@ void refuse_summaries(const Lines& lines, const BodySide& side, const std::vecto
 }
 
 // Two lines with the same label: a line copied twice, or one group split in two by mistake.
-void doubt_repeated_labels(const BodySide& side, const std::vector<bool>& total, std::vector<std::string>& doubts) {
+void doubt_repeated_labels(const BodySide& side, const std::vector<char>& total, std::vector<std::string>& doubts) {
     if (!side.labelled) return;
     const std::vector<std::string>& labels = *side.labels;
     // Each label's lines in one pass (a table may have thousands of lines), said in order of first use.
@@ -351,8 +355,8 @@ bool is_total_label(std::string_view label) {
 TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns, bool distinct_labels,
                             bool counts_only) {
     TotalLines totals;
-    totals.rows.assign(body.rows(), false);
-    totals.columns.assign(body.columns(), false);
+    totals.rows.assign(body.rows(), 0);
+    totals.columns.assign(body.columns(), 0);
     for (std::size_t r = 0; r < body.rows(); ++r) totals.rows[r] = rows.labelled && is_total_label((*rows.labels)[r]);
     for (std::size_t c = 0; c < body.columns(); ++c)
         totals.columns[c] = columns.labelled && is_total_label((*columns.labels)[c]);
@@ -360,10 +364,14 @@ TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const Body
         refuse_summaries(Lines{body, true}, rows, totals.rows);
         refuse_summaries(Lines{body, false}, columns, totals.columns);
     }
-    find_on_side(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts);
-    find_on_side(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts);
-    find_subtotals(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts);
-    find_subtotals(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts);
+    Workspace workspace;
+    const std::size_t longest = std::max(body.rows(), body.columns());
+    workspace.lines.reserve(longest);
+    workspace.sums.reserve(longest);
+    find_on_side(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts, workspace);
+    find_on_side(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts, workspace);
+    find_subtotals(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts, workspace);
+    find_subtotals(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts, workspace);
     if (distinct_labels) {
         doubt_repeated_labels(rows, totals.rows, totals.doubts);
         doubt_repeated_labels(columns, totals.columns, totals.doubts);
@@ -371,30 +379,37 @@ TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const Body
     return totals;
 }
 
-std::vector<std::string> refuse_percentages(const Matrix& body, const std::vector<bool>& total_rows,
-                                            const std::vector<bool>& total_columns) {
-    bool all_whole = true;
-    double grand = 0;
-    // The row and column sums in one block (one allocation fewer for each table read).
-    std::vector<double> sums(body.rows() + body.columns(), 0.0);
-    double* const row_sums = sums.data();
-    double* const column_sums = sums.data() + body.rows();
+LineSums line_sums(const Matrix& body, const std::vector<char>& total_rows, const std::vector<char>& total_columns) {
+    LineSums result;
+    result.sums.assign(body.rows() + body.columns(), 0.0);
+    double* const row_sums = result.sums.data();
+    double* const column_sums = result.sums.data() + body.rows();
     for (std::size_t r = 0; r < body.rows(); ++r)
         for (std::size_t c = 0; c < body.columns(); ++c) {
             if (total_rows[r] || total_columns[c]) continue;
             const double value = body(r, c);
-            all_whole = all_whole && value == std::floor(value);
+            // Whole: beyond 2^52 every double is; below, the cast is exact (no library call for floor).
+            result.all_whole = result.all_whole &&
+                               (std::fabs(value) >= 0x1p52 || value == static_cast<double>(static_cast<std::int64_t>(value)));
             row_sums[r] += value;
             column_sums[c] += value;
-            grand += value;
+            result.grand += value;
         }
+    return result;
+}
+
+std::vector<std::string> refuse_percentages(const Matrix& body, const LineSums& line_totals) {
+    const bool all_whole = line_totals.all_whole;
+    const double grand = line_totals.grand;
+    const double* const row_sums = line_totals.sums.data();
+    const double* const column_sums = line_totals.sums.data() + body.rows();
 
     std::vector<std::string> doubts;
-    const auto check_side = [&](const double* line_sums, std::size_t lines, const char* word) {
+    const auto check_side = [&](const double* sums, std::size_t lines, const char* word) {
         std::size_t with_counts = 0;
         bool hundred = true, one = true, exactly_hundred = true;
         for (std::size_t i = 0; i < lines; ++i) {
-            const double sum = line_sums[i];
+            const double sum = sums[i];
             if (sum == 0) continue;
             ++with_counts;
             hundred = hundred && std::fabs(sum - 100) <= 1;

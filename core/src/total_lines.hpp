@@ -3,6 +3,8 @@
 // its total row or column, or types percentages instead of counts. Read as counts, either gives a
 // confident wrong answer, so read_count_table sets labelled totals aside, refuses what it cannot
 // tell apart from counts, and reports what stays ambiguous.
+#include <algorithm>
+#include <cmath>
 #include <cstddef>
 #include <string>
 #include <string_view>
@@ -28,8 +30,9 @@ bool is_total_label(std::string_view label);
 bool names_the_whole_group(std::string_view label);
 
 // Whether two sums are the same amount, to 1e-9 relative (rounding of sums of non-whole counts):
-// how a total line, a subtotal or a stratum of totals is recognised.
-bool same_amount(double a, double b);
+// how a total line, a subtotal or a stratum of totals is recognised. Inline: the searches for total
+// lines call it for every position of every line of every table read.
+inline bool same_amount(double a, double b) { return std::fabs(a - b) <= 1e-9 * std::max(std::fabs(a), std::fabs(b)); }
 
 // One side of a table body: its rows (or its columns), how they are labelled and numbered.
 struct BodySide {
@@ -41,7 +44,7 @@ struct BodySide {
 };
 
 struct TotalLines {
-    std::vector<bool> rows, columns;  // true: a total line, set aside
+    std::vector<char> rows, columns;  // non-zero: a total line, set aside (char: see CountTable::finish)
     std::vector<std::string> doubts;  // sentences for the verdict
 };
 
@@ -59,11 +62,21 @@ struct TotalLines {
 TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const BodySide& columns,
                             bool distinct_labels = true, bool counts_only = true);
 
+// The sums of a body's rows and columns with its total lines left out, in one block (rows first),
+// whether every entry counted is whole, and their grand sum. Read once per table, by
+// refuse_percentages and CountTable alike.
+struct LineSums {
+    std::vector<double> sums;  // body rows, then body columns
+    bool all_whole = true;
+    double grand = 0;
+};
+LineSums line_sums(const Matrix& body, const std::vector<char>& total_rows, const std::vector<char>& total_columns);
+
 // Refuses percentages and shares typed instead of counts: the lines of one side (at least 2 with
 // counts) that each add up to 100 (within 1) or to 1 (within 0.01), or a body that adds up to 100 or
 // 1, when some entry is not a whole number. Lines of whole numbers that each add up to exactly 100
-// give a doubt instead (they may be percentages, or 100 people each). Total lines are left out.
-std::vector<std::string> refuse_percentages(const Matrix& body, const std::vector<bool>& total_rows,
-                                            const std::vector<bool>& total_columns);
+// give a doubt instead (they may be percentages, or 100 people each). Total lines are left out:
+// `sums` are line_sums of the body.
+std::vector<std::string> refuse_percentages(const Matrix& body, const LineSums& sums);
 
 }  // namespace assoc::detail

@@ -99,8 +99,12 @@ public:
 
 private:
     friend CountTable read_count_table(const CellGrid&, const ReadOptions&);
-    void finish(Matrix body, const ReadOptions& options, const std::vector<bool>& total_rows,
-                const std::vector<bool>& total_columns);
+    // `body_totals`: the sums of the body's rows, then of its columns, total lines left out;
+    // `whole`: whether every count they add up is whole.
+    // `total_rows`, `total_columns`: non-zero for a total line (char rather than bool: bit vectors
+    // cost more than the sums in a small table).
+    void finish(Matrix body, const ReadOptions& options, const std::vector<char>& total_rows,
+                const std::vector<char>& total_columns, std::vector<double> body_totals, bool whole);
 
     Matrix counts_;
     Matrix body_;
