@@ -319,8 +319,15 @@ def main():
             say(f"  cold load {cold_load[0]:.3f} s")
         book["cold_load"] = cold_load
         # Checks: every step shows the same outcomes; the floor read 12 elements; the p-values agree.
-        if book["warm_outcomes"] != book["outcomes"] or book["loaded_outcomes"] != book["outcomes"] or \
-                cold_load_outcomes != book["outcomes"]:
+        # In a fresh office a table may be refused for its time (the forecast) where the first office
+        # met the memory limit first, or the other way round: CHECK then names the other limit, which
+        # is no difference of outcome.
+        def outcomes(rows):
+            return [[re.sub(r"needs more (time|memory) than allowed", "needs more than allowed", str(v)) for v in row]
+                    for row in rows]
+        if outcomes(book["warm_outcomes"]) != outcomes(book["outcomes"]) or \
+                outcomes(book["loaded_outcomes"]) != outcomes(book["outcomes"]) or \
+                outcomes(cold_load_outcomes) != outcomes(book["outcomes"]):
             failures.append("the workbook's cells differ between calculations: "
                             f"{book['outcomes']} / {book['warm_outcomes']} / {book['loaded_outcomes']} / "
                             f"{cold_load_outcomes}")
