@@ -15,6 +15,19 @@ const std::string select_hint =
     "Select a table of counts (its labels may be included), or two columns of records, and run the command again.";
 const std::string choose_hint = "Choose how to read the selection: \"a table of counts\" or \"two columns of records\".";
 
+// Whether a message of the functions names a row or column by its number ("row 6", "Row 2 ("North"),
+// column 3"): they count within the ranges they are given, which the command takes from the selection.
+bool names_a_position(const std::string& message) {
+    for (const char* word : {"row ", "rows ", "column ", "columns ", "Row ", "Rows ", "Column ", "Columns "}) {
+        const std::string w(word);
+        for (std::size_t at = message.find(w); at != std::string::npos; at = message.find(w, at + 1)) {
+            const std::size_t next = at + w.size();
+            if (next < message.size() && message[next] >= '0' && message[next] <= '9') return true;
+        }
+    }
+    return false;
+}
+
 std::string sentence_from(const std::string& core_message) {
     std::string text = core_message;
     if (!text.empty() && text.front() >= 'a' && text.front() <= 'z') text.front() = static_cast<char>(text.front() - 32);
@@ -118,7 +131,13 @@ Reading read_records(RangeRef rows_range, const CellGrid& rows_column, RangeRef 
         source.skipped_blank = counts.skipped_blank;
         reading.table = counts.table();
     } catch (const Error& error) {
-        throw Error("The two columns cannot be counted into a table: " + sentence_from(error.what()) + " " + select_hint);
+        // The functions number the records' rows from the first row counted; say where that is on the sheet.
+        const std::string where = rows_range.row != 0 && names_a_position(error.what())
+                                      ? " Rows are counted from the first row read, sheet row " +
+                                            std::to_string(rows_range.row + 1) + "."
+                                      : "";
+        throw Error("The two columns cannot be counted into a table: " + sentence_from(error.what()) + where + " " +
+                    select_hint);
     }
     for (const Cell& level : source.row_levels) reading.row_names.push_back(level_text(level));
     for (const Cell& level : source.column_levels) reading.column_names.push_back(level_text(level));
@@ -158,7 +177,12 @@ Reading read_table(const RangeRef& range, const CellGrid& grid) {
     try {
         reading.table = read_count_table(grid);
     } catch (const Error& error) {
-        throw Error("The selection cannot be read as a table of counts: " + sentence_from(error.what()) + " " +
+        // The functions number rows and columns from the selection's first cell; say where that is.
+        const std::string where = (range.row != 0 || range.column != 0) && names_a_position(error.what())
+                                      ? " Rows and columns are counted from the selection's first cell, " +
+                                            cell_address(range.row, range.column) + "."
+                                      : "";
+        throw Error("The selection cannot be read as a table of counts: " + sentence_from(error.what()) + where + " " +
                     select_hint);
     }
     TableSource source{range, reading.table.has_column_labels(), reading.table.has_row_labels()};

@@ -176,10 +176,34 @@ TEST(ReadSelection, ReadsAShortTwoColumnBlockOfNumbersAsATable) {
 }
 
 TEST(ReadSelection, RefusesTextAmongTheCountsWithTheReasonTheFunctionsGive) {
-    expect_error([] { read(block(grid({{"", "Yes", "No"}, {"North", 4, "n/a"}, {"South", 2, 7}}))); },
+    expect_error([] { read(block(grid({{"", "Yes", "No"}, {"North", 4, "n/a"}, {"South", 2, 7}}), 0, 0)); },
                  "The selection cannot be read as a table of counts: Row 2 (\"North\"), column 3 (\"No\") holds the "
                  "text \"n/a\"; counts must be numbers. Select a table of counts (its labels may be included), or two columns of records, "
                  "and run the command again.");
+}
+
+// The functions number rows and columns within the selection; below or beside A1 those are not the
+// sheet's, so the message says where they start.
+TEST(ReadSelection, SaysWhereTheRowsOfATableAreCountedFromWhenTheSelectionIsNotAtA1) {
+    expect_error([] { read(block(grid({{"", "Yes", "No"}, {"North", 4, "n/a"}, {"South", 2, 7}}), 5, 1)); },
+                 "The selection cannot be read as a table of counts: Row 2 (\"North\"), column 3 (\"No\") holds the "
+                 "text \"n/a\"; counts must be numbers. Rows and columns are counted from the selection's first "
+                 "cell, B6. Select a table of counts (its labels may be included), or two columns of records, and run "
+                 "the command again.");
+}
+
+TEST(ReadSelection, SaysWhereTheRowsOfRecordsAreCountedFromWhenTheyDoNotStartInRow1) {
+    // Names on sheet row 10, records on rows 11 to 14, a total line on row 15 (row 5 of the records).
+    expect_error([] {
+        read(block(grid({{"Region", "Exception"}, {"North", "Yes"}, {"South", "No"}, {"North", "No"},
+                         {"South", "Yes"}, {"Total", 4}}),
+                   9, 0));
+    },
+                 "The two columns cannot be counted into a table: The last record, row 5, holds \"Total\", which reads "
+                 "as a total line under the records rather than a record: leave it out of the ranges (Assoc counts "
+                 "the records itself); if it is a record, move it up among the others. Rows are counted from the "
+                 "first row read, sheet row 11. Select a table of counts (its labels may be included), or two "
+                 "columns of records, and run the command again.");
 }
 
 TEST(ReadSelection, RefusesRecordColumnsThatCoverDifferentRows) {
