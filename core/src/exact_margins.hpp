@@ -108,6 +108,13 @@ struct TableMargins {
         return exact_product(observed, others) - exact_product(row_rest, column_rest);
     }
 
+    // O − E and E for whole counts whose total is at most 2^53, from the table's own totals: what
+    // deviation and expected compute then, for callers that need no copy of the margins.
+    static double whole_deviation(double observed, double row, double column, double total) {
+        return whole_numerator(observed, row, column, total).value() / total;
+    }
+    static double whole_expected(double row, double column, double total) { return row * column / total; }
+
     // A numerator divided by n: accurate to about 1.5 units in the last place.
     double over_total(const Scaled& numerator) const {
         if (whole_below_2_53) return numerator.value.value() / total.hi;  // the exponent is 0
@@ -116,12 +123,13 @@ struct TableMargins {
 
     // O − E.
     double deviation(double observed, std::size_t r, std::size_t c) const {
+        if (whole_below_2_53) return whole_deviation(observed, rows[r].hi, columns[c].hi, total.hi);
         return over_total(numerator(observed, r, c));
     }
 
     // E = R·C/n; it is never a difference, so double precision is all it needs.
     double expected(std::size_t r, std::size_t c) const {
-        if (whole_below_2_53) return rows[r].hi * columns[c].hi / total.hi;
+        if (whole_below_2_53) return whole_expected(rows[r].hi, columns[c].hi, total.hi);
         return product_over(rows[r], columns[c], total);
     }
 

@@ -610,8 +610,8 @@ private:
     }
 
     // The pasts arriving at a node of the next stage. They are stored as they arrive (one after the
-    // other in memory, which keeps the stage's pushes cheap) and, once they have doubled since the
-    // last time or grown by 4096, the new arrivals are absorbed into the distinct values before them:
+    // other in memory, which keeps the stage's pushes cheap) and, once the node holds 4096 pasts or
+    // twice its distinct ones, the new arrivals are absorbed into the distinct values before them:
     // a hash table over the values, cut into intervals of the tolerance, finds a value already there
     // and adds the arrival's mass to it. So memory follows the number of distinct values, not the
     // number of paths, and no sort is needed until the next stage (sorting every few thousand

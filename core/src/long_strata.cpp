@@ -39,7 +39,6 @@ void set_aside_whole_group_stratum(LongStrata& strata) {
     }
 }
 
-
 std::string range_row(std::size_t row) { return "row " + std::to_string(row + 1); }
 
 // A label as the range shows it: texts as they are, numbers written out.

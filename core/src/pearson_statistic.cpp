@@ -11,14 +11,15 @@ double pearson_statistic(const CountTable& table) {
     double sum = 0.0;
     const double n = table.total();
     if (table.whole_counts() && n <= 0x1p53) {
-        // The common case, the same arithmetic as TableMargins' for whole counts, without copying the
-        // margins.
+        // The common case: TableMargins' arithmetic for whole counts, on the table's own totals
+        // (copying them into margins cost as much as the sum for a small table).
+        using detail::TableMargins;
         for (std::size_t r = 0; r < table.rows(); ++r) {
             const double row = table.row_total(r);
             for (std::size_t c = 0; c < table.columns(); ++c) {
                 const double column = table.column_total(c);
-                const double d = detail::TableMargins::whole_numerator(table.count(r, c), row, column, n).value() / n;
-                sum += d * (d / (row * column / n));
+                const double d = TableMargins::whole_deviation(table.count(r, c), row, column, n);
+                sum += d * (d / TableMargins::whole_expected(row, column, n));
             }
         }
         return sum;
