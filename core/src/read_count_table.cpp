@@ -1,8 +1,10 @@
 // Reading a count table from a range of cells: headers, body, empty rows and columns.
 #include <algorithm>
 #include <cmath>
+#include <iterator>
 #include <limits>
 #include <string>
+#include <vector>
 
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
@@ -65,18 +67,80 @@ std::string date_of_serial(double serial) {
     return std::to_string(day) + " " + names[month - 1] + " " + std::to_string(year);
 }
 
-// 0, 1, 2, … or 1, 2, 3, … along a first row or column of at least 3: the numbers of ordered
-// categories (courses taken, a rating) typed as numbers, or counts that happen to rise by one.
+// Whole numbers that count up by one along a first row or column of at least 3: 0, 1, 2, … or 1, 2, 3,
+// … (the numbers of ordered categories, such as courses taken, or a rating) or 101, 102, 103, … (codes
+// of departments or cost centres), typed as numbers; or counts that happen to rise by one.
 template <class CellAt>
-bool looks_like_steps(std::size_t length, CellAt cell_at) {
-    if (length < 3) return false;
-    for (std::size_t i = 0; i < length; ++i) {
+bool counts_up_by_one(std::size_t length, CellAt cell_at) {
+    if (length < 3 || !cell_at(0).is_number()) return false;
+    const double start = cell_at(0).as_number();
+    if (!(start >= 0 && start < 1e15) || start != std::floor(start)) return false;
+    for (std::size_t i = 1; i < length; ++i) {
         const Cell& cell = cell_at(i);
-        if (!cell.is_number()) return false;
-        const double start = cell_at(0).is_number() ? cell_at(0).as_number() : -1;
-        if ((start != 0 && start != 1) || cell.as_number() != start + static_cast<double>(i)) return false;
+        if (!cell.is_number() || cell.as_number() != start + static_cast<double>(i)) return false;
     }
     return true;
+}
+
+template <class CellAt>
+bool all_whole_numbers(std::size_t length, CellAt cell_at) {
+    if (length < 2) return false;
+    for (std::size_t i = 0; i < length; ++i) {
+        const Cell& cell = cell_at(i);
+        if (!cell.is_number() || cell.as_number() != std::floor(cell.as_number())) return false;
+    }
+    return true;
+}
+
+// A label that names codes or numbered categories ("Code", "ID", "Dept no.", "Cost centre #", "Year",
+// "Grade", "Age band"): over a first row or column of whole numbers it says those numbers are labels.
+// Whole words only; "No" alone is an answer, so "no" counts only after another word. A label with a
+// number or a single letter in it ("Grade A", "Level 1") names one category instead, as does one
+// whose word comes back in another label of its header line ("Level 1", "Level 2", …): those
+// numbers are counts of that category.
+bool names_codes(std::string_view label, const std::vector<std::string>& other_labels) {
+    static const char* const words[] = {
+        "code", "codes", "id", "ids", "nr", "num", "#", "year", "years", "month", "week", "quarter", "grade",
+        "level", "band", "age", "score", "rating", "rank", "zip", "postcode", "kennung", "nummer", "jahr", "monat",
+        "stufe", "année", "annee", "mois", "año", "ano", "anno", "jaar", "år", "rok", "kod", "código", "codigo",
+        "codice", "cod", "niveau", "nivel", "livello"};
+    const auto is_word_char = [](char c) {
+        return (c >= 'a' && c <= 'z') || (c >= '0' && c <= '9') || c == '#' || static_cast<unsigned char>(c) >= 0x80;
+    };
+    const auto tokens_of = [&](std::string_view text) {
+        std::vector<std::string> tokens;
+        for (std::size_t k = 0; k < text.size();) {
+            if (!is_word_char(text[k])) {
+                ++k;
+                continue;
+            }
+            std::size_t end = k;
+            while (end < text.size() && is_word_char(text[end])) ++end;
+            tokens.emplace_back(text.substr(k, end - k));
+            k = end;
+        }
+        return tokens;
+    };
+    const std::vector<std::string> tokens = tokens_of(folded_label(label));
+    std::string code;
+    for (std::size_t i = 0; i < tokens.size(); ++i) {
+        const std::string& token = tokens[i];
+        if (token.find_first_of("0123456789") != std::string::npos || (token.size() == 1 && token != "#")) return false;
+        const bool names = (token == "no" && i > 0) ||
+                           std::any_of(std::begin(words), std::end(words), [&](const char* w) { return token == w; });
+        if (names && code.empty()) code = token;
+    }
+    if (code.empty()) return false;
+    for (const std::string& other : other_labels) {
+        const std::vector<std::string> others = tokens_of(folded_label(other));
+        if (std::find(others.begin(), others.end(), code) != others.end()) return false;
+    }
+    return true;
+}
+
+// A whole number as typed, without separators ("4711", not "4,711"): how codes are written.
+std::string as_typed(double whole) {
+    return std::fabs(whole) < 1e15 ? std::to_string(static_cast<long long>(whole)) : format_count(whole);
 }
 
 std::string plural(std::size_t n, const char* word) {
@@ -148,7 +212,10 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
     // The words are put together only when said (a string built here would cost allocations on every
     // call, and thousands of ASSOC.PVALUE cells each read a small table).
     std::vector<std::string> label_doubts;
-    const auto doubt_numbers_as_labels = [&](const char* line, std::size_t length, auto cell_at) {
+    // `label`: the line's own label (the corner cell), or blank; `other_labels`: the rest of its header line.
+    const auto doubt_numbers_as_labels = [&](const char* line, const Cell& label,
+                                             const std::vector<std::string>& other_labels, std::size_t length,
+                                             auto cell_at) {
         if (looks_like_labels(length, cell_at, 1900, 2100)) {
             label_doubts.push_back(std::string(line) +
                                    " holds whole numbers that look like years, and they were read as counts; if they "
@@ -160,21 +227,45 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
                                    "a date as its day count: " + format_count(first) + " is " + date_of_serial(first) +
                                    "), and they were read as counts; if they are labels, enter them as text or add a "
                                    "text header.");
-        } else if (looks_like_steps(length, cell_at)) {
+        } else if (label.is_text() && all_whole_numbers(length, cell_at) && names_codes(label.as_text(), other_labels)) {
+            label_doubts.push_back(std::string(line) + " (" + quoted_label(label.as_text()) + ") holds whole numbers under "
+                                   "a label that names codes or numbered categories, and they were read as counts; if "
+                                   "they are labels, enter them as text (type an apostrophe first: '" +
+                                   as_typed(cell_at(0).as_number()) + ") so that they are read as labels.");
+        } else if (counts_up_by_one(length, cell_at)) {
             const double start = cell_at(0).as_number();
-            const std::string list = format_count(start) + ", " + format_count(start + 1) + ", " + format_count(start + 2) +
+            const std::string list = as_typed(start) + ", " + as_typed(start + 1) + ", " + as_typed(start + 2) +
                                      (length > 3 ? ", …" : "");
-            label_doubts.push_back(std::string(line) + " holds the whole numbers " + list +
-                                   ", which look like the numbers of ordered categories (0, 1, 2, … or 1, 2, 3, …), and "
-                                   "they were read as counts; if they are labels, enter them as text (type an apostrophe "
-                                   "first: '1) or add a text header.");
+            const bool ordinal = start <= 1;
+            label_doubts.push_back(std::string(line) + " holds the whole numbers " + list + ", which " +
+                                   (ordinal ? "look like the numbers of ordered categories (0, 1, 2, … or 1, 2, 3, …)"
+                                            : "count up by one as codes of departments or numbered categories do") +
+                                   ", and they were read as counts; if they are labels, enter them as text (type an "
+                                   "apostrophe first: '" + (ordinal ? std::string("1") : as_typed(start)) +
+                                   ") or add a text header.");
         }
     };
+    // The corner cell labels the first row when there is a header column, and the first column when
+    // there is a header row.
+    const Cell& corner = range.at(0, 0);
+    const Cell no_label;
+    // The other labels of the header line, read only when the corner is text (a sheet reads thousands of
+    // small tables).
+    const auto header_line = [&](bool labelled, std::size_t length, auto cell_at) {
+        std::vector<std::string> labels;
+        if (labelled && corner.is_text())
+            for (std::size_t i = 1; i < length; ++i) labels.push_back(label_of(cell_at(i)));
+        return labels;
+    };
     if (!header_row)
-        doubt_numbers_as_labels("Row 1", body_columns,
+        doubt_numbers_as_labels("Row 1", header_column ? corner : no_label,
+                                header_line(header_column, range.rows(), [&](std::size_t r) -> const Cell& { return range.at(r, 0); }),
+                                body_columns,
                                 [&](std::size_t c) -> const Cell& { return range.at(0, first_body_column + c); });
     if (!header_column)
-        doubt_numbers_as_labels("Column 1", body_rows,
+        doubt_numbers_as_labels("Column 1", header_row ? corner : no_label,
+                                header_line(header_row, range.columns(), [&](std::size_t c) -> const Cell& { return range.at(0, c); }),
+                                body_rows,
                                 [&](std::size_t r) -> const Cell& { return range.at(first_body_row + r, 0); });
 
     table.has_column_labels_ = header_row;

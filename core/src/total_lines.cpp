@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdint>
+#include <iterator>
 #include <string_view>
 #include <unordered_map>
 
@@ -53,16 +54,41 @@ const char* const total_beginnings[] = {"total ",  "grand total", "subtotal ", "
 const char* const whole_group_beginnings[] = {"all ",     "overall ",     "whole ",       "entire ",
                                               "everyone", "everybody",    "company-wide", "company wide"};
 
+// Labels that say how many people or cases a line holds ("N", "Headcount", "Number of staff",
+// "Respondents", "Base"), in the languages of total_words: the column of group sizes that a
+// workbook puts beside its counts. Like the names of everyone above, not totals by the label alone
+// (a group may be called "Staff"). Not "No" or "Nr": "No" is an answer.
+const char* const size_words[] = {
+    // English
+    "n", "count", "counts", "headcount", "headcounts", "head count", "number", "numbers", "frequency", "freq",
+    "employees", "staff", "people", "persons", "respondents", "responses", "cases", "base", "size", "sample size",
+    // German
+    "anzahl", "mitarbeiter", "mitarbeitende", "personen", "befragte", "fallzahl", "basis",
+    // French
+    "effectif", "effectifs", "nombre", "nb", "personnes", "répondants", "repondants",
+    // Spanish, Portuguese and Italian
+    "número", "numero", "cantidad", "casos", "personas", "plantilla", "quantidade", "pessoas", "conteggio", "organico",
+    // Dutch, Scandinavian and Polish
+    "aantal", "personeel", "antal", "antall", "liczba", "osoby",
+};
+
+const char* const size_beginnings[] = {"number of ", "count of ",  "no. of ", "# of ",     "anzahl ",
+                                       "nombre de ", "número de ", "numero de ", "numero di ", "aantal ",
+                                       "antal ",     "liczba "};
+
 }  // namespace
 
 bool names_the_whole_group(std::string_view label) {
     const std::string text = folded_total_label(label);
     if (text == "company") return true;
-    for (const char* beginning : whole_group_beginnings) {
+    for (const char* word : size_words)
+        if (text == word) return true;
+    const auto begins_with = [&](const char* beginning) {
         const std::string_view start(beginning);
-        if (text.size() >= start.size() && text.compare(0, start.size(), start) == 0) return true;
-    }
-    return false;
+        return text.size() >= start.size() && text.compare(0, start.size(), start) == 0;
+    };
+    return std::any_of(std::begin(whole_group_beginnings), std::end(whole_group_beginnings), begins_with) ||
+           std::any_of(std::begin(size_beginnings), std::end(size_beginnings), begins_with);
 }
 
 namespace {

@@ -25,8 +25,10 @@ namespace assoc::detail {
 bool is_total_label(std::string_view label);
 
 // Whether a label names everyone ("All staff", "All offices", "Overall figure", "Whole company",
-// "Company", "Everyone"): not a total by the label alone ("All of the time" may be an answer), but
-// a line or a stratum so labelled that holds the sums of the others is one.
+// "Company", "Everyone") or how many they are ("N", "Count", "Headcount", "Number of staff",
+// "Respondents", "Base", "Anzahl", "Effectif"): not a total by the label alone ("All of the time" may
+// be an answer, "Staff" a group), but a line or a stratum so labelled that holds the sums of the
+// others is one.
 bool names_the_whole_group(std::string_view label);
 
 // Whether two sums are the same amount, to 1e-9 relative (rounding of sums of non-whole counts):

@@ -122,6 +122,36 @@ class TotalsInsideTheRange(HabitCase):
         self.assertIn('The row "All staff" is a total and was set aside.', text)
 
 
+    def test_a_column_of_group_sizes_beside_the_counts_is_set_aside(self):
+        rows = [row[:] for row in WITH_TOTALS[:-1]]
+        rows[0][3] = "Headcount"
+        table = self.put(rows)
+        without = self.put(PROMOTIONS, row=10)
+        self.assertEqual(self.number("H1", f"=ASSOC.PVALUE({table})"), self.number("H2", f"=ASSOC.PVALUE({without})"))
+        text = self.words("H3", f"=ASSOC.CHECK({table})")
+        self.assertTrue(text.startswith("Sound:"), text)
+        self.assertIn('The column "Headcount" is a total and was set aside.', text)
+
+
+class NumbersThatLabel(HabitCase):
+    def test_department_codes_typed_as_numbers_make_the_table_doubtful(self):
+        table = self.put([["Unit", "Promoted", "Not promoted"], [101, 30, 45], [102, 10, 80], [103, 22, 41]])
+        text = self.words("H1", f"=ASSOC.CHECK({table})")
+        self.assertTrue(text.startswith("Doubtful: Column 1 holds the whole numbers 101, 102, 103, which count up by "
+                                        "one as codes"), text)
+
+    def test_numbers_under_a_label_that_names_codes_make_the_table_doubtful(self):
+        table = self.put([["Cost centre no.", "Promoted", "Not promoted"], [4711, 30, 45], [4730, 10, 80],
+                          [4802, 22, 41]])
+        self.assertTrue(self.words("H1", f"=ASSOC.CHECK({table})").startswith(
+            'Doubtful: Column 1 ("Cost centre no.") holds whole numbers under a label that names codes or numbered '
+            'categories, and they were read as counts; if they are labels, enter them as text (type an apostrophe '
+            "first: '4711)"))
+
+    def test_counts_under_a_category_of_a_numbered_kind_stay_sound(self):
+        table = self.put([["Level 1", "Level 2", "Level 3"], [30, 45, 12], [10, 80, 14], [22, 41, 9]])
+        self.assertTrue(self.words("H1", f"=ASSOC.CHECK({table})").startswith("Sound:"))
+
 class WholeColumnsAndRecords(HabitCase):
     # Invented records: channel and outcome of 8 invoices, with headers in row 1.
     CHANNELS = ["Channel", "Web", "Shop", "Web", "Phone", "Shop", "Web", "Phone", "Web"]

@@ -121,6 +121,40 @@ TEST(TotalLines, SetsAsideALineNamingEveryoneThatHoldsTheSum) {
     }
 }
 
+// "N", "Headcount": a column of group sizes beside the counts, as workbooks put it. Set aside, it
+// leaves the same test as the table without it (an identity).
+TEST(TotalLines, SetsAsideALineNamingTheGroupsSizeThatHoldsTheSum) {
+    const double without = independence_test(read_count_table(without_totals()), Method::pearson).p_value;
+    for (const char* label : {"N", "n", "Count", "Headcount", "Number of staff", "Respondents", "Base", "Anzahl",
+                              "Effectif", "Aantal"}) {
+        const CountTable read = read_count_table(
+            grid({{"", "Promoted", "Not promoted", label}, {"Sales", 30, 45, 75}, {"Legal", 10, 80, 90}}));
+        EXPECT_EQ(read.columns(), 2u) << label;
+        EXPECT_TRUE(read.doubts().empty()) << label;
+        EXPECT_EQ(independence_test(read, Method::pearson).p_value, without) << label;
+        EXPECT_NE(check_validity(read).summary().find(std::string("The column \"") + label +
+                                                      "\" is a total and was set aside."),
+                  std::string::npos)
+            << label << ": " << check_validity(read).summary();
+    }
+}
+
+// A group called "Staff" is data unless it holds the sum; "No" is an answer even when it does.
+TEST(TotalLines, KeepsAGroupNamedLikeASizeThatDoesNotHoldTheSum) {
+    const CountTable read =
+        read_count_table(grid({{"", "Managers", "Staff"}, {"Promoted", 4, 26}, {"Not promoted", 6, 39}, {"Left", 1, 9}}));
+    EXPECT_EQ(read.columns(), 2u);
+    EXPECT_TRUE(read.doubts().empty());
+}
+
+TEST(TotalLines, KeepsAnAnswerNamedNoThatHoldsTheSumButDoubtsIt) {
+    const CountTable read =
+        read_count_table(grid({{"", "Yes", "Maybe", "No"}, {"North", 5, 9, 14}, {"South", 7, 3, 10}}));
+    EXPECT_EQ(read.columns(), 3u);
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0].rfind("The column \"No\" holds the sum of the other columns in every row", 0), 0u);
+}
+
 // A survey answer such as "All of the time" is data: by its label alone it is never a total.
 TEST(TotalLines, KeepsALineNamingEveryoneThatDoesNotHoldTheSum) {
     const CountTable read =

@@ -172,6 +172,45 @@ TEST(ValidityCheck, IsDoubtfulWhenTheFirstRowCountsUpByOneAsCategoryNumbersDo) {
         << check_validity(table).summary();
 }
 
+// Invented: promotions by department, the departments' codes typed as numbers under a header row.
+TEST(ValidityCheck, IsDoubtfulWhenTheFirstColumnCountsUpByOneAsCodesDo) {
+    const CountTable table =
+        assoc::test::table({{"Unit", "Promoted", "Not promoted"}, {101, 30, 45}, {102, 10, 80}, {103, 22, 41}});
+    EXPECT_EQ(check_validity(table).summary().rfind(
+                  "Doubtful: Column 1 holds the whole numbers 101, 102, 103, which count up by one as codes of "
+                  "departments or numbered categories do, and they were read as counts; if they are labels, enter them "
+                  "as text (type an apostrophe first: '101) or add a text header.",
+                  0),
+              0u)
+        << check_validity(table).summary();
+}
+
+TEST(ValidityCheck, IsDoubtfulWhenTheFirstColumnsLabelNamesCodes) {
+    for (const char* label : {"Code", "Dept no.", "Cost centre ID", "Grade", "Age band"}) {
+        const CountTable table =
+            assoc::test::table({{label, "Promoted", "Not promoted"}, {4711, 30, 45}, {4730, 10, 80}, {4802, 22, 41}});
+        EXPECT_EQ(check_validity(table).summary().rfind(
+                      std::string("Doubtful: Column 1 (\"") + label +
+                          "\") holds whole numbers under a label that names codes or numbered categories, and they were "
+                          "read as counts; if they are labels, enter them as text (type an apostrophe first: '4711) so "
+                          "that they are read as labels.",
+                      0),
+                  0u)
+            << check_validity(table).summary();
+    }
+}
+
+// "No" names an answer, not a number: a first column of counts under it is no code. Nor is one under
+// the name of a category ("Grade A"), or under a word that every label of the header shares.
+TEST(ValidityCheck, SaysNothingAboutCodesUnderAnAnswerOrACategory) {
+    for (const char* label : {"No", "Not promoted", "Staff", "Grade A", "Level 1"}) {
+        const CountTable table = assoc::test::table({{label, "Yes"}, {45, 30}, {80, 10}, {41, 22}});
+        EXPECT_EQ(check_validity(table).summary().rfind("Sound", 0), 0u) << label << ": " << check_validity(table).summary();
+    }
+    const CountTable bands = assoc::test::table({{"Pay band", "Band", "Top band"}, {45, 30, 12}, {80, 10, 14}, {41, 22, 9}});
+    EXPECT_EQ(check_validity(bands).summary().rfind("Sound", 0), 0u) << check_validity(bands).summary();
+}
+
 TEST(ValidityCheck, SaysNothingAboutYearsWhenTheyAreTextLabels) {
     const CountTable table = assoc::test::table({{"2023", "2024", "2025"}, {12, 15, 9}, {30, 28, 33}});
     EXPECT_EQ(check_validity(table).summary().find("look like years"), std::string::npos);
