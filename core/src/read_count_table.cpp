@@ -178,6 +178,19 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
         }
     }
 
+    // A second row of labels under the header row: a title above the table's header, or the field
+    // row of a pivot table ("Count - Employee", "Outcome") above its row of labels. Which row names the
+    // columns is the author's to say, so it is refused with words rather than guessed.
+    if (header_row && body_rows > 0 &&
+        is_header_line(body_columns, [&](std::size_t c) -> const Cell& { return range.at(1, first_body_column + c); })) {
+        std::vector<std::string> texts;
+        for (std::size_t c = 0; c < range.columns(); ++c)
+            if (range.at(1, c).is_text()) texts.push_back(quoted_label(range.at(1, c).as_text()));
+        throw Error("rows 1 and 2 both hold only labels (row 2: " + name_list(texts, 3) + "), but a table has one row of "
+                    "labels above its counts; select the table from its row of column labels down, leaving out a title "
+                    "or a pivot table's field row above it");
+    }
+
     CountTable table;
     Matrix body(body_rows, body_columns);
     for (std::size_t r = 0; r < body_rows; ++r) {

@@ -152,6 +152,17 @@ class NumbersThatLabel(HabitCase):
         table = self.put([["Level 1", "Level 2", "Level 3"], [30, 45, 12], [10, 80, 14], [22, 41, 9]])
         self.assertTrue(self.words("H1", f"=ASSOC.CHECK({table})").startswith("Sound:"))
 
+    def test_a_pivot_tables_field_row_above_its_labels_is_refused_saying_what_to_select(self):
+        table = self.put([["Count - Employee", "Outcome", None, None], ["Department", "No", "Yes", "Total Result"],
+                          ["Finance", 4, 6, 10], ["Sales", 12, 15, 27], ["Total Result", 16, 21, 37]])
+        inner = self.put([["Department", "No", "Yes", "Total Result"], ["Finance", 4, 6, 10], ["Sales", 12, 15, 27],
+                          ["Total Result", 16, 21, 37]], row=10)
+        self.refused(f"=ASSOC.PVALUE({table})", f"=ASSOC.CHECK({table})",
+                     "rows 1 and 2 both hold only labels", "select the table from its row of column labels down")
+        # The part below the field row is read with the pivot table's totals set aside (an identity).
+        plain = self.put([[4, 6], [12, 15]], row=20)
+        self.assertEqual(self.number("H1", f"=ASSOC.PVALUE({inner})"), self.number("H2", f"=ASSOC.PVALUE({plain})"))
+
 class WholeColumnsAndRecords(HabitCase):
     # Invented records: channel and outcome of 8 invoices, with headers in row 1.
     CHANNELS = ["Channel", "Web", "Shop", "Web", "Phone", "Shop", "Web", "Phone", "Web"]

@@ -97,6 +97,21 @@ TEST(ReadCountTable, RejectsAFirstRowThatMixesLabelsAndNumbers) {
                  "only labels and a row of counts only numbers");
 }
 
+// A title row above the header, or a pivot table's field row ("Count - Employee", "Outcome") above its
+// row of labels: which row names the columns is not guessed.
+TEST(ReadCountTable, RefusesTwoRowsOfLabelsSayingWhichToSelect) {
+    const char* const message =
+        "rows 1 and 2 both hold only labels (row 2: \"Department\", \"No\" and \"Yes\"), but a table has one row of labels "
+        "above its counts; select the table from its row of column labels down, leaving out a title or a pivot "
+        "table's field row above it";
+    expect_error([] { read_count_table(grid({{"Count - Employee", "Outcome", ""}, {"Department", "No", "Yes"},
+                                             {"Finance", 4, 6}, {"Sales", 12, 15}})); },
+                 message);
+    expect_error([] { read_count_table(grid({{"Promotions by department", "", ""}, {"Department", "No", "Yes"},
+                                             {"Finance", 4, 6}, {"Sales", 12, 15}})); },
+                 message);
+}
+
 TEST(ReadCountTable, RejectsATableWithOneNonEmptyRow) {
     expect_error([] { read_count_table(grid({{1, 2, 3}, {0, 0, nullptr}})); },
                  "the table has only 1 row with counts (1 row with all zeros set aside); a test of association "
