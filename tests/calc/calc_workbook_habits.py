@@ -163,6 +163,7 @@ class NumbersThatLabel(HabitCase):
         plain = self.put([[4, 6], [12, 15]], row=20)
         self.assertEqual(self.number("H1", f"=ASSOC.PVALUE({inner})"), self.number("H2", f"=ASSOC.PVALUE({plain})"))
 
+
 class WholeColumnsAndRecords(HabitCase):
     # Invented records: channel and outcome of 8 invoices, with headers in row 1.
     CHANNELS = ["Channel", "Web", "Shop", "Web", "Phone", "Shop", "Web", "Phone", "Web"]
@@ -171,6 +172,24 @@ class WholeColumnsAndRecords(HabitCase):
     def put_records(self, sheet=None):
         target = sheet or self.sheet
         target.getCellRangeByName("C1:D9").setDataArray(tuple(zip(self.CHANNELS, self.OUTCOMES)))
+
+    def test_rows_hidden_by_a_filter_count_only_through_a_weight_column_of_subtotals(self):
+        self.put_records()
+        for row in range(2, 10):
+            self.formula(f"E{row}", f"=SUBTOTAL(103; C{row})")
+        rows = self.sheet.getRows()
+        try:
+            for index in (2, 5):  # sheet rows 3 and 6: a Shop and a Shop record, hidden as a filter hides them
+                rows.getByIndex(index).IsVisible = False
+            session.document.calculateAll()
+            # Hidden rows count like any other, as in SUM; weighted by SUBTOTAL(103; …) they count 0.
+            everyone = self.array("H1:I3", "=ASSOC.COUNTS(C2:C9; D2:D9)")
+            shown = self.array("K1:L3", "=ASSOC.COUNTS(C2:C9; D2:D9; E2:E9)")
+            self.assertEqual(everyone, [[1, 1], [1, 1], [2, 2]])  # Phone, Shop, Web × No, Yes
+            self.assertEqual(shown, [[1, 1], [0, 0], [2, 2]])
+        finally:
+            for index in (2, 5):
+                rows.getByIndex(index).IsVisible = True
 
     def test_a_whole_column_of_records_is_read_without_its_header_and_its_blanks(self):
         self.put_records()
