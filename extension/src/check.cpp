@@ -103,7 +103,8 @@ std::vector<CellGrid> split_columns(const CellGrid& range, std::size_t count, st
     }
     // Fewer columns are blank ones: the range lost its trailing blank columns when it was read.
     const std::size_t given = std::max(range.columns(), std::min(range.given_columns(), count + optional));
-    require(range.columns() <= count + optional,
+    // A range given with too few columns (a single column for two ranges) is no such blank: it is said.
+    require(range.columns() <= count + optional && range.given_columns() >= count,
             std::string("to try ") + function + ", give ASSOC.CHECK its " + std::to_string(count) +
                 " ranges side by side as the columns of one range" +
                 (optional > 0 ? " (and " + std::string(optional == 1 ? "the optional one" : "the optional ones") +

@@ -311,6 +311,12 @@ class CountsFromRecords(CalcTestCase, ErrorCheckMixin):
         self.assertErrorExplained("=ASSOC.LEVELS(J1:J2)", '=ASSOC.CHECK(J1:J2; "levels")',
                                   "ASSOC.LEVELS cannot be used here: the labels are all blank")
 
+    def test_check_asks_for_both_columns_when_given_one(self):
+        self.put_records()
+        self.assertIn("to try ASSOC.COUNTS, give ASSOC.CHECK its 2 ranges side by side as the columns of one range "
+                      "(and the optional ones after them); this range has 1 column",
+                      self.words("E1", '=ASSOC.CHECK(A:A; "counts")'))
+
 
 class Strata(CalcTestCase, ErrorCheckMixin):
     ADMISSIONS = FUNCTIONS["admissions"]
