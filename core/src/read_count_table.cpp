@@ -168,6 +168,37 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
         throw Error("the table has " + format_count(static_cast<double>(body_rows) * static_cast<double>(body_columns)) +
                     " count cells; Assoc reads at most " + format_count(static_cast<double>(options.max_body_cells)));
 
+    // Blank rows above a row of labels (or blank columns left of a column of labels): a range drawn
+    // from above the table, a whole-column reference to a table that starts lower down. Only the
+    // blanks after a table are left out (the adapter trims them); read from above, the header would be
+    // taken for counts, so this is said instead.
+    const auto blank_row = [&](std::size_t r) {
+        for (std::size_t c = 0; c < range.columns(); ++c)
+            if (!range.at(r, c).is_blank()) return false;
+        return true;
+    };
+    const auto blank_column = [&](std::size_t c) {
+        for (std::size_t r = 0; r < range.rows(); ++r)
+            if (!range.at(r, c).is_blank()) return false;
+        return true;
+    };
+    const auto refuse_blanks_before_labels = [](const char* word, std::size_t blanks) {
+        std::vector<std::size_t> numbers;
+        for (std::size_t i = 1; i <= blanks; ++i) numbers.push_back(i);
+        const std::string labels = std::string(word) + " " + std::to_string(blanks + 1);
+        throw Error(numbered_lines(word, numbers) + " of the range " + (blanks == 1 ? "is" : "are") + " blank and " +
+                    labels + " holds only labels; a table is read from its first " + word + ", so select it from its " +
+                    word + " of labels, " + labels + " (blank " + word + "s after a table are left out, not those before "
+                    "it)");
+    };
+    std::size_t top = 0, left = 0;
+    while (top + 1 < range.rows() && blank_row(top)) ++top;
+    while (left + 1 < range.columns() && blank_column(left)) ++left;
+    if (top > 0 && is_header_line(range.columns(), [&](std::size_t c) -> const Cell& { return range.at(top, c); }))
+        refuse_blanks_before_labels("row", top);
+    if (left > 0 && is_header_line(range.rows(), [&](std::size_t r) -> const Cell& { return range.at(r, left); }))
+        refuse_blanks_before_labels("column", left);
+
     // Without a header row, text in row 1 next to numbers is a mistake to report as such:
     // a header row must hold only labels.
     if (!header_row) {
@@ -178,17 +209,21 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
         }
     }
 
-    // A second row of labels under the header row: a title above the table's header, or the field
-    // row of a pivot table ("Count - Employee", "Outcome") above its row of labels. Which row names the
-    // columns is the author's to say, so it is refused with words rather than guessed.
-    if (header_row && body_rows > 0 &&
-        is_header_line(body_columns, [&](std::size_t c) -> const Cell& { return range.at(1, first_body_column + c); })) {
+    // A second row of labels under the header row (blank rows between them or not): a title above the
+    // table's header, or the field row of a pivot table ("Count - Employee", "Outcome") above its row of
+    // labels. Which row names the columns is the author's to say, so it is refused with words rather
+    // than guessed.
+    std::size_t next = 1;
+    while (header_row && next < range.rows() && blank_row(next)) ++next;
+    if (header_row && next < range.rows() &&
+        is_header_line(body_columns, [&](std::size_t c) -> const Cell& { return range.at(next, first_body_column + c); })) {
         std::vector<std::string> texts;
         for (std::size_t c = 0; c < range.columns(); ++c)
-            if (range.at(1, c).is_text()) texts.push_back(quoted_label(range.at(1, c).as_text()));
-        throw Error("rows 1 and 2 both hold only labels (row 2: " + name_list(texts, 3) + "), but a table has one row of "
-                    "labels above its counts; select the table from its row of column labels down, leaving out a title "
-                    "or a pivot table's field row above it");
+            if (range.at(next, c).is_text()) texts.push_back(quoted_label(range.at(next, c).as_text()));
+        const std::string row = "row " + std::to_string(next + 1);
+        throw Error("rows 1 and " + std::to_string(next + 1) + " both hold only labels (" + row + ": " +
+                    name_list(texts, 3) + "), but a table has one row of labels above its counts; select the table from "
+                    "its row of column labels down, leaving out a title or a pivot table's field row above it");
     }
 
     CountTable table;

@@ -112,6 +112,37 @@ TEST(ReadCountTable, RefusesTwoRowsOfLabelsSayingWhichToSelect) {
                  message);
 }
 
+// Blank rows above the header, or a blank column left of the row labels: a range drawn from above or
+// from the left of the table. Read from there, the header would be taken for counts.
+TEST(ReadCountTable, RefusesBlankLinesBeforeTheLabelsSayingWhereToStart) {
+    expect_error([] { read_count_table(grid({{"", "", ""}, {"", "", ""}, {"Department", "No", "Yes"},
+                                             {"Finance", 4, 6}, {"Sales", 12, 15}})); },
+                 "rows 1–2 of the range are blank and row 3 holds only labels; a table is read from its first row, so "
+                 "select it from its row of labels, row 3 (blank rows after a table are left out, not those before it)");
+    expect_error([] { read_count_table(grid({{"", "Department", "No", "Yes"}, {"", "Finance", 4, 6},
+                                             {"", "Sales", 12, 15}})); },
+                 "column 1 of the range is blank and column 2 holds only labels; a table is read from its first column, "
+                 "so select it from its column of labels, column 2 (blank columns after a table are left out, not "
+                 "those before it)");
+}
+
+// A blank first row before counts without labels is a row of zeros, set aside as before.
+TEST(ReadCountTable, SetsAsideABlankFirstRowBeforeCountsWithoutLabels) {
+    const CountTable read = read_count_table(grid({{"", ""}, {4, 6}, {12, 15}}));
+    EXPECT_EQ(read.rows(), 2u);
+    ASSERT_EQ(read.set_aside_rows().size(), 1u);
+    EXPECT_EQ(read.set_aside_rows()[0].range_number, 1u);
+}
+
+// A title, a blank row, then the header: the same two rows of labels.
+TEST(ReadCountTable, RefusesTwoRowsOfLabelsWithBlankRowsBetweenThem) {
+    expect_error([] { read_count_table(grid({{"Promotions by department", "", ""}, {"", "", ""},
+                                             {"Department", "No", "Yes"}, {"Finance", 4, 6}, {"Sales", 12, 15}})); },
+                 "rows 1 and 3 both hold only labels (row 3: \"Department\", \"No\" and \"Yes\"), but a table has one "
+                 "row of labels above its counts; select the table from its row of column labels down, leaving out a "
+                 "title or a pivot table's field row above it");
+}
+
 TEST(ReadCountTable, RejectsATableWithOneNonEmptyRow) {
     expect_error([] { read_count_table(grid({{1, 2, 3}, {0, 0, nullptr}})); },
                  "the table has only 1 row with counts (1 row with all zeros set aside); a test of association "
