@@ -117,7 +117,7 @@ RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabel
 
     RecordCounts result;
     result.records = span.end - span.first;
-    result.header_left_out = span.first == 1;
+    result.header_left_out = span.header;
     result.weighted = weighted;
     result.along_row = row_labels.rows == 1 && row_labels.columns > 1;
     require(result.records > 0, "every record has a blank label, so there is nothing to count");

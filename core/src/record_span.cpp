@@ -15,28 +15,33 @@ bool is_text_code(const CodedLabels& labels, std::uint32_t code) {
     return code != CodedLabels::blank && code < labels.spellings.size() && labels.spellings[code].is_text();
 }
 
-// Whether the first cell of `labels` is a text found nowhere else in positions 1 to end − 1.
-bool unique_text_at_start(const CodedLabels& labels, std::size_t end) {
-    if (labels.codes.empty() || !is_text_code(labels, labels.codes[0])) return false;
-    const std::string_view first = trimmed_label(labels.spellings[labels.codes[0]].as_text());
+bool blank_at(const CodedLabels& labels, std::size_t at) {
+    return at >= labels.codes.size() || labels.codes[at] == CodedLabels::blank;
+}
+
+// Whether the cell of `labels` at position `at` is a text found nowhere else in positions at + 1 to
+// end − 1 (the positions above it are blank or headers).
+bool unique_text_at(const CodedLabels& labels, std::size_t at, std::size_t end) {
+    if (at >= labels.codes.size() || !is_text_code(labels, labels.codes[at])) return false;
+    const std::string_view first = trimmed_label(labels.spellings[labels.codes[at]].as_text());
     // Two spellings may hold the same text (copies of one text that the host did not share).
     std::vector<bool> same(labels.spellings.size(), false);
     for (std::size_t s = 0; s < labels.spellings.size(); ++s)
         same[s] = labels.spellings[s].is_text() && trimmed_label(labels.spellings[s].as_text()) == first;
-    for (std::size_t i = 1; i < end && i < labels.codes.size(); ++i) {
+    for (std::size_t i = at + 1; i < end && i < labels.codes.size(); ++i) {
         const std::uint32_t code = labels.codes[i];
         if (code != CodedLabels::blank && code < same.size() && same[code]) return false;
     }
     return true;
 }
 
-// Whether some label comes twice among positions 1 to end − 1.
-// Texts are compared as texts, as unique_text_at_start does: the host may hand equal texts over as
+// Whether some label comes twice among positions at + 1 to end − 1.
+// Texts are compared as texts, as unique_text_at does: the host may hand equal texts over as
 // different spellings (the records fuzz target found the remark below given by one route and not the other).
-bool repeats_below(const CodedLabels& labels, std::size_t end) {
+bool repeats_below(const CodedLabels& labels, std::size_t at, std::size_t end) {
     std::set<std::string_view> texts;
     std::set<double> numbers;
-    for (std::size_t i = 1; i < end && i < labels.codes.size(); ++i) {
+    for (std::size_t i = at + 1; i < end && i < labels.codes.size(); ++i) {
         const std::uint32_t code = labels.codes[i];
         if (code == CodedLabels::blank || code >= labels.spellings.size()) continue;
         const Cell& spelling = labels.spellings[code];
@@ -47,24 +52,34 @@ bool repeats_below(const CodedLabels& labels, std::size_t end) {
     return false;
 }
 
-// Whether a range drawn with its header looks so: its first cell is a text found nowhere else in
-// it, above at least 3 records that are all numbers or among which some label repeats (records
-// under a column's name do; a short list of distinct names does not).
-bool header_like(const CodedLabels& labels, std::size_t end) {
-    if (!unique_text_at_start(labels, end)) return false;
+// Whether a range drawn with its header looks so at position `at`: the cell there is a text found
+// nowhere else below it, above at least 3 records that are all numbers or among which some label
+// repeats (records under a column's name do; a short list of distinct names does not).
+bool header_like(const CodedLabels& labels, std::size_t at, std::size_t end) {
+    if (!unique_text_at(labels, at, end)) return false;
     std::size_t records = 0, numbers = 0;
-    for (std::size_t i = 1; i < end && i < labels.codes.size(); ++i) {
+    for (std::size_t i = at + 1; i < end && i < labels.codes.size(); ++i) {
         const std::uint32_t code = labels.codes[i];
         if (code == CodedLabels::blank) continue;
         ++records;
         if (!is_text_code(labels, code)) ++numbers;
     }
-    return records >= 3 && (numbers == records || repeats_below(labels, end));
+    return records >= 3 && (numbers == records || repeats_below(labels, at, end));
 }
 
-std::string first_cell_text(const CodedLabels& labels) {
-    if (labels.codes.empty() || !is_text_code(labels, labels.codes[0])) return "";
-    return quoted_label(labels.spellings[labels.codes[0]].as_text());
+std::string cell_text_at(const CodedLabels& labels, std::size_t at) {
+    if (at >= labels.codes.size() || !is_text_code(labels, labels.codes[at])) return "";
+    return quoted_label(labels.spellings[labels.codes[at]].as_text());
+}
+
+// The texts of the ranges at position `at`: "" when none, the text when one, " (…)" of them all otherwise.
+std::vector<std::string> texts_at(const std::vector<const CodedLabels*>& labels, std::size_t at) {
+    std::vector<std::string> texts;
+    for (const CodedLabels* range : labels) {
+        const std::string text = cell_text_at(*range, at);
+        if (!text.empty()) texts.push_back(text);
+    }
+    return texts;
 }
 
 }  // namespace
@@ -86,56 +101,84 @@ RecordSpan records_and_header(const std::vector<const CodedLabels*>& labels, con
     span.end = std::max(span.end, weights_end);
     if (span.end < 2 || labels.empty()) return span;
 
+    // Positions blank in every range before the first label (a range drawn from above the records, a
+    // whole column whose records start lower down) are no records either, as those after the last.
+    const auto all_blank_at = [&](std::size_t at) {
+        return std::all_of(labels.begin(), labels.end(), [&](const CodedLabels* range) { return blank_at(*range, at); });
+    };
+    const bool first_weight_given = first_weight != nullptr && !first_weight->is_blank();
+    std::size_t at = 0;
+    while (at + 1 < span.end && all_blank_at(at) && !(at == 0 && first_weight_given)) ++at;
+    span.first = at;
+
     const CodedLabels& shape = *labels.front();
     const bool along_row = shape.rows == 1 && shape.columns > 1;
-    const std::string line = along_row ? "Column 1" : "Row 1";
-    std::vector<std::string> firsts;
-    for (const CodedLabels* range : labels) {
-        const std::string text = first_cell_text(*range);
-        if (!text.empty()) firsts.push_back(text);
-    }
+    const std::string word = along_row ? "column" : "row";
+    const std::string line = (along_row ? "Column " : "Row ") + std::to_string(at + 1);
+    const std::vector<std::string> firsts = texts_at(labels, at);
     const std::string what = firsts.size() > 1 ? " (" + name_list(firsts) + ")" : "";
 
+    // A title above the header (a text in some ranges, blank in the others, or one followed by blank
+    // rows) and below it a header (a text found nowhere else in every range, above records whose
+    // labels repeat): both look like headers, and which one is the author's to say, so it is refused.
+    std::size_t next = at + 1;
+    while (next < span.end && all_blank_at(next)) ++next;
+    const bool second_header =
+        next < span.end && !firsts.empty() &&
+        std::all_of(labels.begin(), labels.end(), [&](const CodedLabels* range) { return header_like(*range, next, span.end); }) &&
+        std::all_of(labels.begin(), labels.end(), [&](const CodedLabels* range) {
+            return blank_at(*range, at) || unique_text_at(*range, at, span.end);
+        });
+    const bool title_like = firsts.size() < labels.size() || next > at + 1;
+    if (second_header && title_like)
+        throw Error(word + " " + std::to_string(at + 1) + " (" + name_list(firsts) + ") and " + word + " " +
+                    std::to_string(next + 1) + " (" + name_list(texts_at(labels, next)) + ") both look like headers: "
+                    "texts found nowhere else in their " + (labels.size() > 1 ? "ranges" : "range") + ", above the "
+                    "records; start every range at its " + word + " " + std::to_string(next + 2) + ", below the "
+                    "header, leaving out the title above it");
+
     for (const CodedLabels* range : labels) {
-        if (!range->whole_line || !unique_text_at_start(*range, span.end)) continue;
-        span.first = 1;
-        span.remarks.push_back(line + what + " was read as a header and left out, since " + first_cell_text(*range) +
+        if (!range->whole_line || !unique_text_at(*range, at, span.end)) continue;
+        span.first = at + 1;
+        span.header = true;
+        span.remarks.push_back(line + what + " was read as a header and left out, since " + cell_text_at(*range, at) +
                                " is a text found nowhere else in its whole " + (along_row ? "row" : "column") +
                                "; if it is a record, select the records as a range (for example " +
                                (along_row ? "A1:Z1" : "A1:A500") + ") instead of the whole " +
                                (along_row ? "row." : "column."));
         return span;
     }
-    if (first_weight != nullptr && first_weight->is_text() &&
+    if (at == 0 && first_weight != nullptr && first_weight->is_text() &&
         std::all_of(labels.begin(), labels.end(), [](const CodedLabels* range) {
             return range->codes.empty() || range->codes[0] == CodedLabels::blank || is_text_code(*range, range->codes[0]);
         })) {
         span.first = 1;
+        span.header = true;
         span.remarks.push_back(line + what + " was read as a header and left out, since its weight is the text " +
                                quoted_label(first_weight->as_text()) + ".");
         return span;
     }
-    // Ranges drawn with their header (A1:A500): row 1 is a header when every range looks drawn with
-    // its header (header_like). ASSOC.LEVELS decides so for its one range, so ranges that disagree are
-    // refused: either choice would misalign the counts with the levels of one range.
-    const std::string word = along_row ? "column" : "row";
+    // Ranges drawn with their header (A1:A500): the first row is a header when every range looks drawn
+    // with its header (header_like). ASSOC.LEVELS decides so for its one range, so ranges that disagree
+    // are refused: either choice would misalign the counts with the levels of one range.
     std::size_t headers = 0;
     for (const CodedLabels* range : labels)
-        if (header_like(*range, span.end)) ++headers;
+        if (header_like(*range, at, span.end)) ++headers;
     if (headers == labels.size()) {
-        span.first = 1;
+        span.first = at + 1;
+        span.header = true;
         span.remarks.push_back(line + what + " was read as a header and left out, since " +
                                (labels.size() > 1 ? std::string("each is a text found nowhere else in its range")
-                                                  : first_cell_text(shape) + " is a text found nowhere else in its range") +
+                                                  : cell_text_at(shape, at) + " is a text found nowhere else in its range") +
                                " above records whose labels repeat; if it is a record, move it to another " + word +
                                " of the range.");
         return span;
     }
     if (headers > 0)
-        throw Error(word + " 1" + what + " may be a header or a record: in some ranges it looks like a header (a "
-                    "text found nowhere else, above records whose labels repeat), in others it does not; if " + word +
-                    " 1 is a header, start every range one " + word + " later; if it is a record, move it to "
-                    "another " + word + " of the ranges");
+        throw Error(word + " " + std::to_string(at + 1) + what + " may be a header or a record: in some ranges it looks "
+                    "like a header (a text found nowhere else, above records whose labels repeat), in others it does "
+                    "not; if " + word + " " + std::to_string(at + 1) + " is a header, start every range one " + word +
+                    " later; if it is a record, move it to another " + word + " of the ranges");
     return span;
 }
 

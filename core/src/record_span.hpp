@@ -12,7 +12,8 @@
 namespace assoc::detail {
 
 struct RecordSpan {
-    std::size_t first = 0;  // 0, or 1 when the first cell of the ranges is a header
+    std::size_t first = 0;  // the first record: after the blanks and the header that come before it
+    bool header = false;    // whether a header was left out (the cell before `first`)
     std::size_t end = 0;    // one past the last position that holds anything in any range
     std::vector<std::string> remarks;
 };
@@ -21,6 +22,9 @@ struct RecordSpan {
 // cell of the weights (nullptr without weights) and `weights_end` one past their last non-blank cell.
 // - Positions after the last one that holds a label or a weight in any range are no records: they
 //   are neither counted nor mentioned.
+// - Positions blank in every range before the first label are no records (nor mentioned).
+// - A title above the header (a text in some ranges only, or one followed by blank positions) above a
+//   header-like position is refused, saying which position to start from.
 // - The first position is a header, left out and named in a remark, when the first cell of a whole
 //   sheet column (or row) of labels is a text that appears nowhere else in that range (its spaces at
 //   the ends aside), or when the first weight is a text and the first labels are texts or blank.

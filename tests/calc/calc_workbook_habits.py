@@ -173,6 +173,16 @@ class WholeColumnsAndRecords(HabitCase):
         target = sheet or self.sheet
         target.getCellRangeByName("C1:D9").setDataArray(tuple(zip(self.CHANNELS, self.OUTCOMES)))
 
+    def test_a_title_above_records_in_whole_columns_is_refused_saying_where_to_start(self):
+        self.put([["Invoices checked in March", None], [None, None], ["Channel", "Outcome"]] +
+                 [[c, o] for c, o in zip(self.CHANNELS[1:], self.OUTCOMES[1:])], column=12)
+        self.refused("=ASSOC.COUNTS(M:M; N:N)", '=ASSOC.CHECK(M:N; "counts")',
+                     'row 1 ("Invoices checked in March") and row 3 ("Channel" and "Outcome") both look like headers',
+                     "start every range at its row 4")
+        # From the blank row down, the header is left out as for any range drawn with it (an identity).
+        self.assertEqual(self.array("H1:I3", "=ASSOC.COUNTS(M2:M11; N2:N11)"),
+                         self.array("K1:L3", "=ASSOC.COUNTS(M4:M11; N4:N11)"))
+
     def test_rows_hidden_by_a_filter_count_only_through_a_weight_column_of_subtotals(self):
         self.put_records()
         for row in range(2, 10):

@@ -96,6 +96,52 @@ TEST(RecordRanges, LeaveOutTheHeaderOfRangesDrawnWithItAndSaySo) {
         << counts.feedback();
 }
 
+// Records under a title and a blank row, read by whole columns: the title is no header of the
+// records, and the header below it would have been counted as a record. Invented records.
+TEST(RecordRanges, RefuseATitleAboveTheHeaderSayingWhereToStart) {
+    const CellGrid dept = whole_column({"Promotion round 2025", nullptr, "Dept", "Sales", "Legal", "Sales", "Legal"});
+    const CellGrid outcome = whole_column({nullptr, nullptr, "Outcome", "Yes", "No", "No", "Yes"});
+    const char* const message =
+        "row 1 (\"Promotion round 2025\") and row 3 (\"Dept\" and \"Outcome\") both look like headers: texts found "
+        "nowhere else in their ranges, above the records; start every range at its row 4, below the header, leaving "
+        "out the title above it";
+    expect_error([&] { counts_from_records(dept, outcome); }, message);
+    expect_error([&] { distinct_levels(dept); },
+                 "row 1 (\"Promotion round 2025\") and row 3 (\"Dept\") both look like headers: texts found nowhere "
+                 "else in their range, above the records; start every range at its row 4, below the header, leaving out "
+                 "the title above it");
+}
+
+// A range drawn from a blank row above the header: the blanks are no records, the header is left out.
+TEST(RecordRanges, LeaveOutBlankRowsAboveTheHeaderAndTheHeader) {
+    const CellGrid dept = grid({{nullptr}, {"Dept"}, {"Sales"}, {"Legal"}, {"Sales"}, {"Legal"}, {"Sales"}});
+    const CellGrid outcome = grid({{nullptr}, {"Outcome"}, {"Yes"}, {"No"}, {"No"}, {"Yes"}, {"Yes"}});
+    EXPECT_EQ(distinct_levels(dept), texts({"Legal", "Sales"}));
+    const RecordCounts counts = counts_from_records(dept, outcome);
+    EXPECT_EQ(counts.records, 5u);
+    EXPECT_EQ(counts.skipped_blank, 0u);
+    EXPECT_TRUE(counts.header_left_out);
+    EXPECT_EQ(counts.counts.values(), (std::vector<double>{1, 1, 1, 2}));
+    EXPECT_TRUE(contains(counts.feedback(), "Row 2 (\"Dept\" and \"Outcome\") was read as a header and left out"))
+        << counts.feedback();
+}
+
+// A whole column whose header is in row 2, under a blank row 1.
+TEST(RecordRanges, LeaveOutTheHeaderOfAWholeColumnThatStartsLower) {
+    const RecordCounts counts = counts_from_records(whole_column({nullptr, "Channel", "Web", "Shop", "Web"}),
+                                                    whole_column({nullptr, "Outcome", "Yes", "No", "No"}));
+    EXPECT_EQ(counts.records, 3u);
+    EXPECT_EQ(counts.row_levels, texts({"Shop", "Web"}));
+}
+
+// A header in every range with the first record right below it is the plain case, whatever that record.
+TEST(RecordRanges, KeepAFirstRecordRightBelowTheHeaderOfWholeColumns) {
+    const RecordCounts counts = counts_from_records(whole_column({"Dept", "Audit", "Sales", "Legal", "Sales", "Legal"}),
+                                                    whole_column({"Outcome", "Maybe", "Yes", "No", "No", "Yes"}));
+    EXPECT_EQ(counts.records, 5u);
+    EXPECT_EQ(counts.row_levels, texts({"Audit", "Legal", "Sales"}));
+}
+
 TEST(RecordRanges, LeaveOutATextHeaderAboveNumberCodes) {
     const RecordCounts counts =
         counts_from_records(grid({{"Grade"}, {1}, {2}, {1}, {3}}), grid({{"Outcome"}, {"Yes"}, {"No"}, {"No"}, {"Yes"}}));
