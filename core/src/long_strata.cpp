@@ -203,6 +203,25 @@ LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
                 table(pending[k].rows[i].first, c) = counts[k][i * categories_kept + c];
         result.strata[k].counts = std::move(table);
     }
+    // A row label missing from some strata: a group with nobody there, or one labelled otherwise in
+    // another stratum ("Over 10" and "10+"), which would be tested as two groups. Said, not refused.
+    if (result.strata.size() >= 2) {
+        std::vector<std::vector<std::string>> missing_from(result.row_labels.size());
+        for (std::size_t k = 0; k < result.strata.size(); ++k) {
+            std::vector<bool> present(result.row_labels.size(), false);
+            for (const auto& [label, range_row_index] : pending[k].rows) present[label] = true;
+            for (std::size_t label = 0; label < present.size(); ++label)
+                if (!present[label]) missing_from[label].push_back(quoted(result.strata[k].label));
+        }
+        std::vector<std::string> missing;
+        for (std::size_t label = 0; label < missing_from.size(); ++label)
+            if (!missing_from[label].empty())
+                missing.push_back(quoted(result.row_labels[label]) + " (not in " + name_list(missing_from[label], 3) + ")");
+        if (!missing.empty())
+            result.remarks.push_back("Not every stratum has the same row labels: " + name_list(missing, 4) +
+                                     ". A stratum without a row label counts 0 there; if two labels name the same "
+                                     "group, give them one label.");
+    }
     set_aside_whole_group_stratum(result);
     return result;
 }

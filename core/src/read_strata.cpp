@@ -280,20 +280,42 @@ Strata read_strata(const CellGrid& given) {
         }
         // The same two groups in the same order in every stratum: a stratum given in the other order
         // is turned around, so that its odds ratio compares the same groups.
-        std::vector<std::string> turned;
+        // A stratum whose groups carry other labels is read in its order and said; one that shares a label
+        // with the first stratum's groups in the other place is refused (which row is which group?).
+        std::vector<std::string> turned, relabelled;
         for (Block& block : blocks) {
             const std::size_t first = block.rows[0], second = block.rows[1];
             const Block& reference = blocks.front();
             const std::string top = folded_label(labels[reference.rows[0]]), bottom = folded_label(labels[reference.rows[1]]);
+            const std::string here_top = folded_label(labels[first]), here_bottom = folded_label(labels[second]);
             if (top.empty() || bottom.empty() || top == bottom || extra_label_columns == 0) {
                 // Groups are matched only when a stratum column names the strata and the groups are labelled.
-            } else if (folded_label(labels[first]) == bottom && folded_label(labels[second]) == top) {
+            } else if (here_top == top && here_bottom == bottom) {
+                // The same groups in the same order.
+            } else if (here_top == bottom && here_bottom == top) {
                 std::swap(block.rows[0], block.rows[1]);
                 turned.push_back(quoted_label(block.name));
+            } else if (here_top == bottom || here_bottom == top) {
+                throw Error("the rows of " + quoted_label(block.name) + " (" + quoted_label(labels[first]) + " and " +
+                            quoted_label(labels[second]) + ") match the groups of " + quoted_label(reference.name) +
+                            " (" + quoted_label(labels[reference.rows[0]]) + " and " +
+                            quoted_label(labels[reference.rows[1]]) + ") neither in their order nor the other way "
+                            "round, so which row is which group cannot be told; give every stratum the same 2 group "
+                            "labels");
+            } else {
+                relabelled.push_back(quoted_label(block.name) + " (" + quoted_label(labels[first]) + " and " +
+                                     quoted_label(labels[second]) + ")");
             }
             const std::size_t a = block.rows[0], b = block.rows[1];
             result.tables.push_back({counts(a, 0), counts(a, 1), counts(b, 0), counts(b, 1), block.name});
         }
+        if (!relabelled.empty())
+            result.remarks.push_back("The rows of " + name_list(relabelled, 4) + " carry other labels than those of " +
+                                     quoted_label(blocks.front().name) + " (" +
+                                     quoted_label(labels[blocks.front().rows[0]]) + " and " +
+                                     quoted_label(labels[blocks.front().rows[1]]) + "); they were read in their order, "
+                                     "the first as " + quoted_label(labels[blocks.front().rows[0]]) + ". If they are "
+                                     "the same groups, give them the same labels.");
         if (!turned.empty())
             result.remarks.push_back("The rows of " + name_list(turned, 4) + " come in the other order (" +
                                      quoted_label(labels[blocks.front().rows[1]]) + " first); they were matched to " +

@@ -68,6 +68,15 @@ TEST(LongStrata, GivesAStratumWithoutSomeRowLabelARowOfZeros) {
     EXPECT_EQ(read.strata[1].counts(0, 0), 0.0);
     EXPECT_EQ(read.strata[1].counts(2, 1), 8.0);
     EXPECT_EQ(read.column_labels, (std::vector<std::string>{"", ""}));
+    ASSERT_EQ(read.remarks.size(), 1u);
+    EXPECT_EQ(read.remarks[0], "Not every stratum has the same row labels: \"x\" (not in \"B\") and \"z\" (not in "
+                               "\"A\"). A stratum without a row label counts 0 there; if two labels name the same group, "
+                               "give them one label.");
+}
+
+TEST(LongStrata, SaysNothingOfRowLabelsWhenEveryStratumHasThemAll) {
+    const LongStrata read = read_long_strata(grid({{"A", "x", 1, 2}, {"A", "y", 3, 4}, {"B", "y", 5, 6}, {"B", "x", 7, 8}}));
+    EXPECT_TRUE(read.remarks.empty());
 }
 
 TEST(LongStrata, ReadsNumbersAsLabelsAndBlankCountsAsZero) {

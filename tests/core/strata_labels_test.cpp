@@ -113,6 +113,36 @@ TEST(StrataLabels, MatchAStratumWhoseGroupsComeInTheOtherOrderAndSaySo) {
                                  "\"Women\" and \"Men\" by their labels.");
 }
 
+// Groups labelled otherwise in one stratum ("Female" and "Male") are read in their order, and said.
+TEST(StrataLabels, ReadAStratumWhoseGroupsCarryOtherLabelsInItsOrderAndSaySo) {
+    const Strata strata = read_strata(grid({{"Office", "Group", "Promoted", "Not"},
+                                            {"North", "Women", 5, 10},
+                                            {nullptr, "Men", 7, 9},
+                                            {"South", "Female", 4, 11},
+                                            {nullptr, "Male", 6, 8}}));
+    EXPECT_EQ(strata.tables[1].a, 4);
+    EXPECT_EQ(strata.tables[1].c, 6);
+    ASSERT_EQ(strata.remarks.size(), 1u);
+    EXPECT_EQ(strata.remarks[0], "The rows of \"South\" (\"Female\" and \"Male\") carry other labels than those of "
+                                 "\"North\" (\"Women\" and \"Men\"); they were read in their order, the first as "
+                                 "\"Women\". If they are the same groups, give them the same labels.");
+}
+
+// "Men" first and a group called otherwise: which row is which group cannot be told.
+TEST(StrataLabels, RefuseAStratumThatSharesAGroupLabelInTheOtherPlace) {
+    expect_error(
+        [] {
+            read_strata(grid({{"Office", "Group", "Promoted", "Not"},
+                              {"North", "Women", 5, 10},
+                              {nullptr, "Men", 7, 9},
+                              {"South", "Men", 6, 8},
+                              {nullptr, "Female", 4, 11}}));
+        },
+        "the rows of \"South\" (\"Men\" and \"Female\") match the groups of \"North\" (\"Women\" and \"Men\") "
+        "neither in their order nor the other way round, so which row is which group cannot be told; give every "
+        "stratum the same 2 group labels");
+}
+
 TEST(StrataLabels, FindStrataNamedOnEachOfTheirRows) {
     const Strata strata = read_strata(grid({{"North", 5, 10}, {"North", 7, 9}, {"South", 4, 11}, {"South", 6, 8}}));
     ASSERT_EQ(strata.tables.size(), 2u);
