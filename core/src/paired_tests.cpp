@@ -59,7 +59,19 @@ std::vector<std::size_t> columns_matching_rows(const CountTable& read, std::vect
     const std::size_t k = read.category_rows().size();
     std::vector<std::size_t> same_place(k);
     for (std::size_t i = 0; i < k; ++i) same_place[i] = i;
-    if (!read.has_row_labels() || !read.has_column_labels()) return same_place;
+    if (!read.has_row_labels() || !read.has_column_labels()) {
+        // Labels on one side only: the other side is read in the same order, and that is said.
+        const bool rows_labelled = read.has_row_labels();
+        if (rows_labelled || read.has_column_labels()) {
+            std::vector<std::string> labels;
+            for (std::size_t i : rows_labelled ? read.category_rows() : read.category_columns())
+                labels.push_back(quoted_label((rows_labelled ? read.body_row_labels() : read.body_column_labels())[i]));
+            remarks.push_back(std::string("The ") + (rows_labelled ? "columns" : "rows") + " have no labels, so they were "
+                              "read as the " + (rows_labelled ? "rows'" : "columns'") + " categories in the same order (" +
+                              name_list(labels, 6) + "); if they come in another order, label them.");
+        }
+        return same_place;
+    }
 
     std::vector<std::string> rows, columns;
     for (std::size_t r : read.category_rows()) rows.push_back(read.body_row_labels()[r]);

@@ -29,6 +29,19 @@ TEST(PairedLabels, MatchLabelsWithoutRegardToCaseOrSpaces) {
     EXPECT_EQ(result.statistic, paired_test(grid({{30, 5}, {10, 40}})).statistic);
 }
 
+// Labels on one side only: the other side is read in the same order, and that is said.
+TEST(PairedLabels, SayThatAnUnlabelledSideIsReadInTheOrderOfTheOther) {
+    const PairedResult rows_only = paired_test(grid({{"Yes", 30, 5}, {"No", 10, 40}}));
+    EXPECT_EQ(rows_only.statistic, paired_test(grid({{30, 5}, {10, 40}})).statistic);
+    ASSERT_EQ(rows_only.remarks.size(), 1u);
+    EXPECT_EQ(rows_only.remarks[0], "The columns have no labels, so they were read as the rows' categories in the same "
+                                    "order (\"Yes\" and \"No\"); if they come in another order, label them.");
+    const PairedResult columns_only = paired_test(grid({{"Yes", "No"}, {30, 5}, {10, 40}}));
+    ASSERT_EQ(columns_only.remarks.size(), 1u);
+    EXPECT_EQ(columns_only.remarks[0].rfind("The rows have no labels, so they were read as the columns' categories", 0), 0u);
+    EXPECT_TRUE(paired_test(grid({{30, 5}, {10, 40}})).remarks.empty());
+}
+
 TEST(PairedLabels, RefuseLabelsThatDoNotMatch) {
     expect_error([] { paired_test(grid({{"", "Agree", "Disagree"}, {"Yes", 5, 30}, {"No", 40, 10}})); },
                  "a paired table needs the same categories as rows and as columns, matched by their labels; the rows "
