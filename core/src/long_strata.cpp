@@ -122,17 +122,23 @@ LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
     // seen again in the same stratum is a repeat.
     std::vector<std::size_t> row_last_stratum, row_last_range_row;
     std::size_t last_stratum = static_cast<std::size_t>(-1);
+    constexpr std::size_t no_row = static_cast<std::size_t>(-1);
+    std::size_t last_stratum_row = no_row;  // the last row that named its stratum
 
     for (std::size_t r = header ? 1 : 0; r < range.rows(); ++r) {
         if (is_blank_row(range, r)) {
             ++result.empty_rows;
             continue;
         }
-        const Cell& stratum = range.at(r, 0);
+        // A blank stratum label below a stratum's first row means "as above" (a stratum named once, or
+        // its cells merged), as in the stacked layout of read_strata; a blank one at the top names nothing.
+        const Cell& stratum = range.at(r, 0).is_blank() && last_stratum_row != no_row ? range.at(last_stratum_row, 0)
+                                                                                   : range.at(r, 0);
         const Cell& row = range.at(r, 1);
         if (stratum.is_blank())
-            throw Error(range_row(r) + " has no stratum label in column 1; give every row its stratum's label (a blank "
-                                       "is not read as the label above it)");
+            throw Error(range_row(r) + " has no stratum label in column 1, and no stratum starts above it; give the "
+                                       "first row of every stratum its stratum's label");
+        if (!range.at(r, 0).is_blank()) last_stratum_row = r;
         if (row.is_blank()) throw Error(range_row(r) + " has no row label in column 2; every row of counts needs one");
         if ((stratum.is_text() && detail::is_total_label(stratum.as_text())) ||
             (row.is_text() && detail::is_total_label(row.as_text()))) {

@@ -103,10 +103,24 @@ TEST(LongStrata, RefusesARowLabelGivenTwiceInAStratum) {
                  "the row label \"x\" appears twice in the stratum \"A\" (row 1 and row 2); give each row of a stratum once");
 }
 
-TEST(LongStrata, RefusesARowWithoutAStratumLabel) {
-    expect_error([] { read_long_strata(grid({{"A", "x", 1, 2}, {nullptr, "y", 3, 4}})); },
-                 "row 2 has no stratum label in column 1; give every row its stratum's label (a blank is not read as "
-                 "the label above it)");
+// A stratum named on its first row only (or in merged cells), as in the stacked layout: the same strata
+// as with the name on every row (an identity).
+TEST(LongStrata, ReadsABlankStratumLabelAsTheOneAbove) {
+    const LongStrata named_once = read_long_strata(
+        grid({{"A", "x", 1, 2}, {nullptr, "y", 3, 4}, {"B", "x", 5, 6}, {nullptr, "y", 7, 8}}));
+    const LongStrata named_always =
+        read_long_strata(grid({{"A", "x", 1, 2}, {"A", "y", 3, 4}, {"B", "x", 5, 6}, {"B", "y", 7, 8}}));
+    ASSERT_EQ(named_once.strata.size(), 2u);
+    for (std::size_t k = 0; k < 2; ++k) {
+        EXPECT_EQ(named_once.strata[k].label, named_always.strata[k].label);
+        EXPECT_EQ(named_once.strata[k].counts.values(), named_always.strata[k].counts.values());
+    }
+}
+
+TEST(LongStrata, RefusesAFirstRowWithoutAStratumLabel) {
+    expect_error([] { read_long_strata(grid({{nullptr, "x", 1, 2}, {"A", "y", 3, 4}})); },
+                 "row 1 has no stratum label in column 1, and no stratum starts above it; give the first row of every "
+                 "stratum its stratum's label");
 }
 
 TEST(LongStrata, RefusesTextAmongTheCounts) {

@@ -36,9 +36,10 @@ struct LongStrata {
 // Reads the long layout. The first row is a header when it holds no number and its count columns
 // hold at least one text. Rules, each broken one an error that names the row:
 // - at least 3 columns (stratum label, row label, counts), and 2 columns of counts at least;
-// - every row with anything in it has a stratum label and a row label (texts or numbers; the number
+// - every row with anything in it has a row label, and a stratum label or one above it (texts or numbers; the number
 //   5 and the text "5" are different labels), and counts that are numbers of 0 or more (a blank
 //   count is 0); wholly blank rows are skipped and counted;
+// - a blank stratum label below a stratum's first row means the label above (a stratum named once);
 // - a stratum is a run of rows with the same stratum label; the runs may come in any order, but a
 //   stratum's rows must be together (a label that comes back after another stratum is an error, not
 //   silently joined or split);
