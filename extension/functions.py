@@ -764,8 +764,9 @@ ORDERED_FUNCTIONS = [
         [Argument("strata", "range",
                   "The strata in the long layout: one row per stratum and row category, with the stratum's label in "
                   "column 1, the row's label in column 2 and one column of counts per column category after them; a "
-                  "header row naming the categories is optional. A stratum's rows must be together; the strata may "
-                  "come in any order.")],
+                  "header row naming the categories is optional. A blank stratum label below a stratum's first row "
+                  "means the label above (a stratum named once, or merged cells). A stratum's rows must be together; "
+                  "the strata may come in any order.")],
         "row", "one row: the p-value, the statistic (chi-squared), the degrees of freedom (rows − 1) × (columns − 1); "
                "a plain entry shows the p-value",
         ["It tests general association: any pattern in any stratum, with no order of the categories assumed. A "
