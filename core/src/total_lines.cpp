@@ -459,6 +459,11 @@ std::vector<std::string> refuse_percentages(const Matrix& body, const LineSums& 
             doubts.push_back("Every " + std::string(word) + " adds up to exactly 100: if these are percentages, enter the "
                              "counts instead (the tests need the number of people in each cell); if each " + word +
                              " really counts 100 people, this can be ignored.");
+        else if (all_whole && hundred)
+            doubts.push_back("Every " + std::string(word) + " adds up to 99, 100 or 101, as percentages rounded to whole "
+                             "numbers do: if these are percentages, enter the counts instead (the tests need the number "
+                             "of people in each cell); if each " + word + " really counts about 100 people, this can be "
+                             "ignored.");
     };
     check_side(row_sums, body.rows(), "row");
     check_side(column_sums, body.columns(), "column");

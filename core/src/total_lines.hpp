@@ -76,8 +76,9 @@ LineSums line_sums(const Matrix& body, const std::vector<char>& total_rows, cons
 
 // Refuses percentages and shares typed instead of counts: the lines of one side (at least 2 with
 // counts) that each add up to 100 (within 1) or to 1 (within 0.01), or a body that adds up to 100 or
-// 1, when some entry is not a whole number. Lines of whole numbers that each add up to exactly 100
-// give a doubt instead (they may be percentages, or 100 people each). Total lines are left out:
+// 1, when some entry is not a whole number. Lines of whole numbers that each add up to 100 (or to 99
+// to 101, as rounded percentages do) give a doubt instead (they may be percentages, or 100 people
+// each). Total lines are left out:
 // `sums` are line_sums of the body.
 std::vector<std::string> refuse_percentages(const Matrix& body, const LineSums& sums);
 

@@ -303,6 +303,19 @@ TEST(Percentages, OfWholeNumbersThatAddUpToExactlyAHundredPerRowAreDoubted) {
                                 "people, this can be ignored.");
 }
 
+// Whole percentages rounded: 33 + 33 + 33 = 99, 17 + 17 + 67 = 101.
+TEST(Percentages, OfWholeNumbersThatAddUpToAHundredWithinRoundingPerRowAreDoubted) {
+    const CountTable read = read_count_table(grid({{33, 33, 33}, {17, 17, 67}, {50, 25, 25}}));
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "Every row adds up to 99, 100 or 101, as percentages rounded to whole numbers do: if "
+                                "these are percentages, enter the counts instead (the tests need the number of people in "
+                                "each cell); if each row really counts about 100 people, this can be ignored.");
+}
+
+TEST(Percentages, OfWholeNumbersAreNotDoubtedWhenARowAddsUpToMore) {
+    EXPECT_TRUE(read_count_table(grid({{33, 33, 33}, {17, 17, 69}})).doubts().empty());
+}
+
 TEST(Percentages, ArePlainWeightedCountsWhenTheLinesAddUpToOtherTotals) {
     EXPECT_NO_THROW(read_count_table(grid({{12.5, 87.5}, {40.2, 70.8}})));
 }
