@@ -39,6 +39,8 @@ const char* const total_words[] = {
     "totalt", "summa", "i alt", "samlet",
     // Polish
     "razem", "ogółem", "ogolem", "suma całkowita",
+    // The sign of a sum (capital sigma, n-ary summation)
+    "Σ", "∑",
 };
 
 // "Row total", "Department totals", "Office subtotal": a name followed by the word for a total.

@@ -50,7 +50,8 @@ TEST(TotalLines, ALabelledTotalRowAndColumnGiveTheSameTestAsTheTableWithoutThem)
 
 TEST(TotalLines, KnowsTheWordsForATotalInSeveralLanguagesInAnyCase) {
     for (const char* word : {"TOTAL", "Totals", "Grand total", "Total:", "total staff", "Subtotal", "Sum", "All",
-                             "Summe", "Gesamt", "Insgesamt", "Somme", "Totale", "Totaal", "Totalt", "Suma", "Razem"}) {
+                             "Summe", "Gesamt", "Insgesamt", "Somme", "Totale", "Totaal", "Totalt", "Suma", "Razem",
+                             "Σ", "∑"}) {
         const CountTable read = read_count_table(grid({{"", "Yes", "No"}, {"North", 5, 9}, {"South", 7, 3}, {word, 12, 12}}));
         EXPECT_EQ(read.rows(), 2u) << word;
         EXPECT_EQ(read.set_aside_rows().size(), 1u) << word;
