@@ -17,7 +17,7 @@ namespace assoc::detail {
 // Whether a label names a total line: one of the words for a total in English, German, French,
 // Spanish, Italian, Dutch, Portuguese, the Scandinavian languages and Polish ("Total", "Totals",
 // "Grand total", "Subtotal", "Sum", "All", "Overall", "Summe", "Gesamt", "Insgesamt", "Somme",
-// "Ensemble", "Suma", "Totale", "Totaal", "Soma", "Totalt", "Summa", "I alt", "Razem", "Ogółem", …),
+// "Ensemble", "Suma", "Totale", "Totaal", "Soma", "Totalt", "Summa", "I alt", "Razem", "Ogółem", "Σ", …),
 // in any case (A–Z), with a trailing colon allowed; a label that ends in " total", " totals" or
 // " subtotal" ("Row total", "Office subtotal"); or a label that begins with "Total",
 // "Grand total", "Subtotal", "Gesamt", "Summe", "Totale", "Totaal" or "Totalt" followed by a space
