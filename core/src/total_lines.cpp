@@ -58,40 +58,50 @@ const char* const whole_group_beginnings[] = {"all ",     "overall ",     "whole
 
 // Labels that say how many people or cases a line holds ("N", "Headcount", "Number of staff",
 // "Respondents", "Base"), in the languages of total_words: the column of group sizes that a
-// workbook puts beside its counts. Like the names of everyone above, not totals by the label alone
-// (a group may be called "Staff"). Not "No" or "Nr": "No" is an answer.
-const char* const size_words[] = {
+// workbook puts beside its counts. Like the names of everyone above, not totals by the label alone.
+// The words for a number as such ("N", "Count", "Number of …") name no category either, so a line so
+// labelled that does not hold the sum is doubted; the words for people ("Staff", "Respondents") may
+// name a group, and are not. Not "No" or "Nr": "No" is an answer.
+const char* const count_words[] = {
     // English
     "n", "count", "counts", "headcount", "headcounts", "head count", "number", "numbers", "frequency", "freq",
-    "employees", "staff", "people", "persons", "respondents", "responses", "cases", "base", "size", "sample size",
-    // German
-    "anzahl", "mitarbeiter", "mitarbeitende", "personen", "befragte", "fallzahl", "basis",
-    // French
-    "effectif", "effectifs", "nombre", "nb", "personnes", "répondants", "repondants",
-    // Spanish, Portuguese and Italian
-    "número", "numero", "cantidad", "casos", "personas", "plantilla", "quantidade", "pessoas", "conteggio", "organico",
-    // Dutch, Scandinavian and Polish
-    "aantal", "personeel", "antal", "antall", "liczba", "osoby",
+    "base", "size", "sample size",
+    // German, French, Spanish, Portuguese, Italian, Dutch, Scandinavian and Polish
+    "anzahl", "fallzahl", "effectif", "effectifs", "nombre", "nb", "número", "numero", "cantidad", "quantidade",
+    "conteggio", "aantal", "antal", "antall", "liczba",
 };
 
-const char* const size_beginnings[] = {"number of ", "count of ",  "no. of ", "# of ",     "anzahl ",
-                                       "nombre de ", "número de ", "numero de ", "numero di ", "aantal ",
-                                       "antal ",     "liczba "};
+const char* const people_words[] = {
+    "employees", "staff", "people", "persons", "respondents", "responses", "cases", "mitarbeiter", "mitarbeitende",
+    "personen", "befragte", "basis", "personnes", "répondants", "repondants", "casos", "personas", "plantilla",
+    "pessoas", "organico", "personeel", "osoby",
+};
+
+const char* const count_beginnings[] = {"number of ", "count of ",  "no. of ", "# of ",     "anzahl ",
+                                        "nombre de ", "número de ", "numero de ", "numero di ", "aantal ",
+                                        "antal ",     "liczba "};
+
+bool begins_with(const std::string& text, std::string_view start) {
+    return text.size() >= start.size() && text.compare(0, start.size(), start) == 0;
+}
+
+bool names_a_count_folded(const std::string& text) {
+    return std::any_of(std::begin(count_words), std::end(count_words), [&](const char* w) { return text == w; }) ||
+           std::any_of(std::begin(count_beginnings), std::end(count_beginnings),
+                       [&](const char* b) { return begins_with(text, b); });
+}
 
 }  // namespace
 
 bool names_the_whole_group(std::string_view label) {
     const std::string text = folded_total_label(label);
-    if (text == "company") return true;
-    for (const char* word : size_words)
-        if (text == word) return true;
-    const auto begins_with = [&](const char* beginning) {
-        const std::string_view start(beginning);
-        return text.size() >= start.size() && text.compare(0, start.size(), start) == 0;
-    };
-    return std::any_of(std::begin(whole_group_beginnings), std::end(whole_group_beginnings), begins_with) ||
-           std::any_of(std::begin(size_beginnings), std::end(size_beginnings), begins_with);
+    if (text == "company" || names_a_count_folded(text)) return true;
+    return std::any_of(std::begin(people_words), std::end(people_words), [&](const char* w) { return text == w; }) ||
+           std::any_of(std::begin(whole_group_beginnings), std::end(whole_group_beginnings),
+                       [&](const char* b) { return begins_with(text, b); });
 }
+
+bool names_a_count(std::string_view label) { return names_a_count_folded(folded_total_label(label)); }
 
 namespace {
 
@@ -340,6 +350,19 @@ void refuse_summaries(const Lines& lines, const BodySide& side, const std::vecto
     }
 }
 
+// A line labelled as a number ("N", "Count", "Number of staff") that is kept as counts: it holds no
+// sum of the others (or it would have been set aside as a total), so it is most likely the groups'
+// sizes with some people left out of the other lines (those who did not answer), and no group.
+void doubt_count_labels(const BodySide& side, const std::vector<char>& total, std::vector<std::string>& doubts) {
+    if (!side.labelled) return;
+    for (std::size_t i = 0; i < side.labels->size(); ++i) {
+        if (total[i] || !names_a_count((*side.labels)[i])) continue;
+        doubts.push_back(capitalised(line_name(side, i)) + " is labelled as a number of people or cases, but it does "
+                         "not hold the sum of the other " + side.word + "s, so it was tested as a group of its own; if "
+                         "it gives the groups' sizes, leave it out of the range.");
+    }
+}
+
 // Two lines with the same label: a line copied twice, or one group split in two by mistake.
 void doubt_repeated_labels(const BodySide& side, const std::vector<char>& total, std::vector<std::string>& doubts) {
     if (!side.labelled) return;
@@ -400,6 +423,8 @@ TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const Body
     find_on_side(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts, workspace);
     find_subtotals(Lines{body, true}, rows, totals.rows, totals.columns, totals.doubts, workspace);
     find_subtotals(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts, workspace);
+    doubt_count_labels(rows, totals.rows, totals.doubts);
+    doubt_count_labels(columns, totals.columns, totals.doubts);
     if (distinct_labels) {
         doubt_repeated_labels(rows, totals.rows, totals.doubts);
         doubt_repeated_labels(columns, totals.columns, totals.doubts);

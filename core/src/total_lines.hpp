@@ -31,6 +31,11 @@ bool is_total_label(std::string_view label);
 // others is one.
 bool names_the_whole_group(std::string_view label);
 
+// Whether a label names a number as such ("N", "Count", "Headcount", "Number of staff", "Anzahl"): the
+// words of names_the_whole_group that name no group of people. A line so labelled that holds no sum
+// of the others is doubted by find_total_lines.
+bool names_a_count(std::string_view label);
+
 // Whether two sums are the same amount, to 1e-9 relative (rounding of sums of non-whole counts):
 // how a total line, a subtotal or a stratum of totals is recognised. Inline: the searches for total
 // lines call it for every position of every line of every table read.

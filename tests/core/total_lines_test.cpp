@@ -148,6 +148,17 @@ TEST(TotalLines, KeepsAGroupNamedLikeASizeThatDoesNotHoldTheSum) {
     EXPECT_TRUE(read.doubts().empty());
 }
 
+// "N" beside Yes and No, but larger than their sum (some people did not answer): no group, so doubted.
+TEST(TotalLines, DoubtsALineLabelledAsANumberThatDoesNotHoldTheSum) {
+    const CountTable read =
+        read_count_table(grid({{"", "Yes", "No", "N"}, {"Sales", 30, 45, 80}, {"Legal", 10, 80, 95}}));
+    EXPECT_EQ(read.columns(), 3u);
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "The column \"N\" is labelled as a number of people or cases, but it does not hold the "
+                                "sum of the other columns, so it was tested as a group of its own; if it gives the "
+                                "groups' sizes, leave it out of the range.");
+}
+
 TEST(TotalLines, KeepsAnAnswerNamedNoThatHoldsTheSumButDoubtsIt) {
     const CountTable read =
         read_count_table(grid({{"", "Yes", "Maybe", "No"}, {"North", 5, 9, 14}, {"South", 7, 3, 10}}));
