@@ -7,6 +7,8 @@
 #include <cstdlib>
 #include <ctime>
 
+#include "assoc/wording.hpp"
+
 namespace assoc::fuzz {
 namespace {
 
@@ -17,9 +19,8 @@ std::vector<std::string> input_texts;
 // capital, or every capital, in small letters; and, in error messages, only up to its first NUL
 // (what() ends there). Texts cut short with "…" are found by check_message.
 void remember_forms(const std::string& text) {
-    const std::size_t first = text.find_first_not_of(" \t\r\n");
-    const std::string trimmed =
-        first == std::string::npos ? std::string() : text.substr(first, text.find_last_not_of(" \t\r\n") - first + 1);
+    // Trimmed as the core trims labels (no-break and other spaces too).
+    const std::string trimmed(trimmed_label(text));
     std::string first_small = trimmed, all_small = trimmed;
     if (!first_small.empty() && first_small[0] >= 'A' && first_small[0] <= 'Z') first_small[0] = static_cast<char>(first_small[0] + 32);
     for (char& c : all_small)
