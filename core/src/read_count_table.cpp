@@ -290,7 +290,7 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
                                             : "count up by one as codes of departments or numbered categories do") +
                                    ", and they were read as counts; if they are labels, enter them as text (type an "
                                    "apostrophe first: '" + (ordinal ? std::string("1") : as_typed(start)) +
-                                   ") or add a text header.");
+                                   (label.is_text() ? ") so that they are read as labels." : ") or add a text header."));
         }
     };
     // The corner cell labels the first row when there is a header column, and the first column when

@@ -179,7 +179,7 @@ TEST(ValidityCheck, IsDoubtfulWhenTheFirstColumnCountsUpByOneAsCodesDo) {
     EXPECT_EQ(check_validity(table).summary().rfind(
                   "Doubtful: Column 1 holds the whole numbers 101, 102, 103, which count up by one as codes of "
                   "departments or numbered categories do, and they were read as counts; if they are labels, enter them "
-                  "as text (type an apostrophe first: '101) or add a text header.",
+                  "as text (type an apostrophe first: '101) so that they are read as labels.",
                   0),
               0u)
         << check_validity(table).summary();
