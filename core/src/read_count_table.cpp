@@ -226,6 +226,21 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
                     "its row of column labels down, leaving out a title or a pivot table's field row above it");
     }
 
+    // A second column of labels beside the first: two row variables (region and department, a pivot
+    // table with two row fields). The table needs one; said as such rather than as text among counts.
+    if (header_column && body_columns > 0 &&
+        is_header_line(body_rows, [&](std::size_t r) -> const Cell& { return range.at(first_body_row + r, 1); })) {
+        std::vector<std::string> texts;
+        for (std::size_t r = first_body_row; r < range.rows(); ++r)
+            if (range.at(r, 1).is_text()) {
+                std::string text = quoted_label(range.at(r, 1).as_text());
+                if (std::find(texts.begin(), texts.end(), text) == texts.end()) texts.push_back(std::move(text));
+            }
+        throw Error("columns 1 and 2 both hold only labels (column 2: " + name_list(texts, 3) + "), but a table has one "
+                    "column of row labels beside its counts; put the two in one column (for example =A2&\" \"&B2), or "
+                    "select the table from its column of row labels on");
+    }
+
     CountTable table;
     Matrix body(body_rows, body_columns);
     for (std::size_t r = 0; r < body_rows; ++r) {

@@ -143,6 +143,15 @@ TEST(ReadCountTable, RefusesTwoRowsOfLabelsWithBlankRowsBetweenThem) {
                  "title or a pivot table's field row above it");
 }
 
+// Two row variables side by side (region and department; a pivot table with two row fields).
+TEST(ReadCountTable, RefusesTwoColumnsOfLabelsSayingWhatToDo) {
+    expect_error([] { read_count_table(grid({{"Region", "Department", "No", "Yes"}, {"North", "Finance", 4, 6},
+                                             {nullptr, "Sales", 12, 15}, {"South", "Finance", 5, 5}})); },
+                 "columns 1 and 2 both hold only labels (column 2: \"Finance\" and \"Sales\"), "
+                 "but a table has one column of row labels beside its counts; put the two in one column (for example "
+                 "=A2&\" \"&B2), or select the table from its column of row labels on");
+}
+
 TEST(ReadCountTable, RejectsATableWithOneNonEmptyRow) {
     expect_error([] { read_count_table(grid({{1, 2, 3}, {0, 0, nullptr}})); },
                  "the table has only 1 row with counts (1 row with all zeros set aside); a test of association "
