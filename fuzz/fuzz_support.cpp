@@ -157,11 +157,10 @@ double message_checking_seconds() { return checking_seconds; }
 void check_message(const std::string& message, const std::string& what) {
     // The search for the input's texts in the message costs time of its own (long repetitive labels
     // under the sanitizers' memcmp took seconds), which is no time of the core's.
-    const double started = cpu_seconds();
     struct Account {
         double started;
         ~Account() { checking_seconds += cpu_seconds() - started; }
-    } account{started};
+    } account{cpu_seconds()};
     if (message.empty()) finding(what + " gave an empty message");
     // Messages quote the input's texts and join them to words of their own, so only what lies outside
     // every copy of an input text is held against the core.

@@ -57,7 +57,8 @@ inline constexpr double max_call_seconds = 5.0;
 
 // Runs `compute`, which calls the core and checks its answer. An assoc::Error is a refusal, which is
 // fine when its message reads as Assoc's own; any other exception, or a call that runs past
-// `max_seconds` of CPU time (the checks of messages left out), is a finding. Returns whether `compute` finished without an Error.
+// `max_seconds` of CPU time (the checks of messages left out), is a finding. Returns whether
+// `compute` finished without an Error.
 template <class Compute>
 bool attempt(const std::string& what, Compute compute, double max_seconds = max_call_seconds) {
     const double start = cpu_seconds(), checking = message_checking_seconds();

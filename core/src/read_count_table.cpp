@@ -275,9 +275,9 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
     // The words are put together only when said (a string built here would cost allocations on every
     // call, and thousands of ASSOC.PVALUE cells each read a small table).
     std::vector<std::string> label_doubts;
-    // `label`: the line's own label (the corner cell), or blank; `other_labels`: the rest of its header line.
-    const auto doubt_numbers_as_labels = [&](const char* line, const Cell& label,
-                                             const std::vector<std::string>& other_labels, std::size_t length,
+    // `label`: the line's own label (the corner cell), or blank; `other_labels()`: the rest of its header
+    // line, read only when the label may name codes.
+    const auto doubt_numbers_as_labels = [&](const char* line, const Cell& label, auto other_labels, std::size_t length,
                                              auto cell_at) {
         if (looks_like_labels(length, cell_at, 1900, 2100)) {
             label_doubts.push_back(std::string(line) +
@@ -290,7 +290,7 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
                                    "a date as its day count: " + format_count(first) + " is " + date_of_serial(first) +
                                    "), and they were read as counts; if they are labels, enter them as text or add a "
                                    "text header.");
-        } else if (label.is_text() && all_whole_numbers(length, cell_at) && names_codes(label.as_text(), other_labels)) {
+        } else if (label.is_text() && all_whole_numbers(length, cell_at) && names_codes(label.as_text(), other_labels())) {
             label_doubts.push_back(std::string(line) + " (" + quoted_label(label.as_text()) + ") holds whole numbers under "
                                    "a label that names codes or numbered categories, and they were read as counts; if "
                                    "they are labels, enter them as text (type an apostrophe first: '" +
@@ -312,22 +312,22 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
     // there is a header row.
     const Cell& corner = range.at(0, 0);
     const Cell no_label;
-    // The other labels of the header line, read only when the corner is text (a sheet reads thousands of
-    // small tables).
-    const auto header_line = [&](bool labelled, std::size_t length, auto cell_at) {
-        std::vector<std::string> labels;
-        if (labelled && corner.is_text())
+    // The other labels of the header line, built only when asked for (a sheet reads thousands of small tables).
+    const auto header_line = [&](std::size_t length, auto cell_at) {
+        return [=]() {
+            std::vector<std::string> labels;
             for (std::size_t i = 1; i < length; ++i) labels.push_back(label_of(cell_at(i)));
-        return labels;
+            return labels;
+        };
     };
     if (!header_row)
         doubt_numbers_as_labels("Row 1", header_column ? corner : no_label,
-                                header_line(header_column, range.rows(), [&](std::size_t r) -> const Cell& { return range.at(r, 0); }),
+                                header_line(range.rows(), [&](std::size_t r) -> const Cell& { return range.at(r, 0); }),
                                 body_columns,
                                 [&](std::size_t c) -> const Cell& { return range.at(0, first_body_column + c); });
     if (!header_column)
         doubt_numbers_as_labels("Column 1", header_row ? corner : no_label,
-                                header_line(header_row, range.columns(), [&](std::size_t c) -> const Cell& { return range.at(0, c); }),
+                                header_line(range.columns(), [&](std::size_t c) -> const Cell& { return range.at(0, c); }),
                                 body_rows,
                                 [&](std::size_t r) -> const Cell& { return range.at(first_body_row + r, 0); });
 

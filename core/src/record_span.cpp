@@ -121,16 +121,15 @@ RecordSpan records_and_header(const std::vector<const CodedLabels*>& labels, con
     // A title above the header (a text in some ranges, blank in the others, or one followed by blank
     // rows) and below it a header (a text found nowhere else in every range, above records whose
     // labels repeat): both look like headers, and which one is the author's to say, so it is refused.
+    // The cheap test first: the scans of header_like run over every record, on every call.
     std::size_t next = at + 1;
     while (next < span.end && all_blank_at(next)) ++next;
-    const bool second_header =
-        next < span.end && !firsts.empty() &&
-        std::all_of(labels.begin(), labels.end(), [&](const CodedLabels* range) { return header_like(*range, next, span.end); }) &&
+    const bool title_like = !firsts.empty() && next < span.end && (firsts.size() < labels.size() || next > at + 1);
+    if (title_like &&
         std::all_of(labels.begin(), labels.end(), [&](const CodedLabels* range) {
             return blank_at(*range, at) || unique_text_at(*range, at, span.end);
-        });
-    const bool title_like = firsts.size() < labels.size() || next > at + 1;
-    if (second_header && title_like)
+        }) &&
+        std::all_of(labels.begin(), labels.end(), [&](const CodedLabels* range) { return header_like(*range, next, span.end); }))
         throw Error(word + " " + std::to_string(at + 1) + " (" + name_list(firsts) + ") and " + word + " " +
                     std::to_string(next + 1) + " (" + name_list(texts_at(labels, next)) + ") both look like headers: "
                     "texts found nowhere else in their " + (labels.size() > 1 ? "ranges" : "range") + ", above the "
