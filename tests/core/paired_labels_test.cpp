@@ -29,7 +29,8 @@ TEST(PairedLabels, MatchLabelsWithoutRegardToCaseOrSpaces) {
     EXPECT_EQ(result.statistic, paired_test(grid({{30, 5}, {10, 40}})).statistic);
 }
 
-// Labels on one side only: the other side is read in the same order, and that is said.
+// Labels on one side only: the other side is read in the same order, and that is said. The statistic
+// equals that of the unlabelled table (an exact identity).
 TEST(PairedLabels, SayThatAnUnlabelledSideIsReadInTheOrderOfTheOther) {
     const PairedResult rows_only = paired_test(grid({{"Yes", 30, 5}, {"No", 10, 40}}));
     EXPECT_EQ(rows_only.statistic, paired_test(grid({{30, 5}, {10, 40}})).statistic);
