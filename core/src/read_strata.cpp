@@ -283,10 +283,10 @@ Strata read_strata(const CellGrid& given) {
         // A stratum whose groups carry other labels is read in its order and said; one that shares a label
         // with the first stratum's groups in the other place is refused (which row is which group?).
         std::vector<std::string> turned, relabelled;
-        const Block& reference = blocks.front();
-        const std::string top = folded_label(labels[reference.rows[0]]), bottom = folded_label(labels[reference.rows[1]]);
         for (Block& block : blocks) {
             const std::size_t first = block.rows[0], second = block.rows[1];
+            const Block& reference = blocks.front();  // in the loop: there may be no block at all
+            const std::string top = folded_label(labels[reference.rows[0]]), bottom = folded_label(labels[reference.rows[1]]);
             const std::string here_top = folded_label(labels[first]), here_bottom = folded_label(labels[second]);
             if (top.empty() || bottom.empty() || top == bottom || extra_label_columns == 0) {
                 // Groups are matched only when a stratum column names the strata and the groups are labelled.
