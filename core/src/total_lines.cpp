@@ -4,6 +4,11 @@
 #include <cmath>
 #include <cstdint>
 #include <iterator>
+#include <limits>
+#include <optional>
+#include <string>
+#include <utility>
+#include <vector>
 #include <string_view>
 #include <unordered_map>
 
@@ -363,6 +368,219 @@ void doubt_count_labels(const BodySide& side, const std::vector<char>& total, st
     }
 }
 
+// Labels that say a line holds something other than counts of people or items, though its numbers
+// are whole (a line of numbers that are not whole is refused by refuse_summaries): an average or a
+// rate rounded to whole numbers, a target or an expected number beside the observed ones, a
+// difference, a running count, or an amount of money or time ("Salary (EUR)", "Hours overtime").
+// Each makes the table "Doubtful"; none is set aside, since the author may mean a group by it.
+enum class NotCounts { summary, reference, difference, cumulative, amount };
+
+// The words, lower case, as whole words of a label. A summary or a running count may be named
+// anywhere in the label ("Promotion rate"); a target only by its first word ("Expected", "Target
+// headcount"), since "On target" and "Met target" name outcomes; a difference only by a label made
+// of nothing else ("Change", "Net change vs last year"), since "Change management" is a team.
+// An average or a median lies within the other lines; see doubt_not_counts.
+const char* const middle_words[] = {"average", "avg", "mean", "median", "durchschnitt", "mittelwert", "moyenne",
+                                    "promedio", "gemiddelde"};
+const char* const summary_words[] = {"rate", "ratio", "share", "proportion", "taux", "tasa"};
+const char* const reference_words[] = {
+    "target", "targets", "plan", "planned", "expected", "expectation", "forecast", "forecasted", "projected",
+    "projection", "quota", "goal", "benchmark", "budget", "budgeted", "soll", "ziel", "erwartet", "prognose",
+    "objectif", "prévu", "prevu", "attendu", "prévision", "prevision", "objetivo", "previsto", "esperado",
+    "previsión", "doel", "verwacht", "begroting"};
+const char* const difference_words[] = {"difference", "change", "variance", "gap", "diff",
+                                        "differenz", "abweichung", "veränderung", "écart", "ecart", "variation",
+                                        "diferencia", "variación", "variacion", "verschil"};
+// Words that may stand beside a difference in its label ("Change vs last year", "Net change").
+const char* const difference_fillers[] = {"vs", "versus", "from", "since", "on", "over", "to", "last", "previous",
+                                          "prior", "year", "years", "month", "quarter", "week", "yoy", "absolute",
+                                          "net", "in", "the", "of", "zu", "gegenüber", "vorjahr", "sur", "par",
+                                          "rapport", "an", "sobre", "anterior", "tov"};
+const char* const cumulative_words[] = {"cumulative", "cumul", "cumulé", "cumule", "kumuliert",
+                                        "kumulativ", "acumulado", "cumulatief"};
+// Money and time. A label with a digit names a band ("Under 30 hours", "€20,000–29,999"), and one
+// with a word of the second list a category ("Salary band A", "Flexible hours", "Within cost"):
+// neither is an amount. Not "pay" or "payment", which name outcomes as often ("Late payment").
+const char* const amount_words[] = {"amount", "amounts", "salary", "salaries", "wage", "wages", "earnings",
+                                    "revenue", "revenues", "cost", "costs", "spend", "spending", "hours", "hrs", "eur", "usd", "gbp", "chf", "€", "$", "£", "¥", "betrag",
+                                    "gehalt", "lohn", "kosten", "umsatz", "stunden", "montant", "salaire",
+                                    "salaires", "heures", "importe", "salario", "horas", "bedrag", "salaris",
+                                    "uren"};
+const char* const category_words[] = {"band", "bands", "grade", "grades", "range", "group", "level", "scale",
+                                      "class", "bracket", "centre", "center", "code", "type", "rise", "raise",
+                                      "increase", "cut", "freeze", "review", "category", "tier", "gap", "flexible",
+                                      "fixed", "office", "within", "over", "under", "above", "below", "no",
+                                      "without", "with", "part", "full"};
+
+bool is_word_letter(char c) { return (c >= 'a' && c <= 'z') || static_cast<unsigned char>(c) >= 0x80; }
+
+// The words of a folded label: runs of letters (any byte of a multi-byte character counts as one),
+// "%" where it follows no digit ("0–2%" names a band) and "$" on their own.
+std::vector<std::string_view> label_words(const std::string& text) {
+    std::vector<std::string_view> words;
+    for (std::size_t k = 0; k < text.size();) {
+        const char c = text[k];
+        if (c == '%' || c == '$') {
+            std::size_t before = k;
+            while (before > 0 && text[before - 1] == ' ') --before;
+            if (c == '$' || before == 0 || !(text[before - 1] >= '0' && text[before - 1] <= '9'))
+                words.emplace_back(text.data() + k, 1);
+            ++k;
+            continue;
+        }
+        if (!is_word_letter(c)) {
+            ++k;
+            continue;
+        }
+        std::size_t end = k;
+        while (end < text.size() && is_word_letter(text[end])) ++end;
+        words.emplace_back(text.data() + k, end - k);
+        k = end;
+    }
+    return words;
+}
+
+template <std::size_t N>
+bool listed(std::string_view word, const char* const (&list)[N]) {
+    return std::any_of(std::begin(list), std::end(list), [&](const char* w) { return word == w; });
+}
+
+struct NotCountsLabel {
+    NotCounts kind;
+    std::string word;  // the word that says so, for the search of labels that share it
+    bool middle = false;  // an average or a median
+    bool rate = false;    // a rate, a ratio or a share
+};
+
+// What a label says its line holds instead of counts, if anything.
+std::optional<NotCountsLabel> names_no_counts(std::string_view label) {
+    const std::string text = folded_label(label);
+    const std::vector<std::string_view> words = label_words(text);
+    if (words.empty()) return std::nullopt;
+    if (listed(words.front(), reference_words)) return NotCountsLabel{NotCounts::reference, std::string(words.front())};
+    const auto difference = std::find_if(words.begin(), words.end(), [](std::string_view w) { return listed(w, difference_words); });
+    if (difference != words.end() && std::all_of(words.begin(), words.end(), [](std::string_view w) {
+            return listed(w, difference_words) || listed(w, difference_fillers);
+        }))
+        return NotCountsLabel{NotCounts::difference, std::string(*difference)};
+    for (std::string_view word : words) {
+        if (listed(word, middle_words)) return NotCountsLabel{NotCounts::summary, std::string(word), true};
+        if (word == "%" || listed(word, summary_words))
+            return NotCountsLabel{NotCounts::summary, std::string(word), false, true};
+        if (listed(word, cumulative_words)) return NotCountsLabel{NotCounts::cumulative, std::string(word)};
+    }
+    const bool digit = std::any_of(text.begin(), text.end(), [](char c) { return c >= '0' && c <= '9'; });
+    if (digit || std::any_of(words.begin(), words.end(), [](std::string_view w) { return listed(w, category_words); }))
+        return std::nullopt;
+    for (std::string_view word : words)
+        if (listed(word, amount_words)) return NotCountsLabel{NotCounts::amount, std::string(word)};
+    return std::nullopt;
+}
+
+// Whether `line` is the first or the last of its side (totals left out) and lies within the others,
+// as an average or a median of them does, at every position.
+bool lies_within_at_an_end(const Lines& lines, std::size_t line, const std::vector<char>& total) {
+    std::size_t first = lines.count(), last = 0;
+    for (std::size_t i = 0; i < lines.count(); ++i)
+        if (!total[i]) {
+            first = std::min(first, i);
+            last = i;
+        }
+    if (line != first && line != last) return false;
+    for (std::size_t k = 0; k < lines.length(); ++k) {
+        double low = std::numeric_limits<double>::infinity(), high = -low;
+        for (std::size_t i = 0; i < lines.count(); ++i) {
+            if (i == line || total[i]) continue;
+            low = std::min(low, lines.at(i, k));
+            high = std::max(high, lines.at(i, k));
+        }
+        // Rounded to whole numbers, an average may lie half a unit outside.
+        if (lines.at(line, k) < low - 0.5 || lines.at(line, k) > high + 0.5) return false;
+    }
+    return true;
+}
+
+// Whether `line` holds, at every position, the percentage that another line makes of all the lines
+// (totals and `line` left out), rounded to a whole number: a rate worked out beside its counts.
+bool holds_a_percentage_of_another(const Lines& lines, std::size_t line, const std::vector<char>& total) {
+    for (std::size_t j = 0; j < lines.count(); ++j) {
+        if (j == line || total[j]) continue;
+        bool all = true, any = false;
+        for (std::size_t k = 0; k < lines.length() && all; ++k) {
+            double sum = 0;
+            for (std::size_t i = 0; i < lines.count(); ++i)
+                if (i != line && !total[i]) sum += lines.at(i, k);
+            if (sum <= 0) continue;
+            any = true;
+            all = std::abs(lines.at(line, k) - 100 * lines.at(j, k) / sum) <= 0.5 + 1e-9;
+        }
+        if (all && any) return true;
+    }
+    return false;
+}
+
+// Lines whose label says they hold no counts (names_no_counts), one sentence for each kind. A label
+// whose word another label of the same side shares is one of a scale of outcomes ("Below average",
+// "Average", "Above average"; "Target met", "Target missed"), and is not doubted; amounts are, even
+// when every line names one ("Hours overtime", "Hours normal"). An average or a median is doubted
+// only as the first or last line and within the others: "Poor", "Average", "Good" is a scale. A rate
+// only when it is the percentage of another line: "Flat rate" may be a kind of pay rise.
+void doubt_not_counts(const Lines& values, const BodySide& side, const std::vector<char>& total,
+                      std::vector<std::string>& doubts) {
+    if (!side.labelled) return;
+    const std::vector<std::string>& labels = *side.labels;
+    std::vector<std::pair<std::size_t, NotCountsLabel>> named;
+    for (std::size_t i = 0; i < labels.size(); ++i)
+        if (!total[i] && !labels[i].empty())
+            if (auto found = names_no_counts(labels[i]))
+                if ((!found->middle || lies_within_at_an_end(values, i, total)) &&
+                    (!found->rate || holds_a_percentage_of_another(values, i, total)))
+                    named.emplace_back(i, std::move(*found));
+    if (named.empty()) return;
+    // How many labels hold each of the words found: one pass over the labels.
+    std::unordered_map<std::string, std::size_t> holders;
+    for (const auto& [line, found] : named)
+        if (found.kind != NotCounts::amount) holders.emplace(found.word, 0);
+    if (!holders.empty()) {
+        for (std::size_t i = 0; i < labels.size(); ++i) {
+            if (total[i] || labels[i].empty()) continue;
+            const std::string text = folded_label(labels[i]);
+            std::vector<std::string_view> words = label_words(text);
+            std::sort(words.begin(), words.end());
+            words.erase(std::unique(words.begin(), words.end()), words.end());
+            for (std::string_view word : words)
+                if (auto holder = holders.find(std::string(word)); holder != holders.end()) ++holder->second;
+        }
+    }
+    static const char* const singular[] = {"an average, a rate or a share", "a target, a plan or an expected number",
+                                           "a difference or a change", "a running count",
+                                           "an amount of money or time"};
+    static const char* const plural[] = {"averages, rates or shares", "targets, plans or expected numbers",
+                                         "differences or changes", "running counts", "amounts of money or time"};
+    for (NotCounts kind : {NotCounts::summary, NotCounts::reference, NotCounts::difference, NotCounts::cumulative,
+                           NotCounts::amount}) {
+        std::vector<std::size_t> lines;
+        for (const auto& [line, found] : named)
+            if (found.kind == kind && (kind == NotCounts::amount || holders[found.word] < 2)) lines.push_back(line);
+        if (lines.empty()) continue;
+        const auto k = static_cast<std::size_t>(kind);
+        const bool one = lines.size() == 1;
+        std::vector<std::size_t> numbers;
+        for (std::size_t line : lines) numbers.push_back(side.first_number + line);
+        const std::string subject = one ? line_name(side, lines.front()) : numbered_lines(side.word, numbers);
+        std::string text = capitalised(subject) + (one ? " is labelled as " : " are labelled as ") +
+                           (one ? singular[k] : plural[k]) + ", not as a number of people or items, and " +
+                           (one ? "was" : "were") + " tested as counts; ";
+        if (kind == NotCounts::amount)
+            text += "the tests need the number of people or items in each cell, and on amounts their p-value means "
+                    "nothing.";
+        else
+            text += std::string("if ") + (one ? "it is" : "they are") + " no group of " + (one ? "its" : "their") +
+                    " own, leave " + (one ? "it" : "them") + " out of the range.";
+        doubts.push_back(std::move(text));
+    }
+}
+
 // Two lines with the same label: a line copied twice, or one group split in two by mistake.
 void doubt_repeated_labels(const BodySide& side, const std::vector<char>& total, std::vector<std::string>& doubts) {
     if (!side.labelled) return;
@@ -425,6 +643,10 @@ TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const Body
     find_subtotals(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts, workspace);
     doubt_count_labels(rows, totals.rows, totals.doubts);
     doubt_count_labels(columns, totals.columns, totals.doubts);
+    if (counts_only) {
+        doubt_not_counts(Lines{body, true}, rows, totals.rows, totals.doubts);
+        doubt_not_counts(Lines{body, false}, columns, totals.columns, totals.doubts);
+    }
     if (distinct_labels) {
         doubt_repeated_labels(rows, totals.rows, totals.doubts);
         doubt_repeated_labels(columns, totals.columns, totals.doubts);

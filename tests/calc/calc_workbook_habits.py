@@ -133,6 +133,21 @@ class TotalsInsideTheRange(HabitCase):
         self.assertIn('The column "Headcount" is a total and was set aside.', text)
 
 
+class LinesThatHoldNoCounts(HabitCase):
+    def test_an_expected_column_beside_the_observed_counts_makes_the_table_doubtful(self):
+        table = self.put([["Office", "Observed", "Expected"], ["North", 10, 12], ["South", 20, 18], ["East", 15, 15]])
+        text = self.words("H1", f"=ASSOC.CHECK({table})")
+        self.assertTrue(text.startswith('Doubtful: The column "Expected" is labelled as a target, a plan or an '
+                                        'expected number, not as a number of people or items, and was tested as '
+                                        'counts'), text)
+
+    def test_amounts_of_money_make_the_table_doubtful(self):
+        table = self.put([["Region", "Salary (EUR)", "Bonus (EUR)"], ["North", 412000, 38000],
+                          ["South", 398000, 41000]])
+        text = self.words("H1", f"=ASSOC.CHECK({table})")
+        self.assertTrue(text.startswith("Doubtful: Columns 2–3 are labelled as amounts of money or time"), text)
+
+
 class NumbersThatLabel(HabitCase):
     def test_department_codes_typed_as_numbers_make_the_table_doubtful(self):
         table = self.put([["Unit", "Promoted", "Not promoted"], [101, 30, 45], [102, 10, 80], [103, 22, 41]])

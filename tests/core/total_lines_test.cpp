@@ -274,6 +274,104 @@ TEST(SummaryLines, KeepLinesOfWholeCountsWhateverTheirLabels) {
     const CountTable read = read_count_table(grid({{"Rise", "Yes", "No"}, {"0-2%", 30, 45}, {"2-4%", 10, 80},
                                                    {"Above average", 22, 41}, {"Flat rate", 3, 7}}));
     EXPECT_EQ(read.rows(), 4u);
+    EXPECT_TRUE(read.doubts().empty()) << read.doubts().front();
+}
+
+// Invented: a row of averages under promotions by department, rounded to whole numbers
+// ((30 + 10 + 20) / 3 = 20, (45 + 80 + 61) / 3 = 62).
+TEST(SummaryLines, OfWholeNumbersAreDoubtedAsAnAverageAtTheEndWithinTheOthers) {
+    const CountTable read = read_count_table(
+        grid({{"Dept", "Yes", "No"}, {"Sales", 30, 45}, {"Legal", 10, 80}, {"Audit", 20, 61}, {"Average", 20, 62}}));
+    EXPECT_EQ(read.rows(), 4u);
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "The row \"Average\" is labelled as an average, a rate or a share, not as a number of "
+                                "people or items, and was tested as counts; if it is no group of its own, leave it out "
+                                "of the range.");
+    EXPECT_EQ(check_validity(read).summary().rfind("Doubtful:", 0), 0u);
+}
+
+// A rating scale: "Average" between "Poor" and "Good" is an answer.
+TEST(SummaryLines, OfWholeNumbersAreNotDoubtedAsARatingInTheMiddleOfAScale) {
+    const CountTable read = read_count_table(
+        grid({{"Group", "Poor", "Average", "Good", "Excellent"}, {"Women", 10, 30, 25, 8}, {"Men", 12, 28, 22, 9}}));
+    EXPECT_TRUE(read.doubts().empty());
+}
+
+// Invented: 12 of 42 is 28.6%, 8 of 33 is 24.2%, 15 of 35 is 42.9%, typed rounded as 29, 24, 43.
+TEST(SummaryLines, OfWholeNumbersAreDoubtedAsARateThatIsThePercentageOfAnotherLine) {
+    const CountTable read = read_count_table(grid({{"Dept", "Promoted", "Not promoted", "Rate"},
+                                                   {"Sales", 12, 30, 29},
+                                                   {"Legal", 8, 25, 24},
+                                                   {"Audit", 15, 20, 43}}));
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_TRUE(contains(read.doubts()[0], "The column \"Rate\" is labelled as an average, a rate or a share"));
+}
+
+TEST(NotCountsLines, ATargetOrAnExpectedNumberBesideTheCountsIsDoubted) {
+    for (const char* label : {"Expected", "Target", "Budget", "Plan 2026", "Forecast", "Soll", "Objectif"}) {
+        const CountTable read =
+            read_count_table(grid({{"Office", "Observed", label}, {"North", 10, 12}, {"South", 20, 18}, {"East", 15, 15}}));
+        EXPECT_EQ(read.columns(), 2u) << label;
+        ASSERT_EQ(read.doubts().size(), 1u) << label;
+        EXPECT_EQ(read.doubts()[0], "The column \"" + std::string(label) +
+                                        "\" is labelled as a target, a plan or an expected number, not as a number of "
+                                        "people or items, and was tested as counts; if it is no group of its own, "
+                                        "leave it out of the range.");
+    }
+}
+
+TEST(NotCountsLines, OutcomesNamedAfterATargetAreNotDoubted) {
+    for (const std::vector<const char*>& labels :
+         {std::vector<const char*>{"Below target", "On target", "Above target"},
+          std::vector<const char*>{"Target met", "Target missed", "No target"},
+          std::vector<const char*>{"Within budget", "Over budget", "No budget"}}) {
+        const CountTable read = read_count_table(
+            grid({{"Team", labels[0], labels[1], labels[2]}, {"North", 10, 12, 4}, {"South", 20, 18, 6}}));
+        EXPECT_TRUE(read.doubts().empty()) << labels[0];
+    }
+}
+
+TEST(NotCountsLines, ADifferenceIsDoubtedButATeamNamedAfterChangeIsNot) {
+    const CountTable difference = read_count_table(
+        grid({{"Dept", "Left", "Stayed"}, {"Sales", 12, 30}, {"Legal", 8, 25}, {"Net change vs last year", 3, 2}}));
+    ASSERT_EQ(difference.doubts().size(), 1u);
+    EXPECT_TRUE(contains(difference.doubts()[0], "is labelled as a difference or a change")) << difference.doubts()[0];
+    const CountTable team = read_count_table(
+        grid({{"Dept", "Left", "Stayed"}, {"Sales", 12, 30}, {"Legal", 8, 25}, {"Change management", 3, 7}}));
+    EXPECT_TRUE(team.doubts().empty());
+}
+
+TEST(NotCountsLines, ARunningCountIsDoubted) {
+    const CountTable read =
+        read_count_table(grid({{"Band", "New", "Cumulative"}, {"A", 10, 10}, {"B", 20, 30}, {"C", 15, 45}}));
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_TRUE(contains(read.doubts()[0], "The column \"Cumulative\" is labelled as a running count"));
+}
+
+// Invented: invoice amounts in euros, not invoices, by region and payment outcome.
+TEST(NotCountsLines, AmountsOfMoneyOrTimeAreDoubtedEvenWhenEveryLineNamesOne) {
+    const CountTable read = read_count_table(grid({{"Region", "Amount on time (EUR)", "Amount late (EUR)"},
+                                                   {"North", 125000, 38000},
+                                                   {"South", 98000, 41000}}));
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "Columns 2–3 are labelled as amounts of money or time, not as a number of people or "
+                                "items, and were tested as counts; the tests need the number of people or items in "
+                                "each cell, and on amounts their p-value means nothing.");
+    for (const char* label : {"Salary", "Hours overtime", "Cost (€)", "Revenue $", "Gehalt"}) {
+        const CountTable one =
+            read_count_table(grid({{"Team", "Staff", label}, {"North", 10, 1200}, {"South", 20, 1800}}));
+        EXPECT_EQ(one.doubts().size(), 1u) << label;
+    }
+}
+
+TEST(NotCountsLines, BandsAndKindsOfPayOrHoursAreCategories) {
+    const CountTable read = read_count_table(grid({{"Pattern", "Left", "Stayed"},
+                                                   {"Flexible hours", 5, 20},
+                                                   {"Under 30 hours", 3, 9},
+                                                   {"Salary band A", 10, 30},
+                                                   {"€20k–30k", 12, 28},
+                                                   {"Late payment", 4, 6}}));
+    EXPECT_TRUE(read.doubts().empty()) << read.doubts().front();
 }
 
 TEST(RepeatedLabels, AreDoubtedAsOneGroupSplitOrCopied) {
