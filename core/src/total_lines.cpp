@@ -278,32 +278,51 @@ void find_subtotals(const Lines& lines, const BodySide& side, const std::vector<
     }
 }
 
+bool is_word_letter(char c) { return (c >= 'a' && c <= 'z') || static_cast<unsigned char>(c) >= 0x80; }
+
+// The words of a folded label: runs of letters (any byte of a multi-byte character counts as one),
+// "%" where it follows no digit ("0–2%" names a band) and "$" on their own.
+std::vector<std::string_view> label_words(const std::string& text) {
+    std::vector<std::string_view> words;
+    for (std::size_t k = 0; k < text.size();) {
+        const char c = text[k];
+        if (c == '%' || c == '$') {
+            std::size_t before = k;
+            while (before > 0 && text[before - 1] == ' ') --before;
+            if (c == '$' || before == 0 || !(text[before - 1] >= '0' && text[before - 1] <= '9'))
+                words.emplace_back(text.data() + k, 1);
+            ++k;
+            continue;
+        }
+        if (!is_word_letter(c)) {
+            ++k;
+            continue;
+        }
+        std::size_t end = k;
+        while (end < text.size() && is_word_letter(text[end])) ++end;
+        words.emplace_back(text.data() + k, end - k);
+        k = end;
+    }
+    return words;
+}
+
+template <std::size_t N>
+bool listed(std::string_view word, const char* const (&list)[N]) {
+    return std::any_of(std::begin(list), std::end(list), [&](const char* w) { return word == w; });
+}
+
 // Lines that are no counts by their label: a percentage, an average or a rate ("% promoted", "Average",
 // "Promotion rate") holding a number that is not whole. Refused: such a line cannot be set aside as a
 // total can, since the author may have meant something else by it.
 bool names_a_summary(std::string_view label) {
     static const char* const words[] = {"%", "percent", "percentage", "pct", "average", "avg", "mean", "median",
                                         "rate", "ratio", "share", "proportion", "prozent", "anteil", "durchschnitt",
-                                        "mittelwert", "pourcentage", "moyenne", "porcentaje", "promedio", "media",
+                                        "mittelwert", "pourcentage", "moyenne", "porcentaje", "promedio",
                                         "percentuale", "procent", "gemiddelde"};
     const std::string text = folded_label(label);
-    std::size_t k = 0;
-    while (k < text.size()) {
-        if (text[k] == '%') return true;
-        const bool letter = (text[k] >= 'a' && text[k] <= 'z') || static_cast<unsigned char>(text[k]) >= 0x80;
-        if (!letter) {
-            ++k;
-            continue;
-        }
-        std::size_t end = k;
-        while (end < text.size() && ((text[end] >= 'a' && text[end] <= 'z') || static_cast<unsigned char>(text[end]) >= 0x80))
-            ++end;
-        const std::string_view token(text.data() + k, end - k);
-        for (const char* word : words)
-            if (token == word) return true;
-        k = end;
-    }
-    return false;
+    if (text.find('%') != std::string::npos) return true;
+    const std::vector<std::string_view> found = label_words(text);
+    return std::any_of(found.begin(), found.end(), [&](std::string_view word) { return listed(word, words); });
 }
 
 // A label that says its numbers are percentages: a "%" that follows no digit ("% promoted", "Yes (%)";
@@ -411,39 +430,6 @@ const char* const category_words[] = {"band", "bands", "grade", "grades", "range
                                       "increase", "cut", "freeze", "review", "category", "tier", "gap", "flexible",
                                       "fixed", "office", "within", "over", "under", "above", "below", "no",
                                       "without", "with", "part", "full"};
-
-bool is_word_letter(char c) { return (c >= 'a' && c <= 'z') || static_cast<unsigned char>(c) >= 0x80; }
-
-// The words of a folded label: runs of letters (any byte of a multi-byte character counts as one),
-// "%" where it follows no digit ("0–2%" names a band) and "$" on their own.
-std::vector<std::string_view> label_words(const std::string& text) {
-    std::vector<std::string_view> words;
-    for (std::size_t k = 0; k < text.size();) {
-        const char c = text[k];
-        if (c == '%' || c == '$') {
-            std::size_t before = k;
-            while (before > 0 && text[before - 1] == ' ') --before;
-            if (c == '$' || before == 0 || !(text[before - 1] >= '0' && text[before - 1] <= '9'))
-                words.emplace_back(text.data() + k, 1);
-            ++k;
-            continue;
-        }
-        if (!is_word_letter(c)) {
-            ++k;
-            continue;
-        }
-        std::size_t end = k;
-        while (end < text.size() && is_word_letter(text[end])) ++end;
-        words.emplace_back(text.data() + k, end - k);
-        k = end;
-    }
-    return words;
-}
-
-template <std::size_t N>
-bool listed(std::string_view word, const char* const (&list)[N]) {
-    return std::any_of(std::begin(list), std::end(list), [&](const char* w) { return word == w; });
-}
 
 struct NotCountsLabel {
     NotCounts kind;

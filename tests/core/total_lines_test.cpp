@@ -277,6 +277,12 @@ TEST(SummaryLines, KeepLinesOfWholeCountsWhateverTheirLabels) {
     EXPECT_TRUE(read.doubts().empty()) << read.doubts().front();
 }
 
+// "Media" is a department in English, though the word for an average in Spanish and Italian.
+TEST(SummaryLines, KeepAMediaDepartmentOfWeightedCounts) {
+    const CountTable read = read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 30.5, 45}, {"Media", 10.25, 80}}));
+    EXPECT_EQ(read.rows(), 2u);
+}
+
 // Invented: a row of averages under promotions by department, rounded to whole numbers
 // ((30 + 10 + 20) / 3 = 20, (45 + 80 + 61) / 3 = 62).
 TEST(SummaryLines, OfWholeNumbersAreDoubtedAsAnAverageAtTheEndWithinTheOthers) {
