@@ -181,8 +181,27 @@ RecordSpan records_and_header(const std::vector<const CodedLabels*>& labels, con
     return span;
 }
 
-// A list of records that ends in a line such as "Total | 250" (the count of the records above, typed
-// under them): that line is no record, and counting it would add a level of one person. It is refused
+// Whether, in every range but `range`, the last record holds a number where the records above hold a
+// text: "Count | 250" under records of departments and answers. A count word alone is no sign, since
+// "N" may be an answer (and a line with a blank beside it is skipped, and said, as any record with a
+// blank label).
+bool others_hold_a_stray_number(const std::vector<const CodedLabels*>& labels, const CodedLabels* range,
+                                const RecordSpan& span) {
+    if (labels.size() < 2) return false;
+    const std::size_t last = span.end - 1;
+    for (const CodedLabels* other : labels) {
+        if (other == range) continue;
+        if (blank_at(*other, last) || is_text_code(*other, other->codes[last])) return false;
+        bool text_above = false;
+        for (std::size_t i = span.first; i < last && !text_above; ++i)
+            text_above = !blank_at(*other, i) && is_text_code(*other, other->codes[i]);
+        if (!text_above) return false;
+    }
+    return true;
+}
+
+// A list of records that ends in a line such as "Total | 250" or "Count | 250" (the count of the
+// records above, typed under them): that line is no record, and counting it would add a level of one person. It is refused
 // rather than left out, since ASSOC.LEVELS on another range of the same records cannot see it and
 // would list its other cells as a level. A total word counts only when it comes once in its range,
 // last: an answer "All" given by several people is a record.
@@ -192,7 +211,8 @@ void refuse_total_line_at_end(const std::vector<const CodedLabels*>& labels, con
     for (const CodedLabels* range : labels) {
         if (last >= range->codes.size() || !is_text_code(*range, range->codes[last])) continue;
         const std::string& text = range->spellings[range->codes[last]].as_text();
-        if (!is_total_label(text)) continue;
+        if (!is_total_label(text) && !(names_a_count(text) && others_hold_a_stray_number(labels, range, span)))
+            continue;
         const std::string_view trimmed = trimmed_label(text);
         bool once = true;
         for (std::size_t i = span.first; i < last && once; ++i) {

@@ -284,6 +284,31 @@ TEST(RecordRanges, RefuseATotalLineUnderTheRecordsWhenListingTheirLevels) {
                  "it up among the others");
 }
 
+// "Count | 5" under the records is the same line under another word; "N" among the answers is not.
+TEST(RecordRanges, RefuseACountLineUnderTheRecordsWhereANumberStandsAmongTexts) {
+    expect_error(
+        [] {
+            counts_from_records(grid({{"Dept"}, {"Sales"}, {"Legal"}, {"Legal"}, {"Sales"}, {"Count"}}),
+                                grid({{"Outcome"}, {"Yes"}, {"No"}, {"Yes"}, {"No"}, {4}}));
+        },
+        "the last record, row 6, holds \"Count\", which reads as a total line under the records rather than a "
+        "record: leave it out of the ranges (Assoc counts the records itself); if it is a record, move it up among "
+        "the others");
+}
+
+TEST(RecordRanges, CountALastAnswerNAsARecord) {
+    const RecordCounts counts = counts_from_records(grid({{"Sales"}, {"Legal"}, {"Sales"}, {"Legal"}}),
+                                                    grid({{"Y"}, {"Y"}, {"Y"}, {"N"}}));
+    EXPECT_EQ(counts.records, 4u);
+    EXPECT_EQ(counts.column_levels.size(), 2u);
+}
+
+TEST(RecordRanges, CountALastRecordNamedNumberOfBesideACodeOfNumbers) {
+    const RecordCounts counts = counts_from_records(grid({{"Sales"}, {"Legal"}, {"Sales"}, {"Number of staff"}}),
+                                                    grid({{1}, {0}, {0}, {1}}));
+    EXPECT_EQ(counts.records, 4u);
+}
+
 // An answer that reads like a total word but that several people gave is a record.
 TEST(RecordRanges, CountAnAnswerAllGivenMoreThanOnceEvenLast) {
     const RecordCounts counts =
