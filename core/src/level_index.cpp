@@ -7,6 +7,7 @@
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
 #include "assoc/wording.hpp"
+#include "total_lines.hpp"
 
 namespace assoc::detail {
 
@@ -121,6 +122,22 @@ std::vector<std::string> LevelIndex::lookalike_remarks(const std::string& what) 
                       (case_pairs == 2 ? " other label" : " other labels") + " that differ from another only in capitals";
         remarks.push_back(remark + ".");
     }
+
+    // Texts that mark a missing value ("n/a", "-", "(empty)"): the first one found is named, the rest counted.
+    std::size_t missing = 0;
+    const std::string* first_missing = nullptr;
+    for (const Cell& level : levels_)
+        if (level.is_text() && detail::names_a_missing_value(level.as_text()) && missing++ == 0)
+            first_missing = &level.as_text();
+    if (first_missing != nullptr)
+        remarks.push_back("The " + what + " include " + quoted_label(*first_missing) +
+                          (missing == 1 ? ", which reads" : " and " + format_count(static_cast<double>(missing - 1)) +
+                                                                (missing == 2 ? " other label that reads" : " other labels that read")) +
+                          " as a missing value, and " + (missing == 1 ? "its" : "their") + " records were counted as " +
+                          (missing == 1 ? "a level of their own" : "levels of their own") + "; if they have no answer, "
+                          "clear those cells (records with a blank label are skipped, and said); " +
+                          (missing == 1 ? "if it is" : "if one is") + " an answer (\"Not applicable\"), write it in "
+                          "words.");
 
     // A text that reads like one of the numbers, e.g. "5" typed as text next to the number 5.
     for (const Cell& level : levels_) {

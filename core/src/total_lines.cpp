@@ -567,6 +567,19 @@ void doubt_not_counts(const Lines& values, const BodySide& side, const std::vect
     }
 }
 
+// Lines labelled as a missing value ("n/a", "(empty)"): people without an answer, tested as a group.
+// An empty line so labelled (a spacer "-") is set aside with the other empty lines.
+void doubt_missing_labels(const Lines& lines, const BodySide& side, const std::vector<char>& total,
+                          std::vector<std::string>& doubts) {
+    if (!side.labelled) return;
+    for (std::size_t i = 0; i < side.labels->size(); ++i) {
+        if (total[i] || !names_a_missing_value((*side.labels)[i]) || lines.empty(i)) continue;
+        doubts.push_back(capitalised(line_name(side, i)) + " is labelled as a missing value and was tested as a group "
+                         "of its own; if it holds people or items without an answer, leave it out of the range; if "
+                         "it is an answer (\"Not applicable\"), write it in words.");
+    }
+}
+
 // Two lines with the same label: a line copied twice, or one group split in two by mistake.
 void doubt_repeated_labels(const BodySide& side, const std::vector<char>& total, std::vector<std::string>& doubts) {
     if (!side.labelled) return;
@@ -590,6 +603,15 @@ void doubt_repeated_labels(const BodySide& side, const std::vector<char>& total,
 }
 
 }  // namespace
+
+bool names_a_missing_value(std::string_view label) {
+    static const char* const markers[] = {"n/a", "na", "n.a.", "n.a", "#n/a", "-", "--", "–", "—", "?", "??",
+                                          "null", "nil", "nan", "missing", "(missing)", "(empty)", "(blank)",
+                                          "empty", "blank", "(leer)", "leer", "(vide)", "vide", "(vacío)",
+                                          "(vacio)", "(vuoto)", "(leeg)"};
+    const std::string text = folded_label(label);
+    return std::any_of(std::begin(markers), std::end(markers), [&](const char* m) { return text == m; });
+}
 
 bool is_total_label(std::string_view label) {
     const std::string text = folded_total_label(label);
@@ -629,6 +651,8 @@ TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const Body
     find_subtotals(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts, workspace);
     doubt_count_labels(rows, totals.rows, totals.doubts);
     doubt_count_labels(columns, totals.columns, totals.doubts);
+    doubt_missing_labels(Lines{body, true}, rows, totals.rows, totals.doubts);
+    doubt_missing_labels(Lines{body, false}, columns, totals.columns, totals.doubts);
     if (counts_only) {
         doubt_not_counts(Lines{body, true}, rows, totals.rows, totals.doubts);
         doubt_not_counts(Lines{body, false}, columns, totals.columns, totals.doubts);

@@ -36,6 +36,11 @@ bool names_the_whole_group(std::string_view label);
 // of the others is doubted by find_total_lines.
 bool names_a_count(std::string_view label);
 
+// Whether a label marks a missing value rather than naming a group or an answer: "n/a", "NA", "#N/A",
+// "-", "?", "null", "NaN", "missing", and the "(empty)" or "(blank)" a summary of records shows for blank
+// cells. "N/A" may also mean "not applicable", an answer of its own: the messages say how to keep it.
+bool names_a_missing_value(std::string_view label);
+
 // Whether two sums are the same amount, to 1e-9 relative (rounding of sums of non-whole counts):
 // how a total line, a subtotal or a stratum of totals is recognised. Inline: the searches for total
 // lines call it for every position of every line of every table read.

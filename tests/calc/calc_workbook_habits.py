@@ -141,6 +141,18 @@ class LinesThatHoldNoCounts(HabitCase):
                                         'expected number, not as a number of people or items, and was tested as '
                                         'counts'), text)
 
+    def test_a_row_of_averages_under_the_counts_makes_the_table_doubtful(self):
+        table = self.put([["Dept", "Yes", "No"], ["Sales", 30, 45], ["Legal", 10, 80], ["Audit", 20, 61],
+                          ["Average", 20, 62]])
+        text = self.words("H1", f"=ASSOC.CHECK({table})")
+        self.assertTrue(text.startswith('Doubtful: The row "Average" is labelled as an average, a rate or a share'),
+                        text)
+
+    def test_a_column_of_blank_answers_from_a_summary_of_records_makes_the_table_doubtful(self):
+        table = self.put([["Dept", "Yes", "No", "(empty)"], ["Sales", 12, 30, 3], ["Legal", 8, 25, 2]])
+        text = self.words("H1", f"=ASSOC.CHECK({table})")
+        self.assertTrue(text.startswith('Doubtful: The column "(empty)" is labelled as a missing value'), text)
+
     def test_amounts_of_money_make_the_table_doubtful(self):
         table = self.put([["Region", "Salary (EUR)", "Bonus (EUR)"], ["North", 412000, 38000],
                           ["South", 398000, 41000]])

@@ -309,6 +309,17 @@ TEST(RecordRanges, CountALastRecordNamedNumberOfBesideACodeOfNumbers) {
     EXPECT_EQ(counts.records, 4u);
 }
 
+TEST(RecordRanges, SayWhenALabelReadsAsAMissingValue) {
+    const RecordCounts counts = counts_from_records(grid({{"Sales"}, {"Legal"}, {"Sales"}, {"Legal"}, {"Sales"}}),
+                                                    grid({{"Yes"}, {"n/a"}, {"Yes"}, {"-"}, {"n/a"}}));
+    EXPECT_EQ(counts.column_levels.size(), 3u);
+    ASSERT_EQ(counts.remarks.size(), 1u);
+    EXPECT_EQ(counts.remarks[0], "The column labels include \"n/a\" and 1 other label that reads as a missing value, "
+                                 "and their records were counted as levels of their own; if they have no answer, "
+                                 "clear those cells (records with a blank label are skipped, and said); if one is an "
+                                 "answer (\"Not applicable\"), write it in words.");
+}
+
 // An answer that reads like a total word but that several people gave is a record.
 TEST(RecordRanges, CountAnAnswerAllGivenMoreThanOnceEvenLast) {
     const RecordCounts counts =

@@ -467,3 +467,34 @@ TEST(TotalLines, AreNamedByThePairedTestBeforeItsOwnRemarks) {
     EXPECT_EQ(result.remarks[1], "The column \"Total\" is a total and was set aside.");
     EXPECT_EQ(result.statistic, paired_test(grid({{20, 5}, {15, 30}})).statistic);
 }
+
+// Invented: a summary of survey answers whose blank answers were gathered under "(empty)".
+TEST(MissingValueLines, AreDoubtedAsPeopleWithoutAnAnswerTestedAsAGroup) {
+    const CountTable read =
+        read_count_table(grid({{"Dept", "Yes", "No", "(empty)"}, {"Sales", 12, 30, 3}, {"Legal", 8, 25, 2}}));
+    EXPECT_EQ(read.columns(), 3u);
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "The column \"(empty)\" is labelled as a missing value and was tested as a group of "
+                                "its own; if it holds people or items without an answer, leave it out of the range; if "
+                                "it is an answer (\"Not applicable\"), write it in words.");
+    for (const char* label : {"n/a", "N/A", "#N/A", "-", "?", "NaN", "null", "(blank)"}) {
+        const CountTable other =
+            read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 12, 30}, {"Legal", 8, 25}, {label, 3, 2}}));
+        EXPECT_EQ(other.doubts().size(), 1u) << label;
+    }
+}
+
+TEST(MissingValueLines, AnEmptySpacerLineSoLabelledIsOnlySetAside) {
+    const CountTable read = read_count_table(
+        grid({{"Dept", "Yes", "-", "No"}, {"Sales", 12, "", 30}, {"Legal", 8, "", 25}}));
+    EXPECT_TRUE(read.doubts().empty());
+    EXPECT_EQ(read.set_aside_columns().size(), 1u);
+}
+
+TEST(MissingValueLines, AnAnswerInWordsIsNoMissingValue) {
+    const CountTable read = read_count_table(grid({{"Dept", "Yes", "No", "Not applicable", "No answer"},
+                                                   {"Sales", 12, 30, 3, 2},
+                                                   {"Legal", 8, 25, 2, 4}}));
+    EXPECT_TRUE(read.doubts().empty());
+}
+
