@@ -1,6 +1,8 @@
 #include "level_index.hpp"
 
+#include <algorithm>
 #include <numeric>
+#include <unordered_map>
 
 #include "ascii_case.hpp"
 #include "cell_line.hpp"
@@ -122,6 +124,33 @@ std::vector<std::string> LevelIndex::lookalike_remarks(const std::string& what) 
                       (case_pairs == 2 ? " other label" : " other labels") + " that differ from another only in capitals";
         remarks.push_back(remark + ".");
     }
+
+    // A single letter beside a word it begins ("Y" and "Yes", "f" and "Female"): the first pair is named,
+    // the rest counted.
+    const auto letter = [](char c) { return ascii_lower(c) >= 'a' && ascii_lower(c) <= 'z'; };
+    std::unordered_map<char, const std::string*> word_of;
+    for (const Cell& level : levels_) {
+        if (!level.is_text()) continue;
+        const std::string& text = level.as_text();
+        if (text.size() >= 2 && std::all_of(text.begin(), text.end(), letter))
+            word_of.try_emplace(ascii_lower(text[0]), &text);
+    }
+    std::size_t letter_pairs = 0;
+    std::string first_letter_pair;
+    for (const Cell& level : levels_) {
+        if (!level.is_text() || level.as_text().size() != 1 || !letter(level.as_text()[0])) continue;
+        const auto found = word_of.find(ascii_lower(level.as_text()[0]));
+        if (found == word_of.end()) continue;
+        if (letter_pairs++ == 0) first_letter_pair = quoted_label(level.as_text()) + " and " + quoted_label(*found->second);
+    }
+    if (letter_pairs > 0)
+        remarks.push_back("The " + what + " " + first_letter_pair + " may be one label written two ways (a letter and "
+                          "the word it begins), and are counted apart" +
+                          (letter_pairs == 1   ? std::string()
+                           : letter_pairs == 2 ? std::string("; so is 1 other letter")
+                                               : "; so are " + format_count(static_cast<double>(letter_pairs - 1)) +
+                                                     " other letters") +
+                          "; if they are one, write them one way.");
 
     // Texts that mark a missing value ("n/a", "-", "(empty)"): the first one found is named, the rest counted.
     std::size_t missing = 0;

@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdint>
+#include <cstring>
 #include <iterator>
 #include <limits>
 #include <optional>
@@ -567,6 +568,59 @@ void doubt_not_counts(const Lines& values, const BodySide& side, const std::vect
     }
 }
 
+// A line that is a part of the line before it ("of which managers" under "Sales", as reports break a
+// figure down): its people are counted in both. The phrases, lower case, as the label's beginning
+// (after a dash or a bullet), followed by a space, a colon or nothing.
+const char* const part_beginnings[] = {"of which", "of whom", "thereof", "whereof", "including", "incl.", "incl",
+                                       "davon", "darunter", "hiervon", "dont", "parmi lesquels", "parmi eux",
+                                       "de los cuales", "de las cuales", "di cui", "waarvan", "varav", "heraf",
+                                       "w tym"};
+
+bool names_a_part(std::string_view label) {
+    std::string text = folded_label(label);
+    std::size_t start = 0;
+    while (start < text.size() && (text[start] == '-' || text[start] == '*' || text[start] == '>' || text[start] == ' '))
+        ++start;
+    for (const char* bullet : {"–", "—", "•", "·"})
+        if (text.compare(start, std::strlen(bullet), bullet) == 0) start += std::strlen(bullet);
+    while (start < text.size() && text[start] == ' ') ++start;
+    const std::string_view rest(text.data() + start, text.size() - start);
+    for (const char* beginning : part_beginnings) {
+        const std::string_view phrase(beginning);
+        if (rest.size() < phrase.size() || rest.compare(0, phrase.size(), phrase) != 0) continue;
+        if (rest.size() == phrase.size() || rest[phrase.size()] == ' ' || rest[phrase.size()] == ':' ||
+            phrase.back() == '.')
+            return true;
+    }
+    return false;
+}
+
+// Refuses a part line whose every count is no larger than the line it follows (the nearest line
+// before it that is neither a total nor a part); doubts one that is larger somewhere or follows none.
+void refuse_parts(const Lines& lines, const BodySide& side, const std::vector<char>& total,
+                  std::vector<std::string>& doubts) {
+    if (!side.labelled) return;
+    const std::vector<std::string>& labels = *side.labels;
+    std::size_t parent = lines.count();  // none yet
+    for (std::size_t i = 0; i < lines.count(); ++i) {
+        if (total[i]) continue;
+        if (!names_a_part(labels[i])) {
+            parent = i;
+            continue;
+        }
+        bool within = parent < lines.count();
+        for (std::size_t k = 0; k < lines.length() && within; ++k) within = lines.at(i, k) <= lines.at(parent, k);
+        if (within)
+            throw Error(line_name(side, i) + " reads as a part of what the " + side.word + "s before it count (its "
+                        "label says so, and none of its counts is larger than in " + line_name(side, parent) +
+                        "), so its people would be counted twice; leave it out of the range, or subtract it from the " +
+                        side.word + " it is a part of to make two groups");
+        doubts.push_back(capitalised(line_name(side, i)) + " is labelled as a part of another " + side.word +
+                         ", and was tested as a group of its own; if its people are counted in another " + side.word +
+                         " too, leave it out of the range.");
+    }
+}
+
 // Lines labelled as a missing value ("n/a", "(empty)"): people without an answer, tested as a group.
 // An empty line so labelled (a spacer "-") is set aside with the other empty lines.
 void doubt_missing_labels(const Lines& lines, const BodySide& side, const std::vector<char>& total,
@@ -640,6 +694,8 @@ TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const Body
     if (counts_only) {
         refuse_summaries(Lines{body, true}, rows, totals.rows);
         refuse_summaries(Lines{body, false}, columns, totals.columns);
+        refuse_parts(Lines{body, true}, rows, totals.rows, totals.doubts);
+        refuse_parts(Lines{body, false}, columns, totals.columns, totals.doubts);
     }
     Workspace workspace;
     const std::size_t longest = std::max(body.rows(), body.columns());

@@ -320,6 +320,21 @@ TEST(RecordRanges, SayWhenALabelReadsAsAMissingValue) {
                                  "answer (\"Not applicable\"), write it in words.");
 }
 
+TEST(RecordRanges, SayWhenALetterStandsBesideTheWordItBegins) {
+    const RecordCounts counts = counts_from_records(grid({{"Sales"}, {"Legal"}, {"Sales"}, {"Legal"}, {"Sales"}}),
+                                                    grid({{"Yes"}, {"No"}, {"Y"}, {"No"}, {"Yes"}}));
+    EXPECT_EQ(counts.column_levels.size(), 3u);
+    ASSERT_EQ(counts.remarks.size(), 1u);
+    EXPECT_EQ(counts.remarks[0], "The column labels \"Y\" and \"Yes\" may be one label written two ways (a letter "
+                                 "and the word it begins), and are counted apart; if they are one, write them one way.");
+}
+
+TEST(RecordRanges, SayNothingOfGradesThatAreLettersAlone) {
+    const RecordCounts counts = counts_from_records(grid({{"Sales"}, {"Legal"}, {"Sales"}, {"Legal"}}),
+                                                    grid({{"A"}, {"B"}, {"C"}, {"A"}}));
+    EXPECT_TRUE(counts.remarks.empty());
+}
+
 // An answer that reads like a total word but that several people gave is a record.
 TEST(RecordRanges, CountAnAnswerAllGivenMoreThanOnceEvenLast) {
     const RecordCounts counts =

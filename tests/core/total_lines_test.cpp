@@ -498,3 +498,36 @@ TEST(MissingValueLines, AnAnswerInWordsIsNoMissingValue) {
     EXPECT_TRUE(read.doubts().empty());
 }
 
+// Invented: a report that breaks a department down ("of which managers"), as finance reports do.
+TEST(PartLines, AreRefusedWhenNoCountIsLargerThanInTheLineBefore) {
+    expect_error([] {
+        read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 12, 30}, {"- of which managers", 3, 8}, {"Legal", 8, 25}}));
+    },
+                 "the row \"- of which managers\" reads as a part of what the rows before it count (its label says "
+                 "so, and none of its counts is larger than in the row \"Sales\"), so its people would be counted "
+                 "twice; leave it out of the range, or subtract it from the row it is a part of to make two groups");
+}
+
+TEST(PartLines, AreKnownInOtherLanguagesAndAfterABullet) {
+    for (const char* label : {"of which: managers", "Thereof managers", "davon Führung", "• dont cadres", "incl. temps"}) {
+        EXPECT_THROW(read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 12, 30}, {label, 3, 8}, {"Legal", 8, 25}})),
+                     Error)
+            << label;
+    }
+}
+
+TEST(PartLines, AreDoubtedWhenLargerThanTheLineBefore) {
+    const CountTable read =
+        read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 12, 30}, {"of which managers", 13, 8}, {"Legal", 8, 25}}));
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "The row \"of which managers\" is labelled as a part of another row, and was tested as "
+                                "a group of its own; if its people are counted in another row too, leave it out of the "
+                                "range.");
+}
+
+TEST(PartLines, AreNotWordsThatOnlyBeginTheSame) {
+    const CountTable read = read_count_table(
+        grid({{"Dept", "Yes", "No"}, {"Sales", 12, 30}, {"Inclusion team", 3, 8}, {"Dontnet office", 8, 25}}));
+    EXPECT_TRUE(read.doubts().empty());
+}
+
