@@ -180,10 +180,10 @@ LongStrata read_long_strata(const CellGrid& range, std::size_t max_cells) {
             double value = 0.0;
             if (!cell.is_blank()) {
                 // The message is built only on failure: a range can hold a million counts.
-                const auto fail = [&](const char* reason) {
+                const auto fail = [&](const std::string& reason) {
                     throw Error(range_row(r) + ", column " + std::to_string(c + 3) + " holds " + cell.describe() + reason);
                 };
-                if (!cell.is_number()) fail("; counts must be numbers");
+                if (!cell.is_number()) fail(detail::text_among_counts_reason(cell));
                 value = cell.as_number();
                 if (!std::isfinite(value)) fail("; counts must be ordinary numbers");
                 if (value < 0) fail("; counts cannot be negative");

@@ -252,7 +252,7 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
                 continue;
             }
             // The message is built only on failure: tables can have a million cells.
-            auto fail = [&](const char* reason) {
+            auto fail = [&](const std::string& reason) {
                 // Rows and columns of the range as selected, with their labels where the range has them.
                 const auto label = [](const Cell& header) {
                     return header.is_text() && !trimmed_label(header.as_text()).empty()
@@ -263,7 +263,7 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
                 const std::string column = "column " + std::to_string(range_column + 1) + (header_row ? label(range.at(0, range_column)) : "");
                 throw Error(row + ", " + column + " holds " + cell.describe() + reason);
             };
-            if (!cell.is_number()) fail("; counts must be numbers");
+            if (!cell.is_number()) fail(detail::text_among_counts_reason(cell));
             const double value = cell.as_number();
             if (!std::isfinite(value)) fail("; counts must be ordinary numbers");
             if (value < 0) fail("; counts cannot be negative");

@@ -658,6 +658,27 @@ void doubt_repeated_labels(const BodySide& side, const std::vector<char>& total,
 
 }  // namespace
 
+std::string text_among_counts_reason(const Cell& cell) {
+    const std::string_view text = cell.is_text() ? trimmed_label(cell.as_text()) : std::string_view();
+    if (text == "-" || text == "–" || text == "—")
+        return ", which a report may use for zero; counts must be numbers: leave the cell blank (read as 0) or "
+               "enter 0";
+    // Digits, with a sign, separators of thousands and decimals (, . ' and spaces) or a percent sign.
+    std::size_t digits = 0, other = 0;
+    for (std::size_t k = 0; k < text.size(); ++k) {
+        const char c = text[k];
+        if (c >= '0' && c <= '9')
+            ++digits;
+        else if (!(c == ',' || c == '.' || c == '\'' || c == ' ' || (k == 0 && (c == '+' || c == '-')) ||
+                   (k + 1 == text.size() && c == '%')))
+            ++other;
+    }
+    if (digits > 0 && other == 0)
+        return ", a number stored as text (as imported or pasted data often is); counts must be numbers: enter it "
+               "again as a number, or convert those cells to numbers";
+    return "; counts must be numbers";
+}
+
 bool names_a_missing_value(std::string_view label) {
     static const char* const markers[] = {"n/a", "na", "n.a.", "n.a", "#n/a", "-", "--", "–", "—", "?", "??",
                                           "null", "nil", "nan", "missing", "(missing)", "(empty)", "(blank)",

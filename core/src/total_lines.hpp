@@ -10,6 +10,7 @@
 #include <string_view>
 #include <vector>
 
+#include "assoc/cell.hpp"
 #include "assoc/matrix.hpp"
 
 namespace assoc::detail {
@@ -40,6 +41,11 @@ bool names_a_count(std::string_view label);
 // "-", "?", "null", "NaN", "missing", and the "(empty)" or "(blank)" a summary of records shows for blank
 // cells. "N/A" may also mean "not applicable", an answer of its own: the messages say how to keep it.
 bool names_a_missing_value(std::string_view label);
+
+// What a refusal of a text among the counts adds after "… holds the text "…"": why counts must be
+// numbers, and what to do where the text is a number stored as text ("12", " 1,200 ") or a dash that
+// a report uses for zero.
+std::string text_among_counts_reason(const Cell& cell);
 
 // Whether two sums are the same amount, to 1e-9 relative (rounding of sums of non-whole counts):
 // how a total line, a subtotal or a stratum of totals is recognised. Inline: the searches for total

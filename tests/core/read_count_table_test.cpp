@@ -79,6 +79,20 @@ TEST(ReadCountTable, RejectsTextInTheBodyNamingTheCell) {
                  "row 3 (\"y\"), column 2 (\"A\") holds the text \"n/a\"; counts must be numbers");
 }
 
+// Imported data often holds numbers as texts, and reports a dash for zero: the refusal says which.
+TEST(ReadCountTable, RejectsANumberStoredAsTextSayingSo) {
+    expect_error([] { read_count_table(grid({{"", "A", "B"}, {"x", 1, 2}, {"y", " 1,200 ", 4}})); },
+                 "row 3 (\"y\"), column 2 (\"A\") holds the text \" 1,200 \", a number stored as text (as imported "
+                 "or pasted data often is); counts must be numbers: enter it again as a number, or convert those cells "
+                 "to numbers");
+}
+
+TEST(ReadCountTable, RejectsADashSayingThatZeroIsABlankOr0) {
+    expect_error([] { read_count_table(grid({{"", "A", "B"}, {"x", 1, 2}, {"y", "–", 4}})); },
+                 "row 3 (\"y\"), column 2 (\"A\") holds the text \"–\", which a report may use for zero; counts must "
+                 "be numbers: leave the cell blank (read as 0) or enter 0");
+}
+
 TEST(ReadCountTable, RejectsNegativeCountsNamingTheCell) {
     expect_error([] { read_count_table(grid({{1, 2}, {3, -4}})); },
                  "row 2, column 2 holds the number -4; counts cannot be negative");
