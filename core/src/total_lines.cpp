@@ -634,6 +634,30 @@ void doubt_missing_labels(const Lines& lines, const BodySide& side, const std::v
     }
 }
 
+// A line without a label among labelled ones (a row numbering the columns under the header, a note's
+// figures): the lines' labels name their groups, so one without is doubted, not taken for a group.
+void doubt_unlabelled_lines(const Lines& lines, const BodySide& side, const std::vector<char>& total,
+                            std::vector<std::string>& doubts) {
+    if (!side.labelled) return;
+    std::vector<std::size_t> numbers;
+    std::size_t labelled = 0;
+    for (std::size_t i = 0; i < lines.count(); ++i) {
+        if (total[i] || lines.empty(i)) continue;
+        if ((*side.labels)[i].empty())
+            numbers.push_back(side.first_number + i);
+        else
+            ++labelled;
+    }
+    if (numbers.empty() || labelled < 2) return;
+    const bool one = numbers.size() == 1;
+    doubts.push_back(capitalised(numbered_lines(side.word, numbers)) + (one ? " has" : " have") + " no label, unlike the "
+                     "other " + side.word + "s, and " + (one ? "was" : "were") + " tested as " +
+                     (one ? "a group" : "groups") + "; if " + (one ? "it numbers" : "they number") + " the " +
+                     side.other_word + "s or " + (one ? "holds" : "hold") + " something other than counts, leave " +
+                     (one ? "it" : "them") + " out of the range, and if " + (one ? "it is a group" : "they are groups") +
+                     ", label " + (one ? "it" : "them") + ".");
+}
+
 // Two lines with the same label: a line copied twice, or one group split in two by mistake.
 void doubt_repeated_labels(const BodySide& side, const std::vector<char>& total, std::vector<std::string>& doubts) {
     if (!side.labelled) return;
@@ -728,6 +752,8 @@ TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const Body
     find_subtotals(Lines{body, false}, columns, totals.columns, totals.rows, totals.doubts, workspace);
     doubt_count_labels(rows, totals.rows, totals.doubts);
     doubt_count_labels(columns, totals.columns, totals.doubts);
+    doubt_unlabelled_lines(Lines{body, true}, rows, totals.rows, totals.doubts);
+    doubt_unlabelled_lines(Lines{body, false}, columns, totals.columns, totals.doubts);
     doubt_missing_labels(Lines{body, true}, rows, totals.rows, totals.doubts);
     doubt_missing_labels(Lines{body, false}, columns, totals.columns, totals.doubts);
     if (counts_only) {

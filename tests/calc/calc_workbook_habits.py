@@ -153,6 +153,20 @@ class LinesThatHoldNoCounts(HabitCase):
         text = self.words("H1", f"=ASSOC.CHECK({table})")
         self.assertTrue(text.startswith('Doubtful: The column "(empty)" is labelled as a missing value'), text)
 
+    def test_a_row_numbering_the_columns_under_the_header_makes_the_table_doubtful(self):
+        table = self.put([["Dept", "Yes", "No"], [None, 1, 2], ["Sales", 12, 30], ["Legal", 8, 25]])
+        text = self.words("H1", f"=ASSOC.CHECK({table})")
+        self.assertTrue(text.startswith("Doubtful: Row 2 has no label, unlike the other rows"), text)
+
+    def test_a_number_stored_as_text_is_refused_saying_so(self):
+        table = self.put([["Dept", "Yes", "No"], ["Sales", "12", 30], ["Legal", 8, 25]])
+        self.refused(f"=ASSOC.PVALUE({table})", f"=ASSOC.CHECK({table})", "a number stored as text")
+
+    def test_a_part_line_under_the_line_it_breaks_down_is_refused(self):
+        table = self.put([["Dept", "Yes", "No"], ["Sales", 12, 30], ["of which managers", 3, 8], ["Legal", 8, 25]])
+        self.refused(f"=ASSOC.PVALUE({table})", f"=ASSOC.CHECK({table})",
+                     'the row "of which managers" reads as a part of what the rows before it count')
+
     def test_amounts_of_money_make_the_table_doubtful(self):
         table = self.put([["Region", "Salary (EUR)", "Bonus (EUR)"], ["North", 412000, 38000],
                           ["South", 398000, 41000]])

@@ -531,3 +531,20 @@ TEST(PartLines, AreNotWordsThatOnlyBeginTheSame) {
     EXPECT_TRUE(read.doubts().empty());
 }
 
+// A row numbering the columns under the header (1, 2) was tested as a group of people.
+TEST(UnlabelledLines, AmongLabelledOnesAreDoubted) {
+    const CountTable read =
+        read_count_table(grid({{"Dept", "Yes", "No"}, {"", 1, 2}, {"Sales", 12, 30}, {"Legal", 8, 25}}));
+    EXPECT_EQ(read.rows(), 3u);
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "Row 2 has no label, unlike the other rows, and was tested as a group; if it numbers the "
+                                "columns or holds something other than counts, leave it out of the range, and if it is "
+                                "a group, label it.");
+}
+
+TEST(UnlabelledLines, WithoutCountsAreOnlySetAside) {
+    const CountTable read =
+        read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 12, 30}, {"", "", ""}, {"Legal", 8, 25}}));
+    EXPECT_TRUE(read.doubts().empty());
+}
+
