@@ -490,16 +490,17 @@ bool lies_within_at_an_end(const Lines& lines, std::size_t line, const std::vect
 // Whether `line` holds, at every position, the percentage that another line makes of all the lines
 // (totals and `line` left out), rounded to a whole number: a rate worked out beside its counts.
 bool holds_a_percentage_of_another(const Lines& lines, std::size_t line, const std::vector<char>& total) {
+    std::vector<double> sums(lines.length(), 0.0);
+    for (std::size_t k = 0; k < lines.length(); ++k)
+        for (std::size_t i = 0; i < lines.count(); ++i)
+            if (i != line && !total[i]) sums[k] += lines.at(i, k);
     for (std::size_t j = 0; j < lines.count(); ++j) {
         if (j == line || total[j]) continue;
         bool all = true, any = false;
         for (std::size_t k = 0; k < lines.length() && all; ++k) {
-            double sum = 0;
-            for (std::size_t i = 0; i < lines.count(); ++i)
-                if (i != line && !total[i]) sum += lines.at(i, k);
-            if (sum <= 0) continue;
+            if (sums[k] <= 0) continue;
             any = true;
-            all = std::abs(lines.at(line, k) - 100 * lines.at(j, k) / sum) <= 0.5 + 1e-9;
+            all = std::abs(lines.at(line, k) - 100 * lines.at(j, k) / sums[k]) <= 0.5 + 1e-9;
         }
         if (all && any) return true;
     }
