@@ -8,10 +8,10 @@
 #include <limits>
 #include <optional>
 #include <string>
-#include <utility>
-#include <vector>
 #include <string_view>
 #include <unordered_map>
+#include <utility>
+#include <vector>
 
 #include "assoc/cell.hpp"
 #include "assoc/error.hpp"
@@ -87,12 +87,18 @@ const char* const count_beginnings[] = {"number of ", "count of ",  "no. of ", "
                                         "nombre de ", "número de ", "numero de ", "numero di ", "aantal ",
                                         "antal ",     "liczba "};
 
+// Whether `word` is one of `list`.
+template <std::size_t N>
+bool listed(std::string_view word, const char* const (&list)[N]) {
+    return std::any_of(std::begin(list), std::end(list), [&](const char* w) { return word == w; });
+}
+
 bool begins_with(const std::string& text, std::string_view start) {
     return text.size() >= start.size() && text.compare(0, start.size(), start) == 0;
 }
 
 bool names_a_count_folded(const std::string& text) {
-    return std::any_of(std::begin(count_words), std::end(count_words), [&](const char* w) { return text == w; }) ||
+    return listed(text, count_words) ||
            std::any_of(std::begin(count_beginnings), std::end(count_beginnings),
                        [&](const char* b) { return begins_with(text, b); });
 }
@@ -102,7 +108,7 @@ bool names_a_count_folded(const std::string& text) {
 bool names_the_whole_group(std::string_view label) {
     const std::string text = folded_total_label(label);
     if (text == "company" || names_a_count_folded(text)) return true;
-    return std::any_of(std::begin(people_words), std::end(people_words), [&](const char* w) { return text == w; }) ||
+    return listed(text, people_words) ||
            std::any_of(std::begin(whole_group_beginnings), std::end(whole_group_beginnings),
                        [&](const char* b) { return begins_with(text, b); });
 }
@@ -307,11 +313,6 @@ std::vector<std::string_view> label_words(const std::string& text) {
     return words;
 }
 
-template <std::size_t N>
-bool listed(std::string_view word, const char* const (&list)[N]) {
-    return std::any_of(std::begin(list), std::end(list), [&](const char* w) { return word == w; });
-}
-
 // Lines that are no counts by their label: a percentage, an average or a rate ("% promoted", "Average",
 // "Promotion rate") holding a number that is not whole. Refused: such a line cannot be set aside as a
 // total can, since the author may have meant something else by it.
@@ -329,22 +330,11 @@ bool names_a_summary(std::string_view label) {
 // A label that says its numbers are percentages: a "%" that follows no digit ("% promoted", "Yes (%)";
 // "0-2%" names a band of pay rises) or the word itself.
 bool names_percentages(std::string_view label) {
+    static const char* const words[] = {"%",           "percent",   "percentage", "pct",    "prozent",
+                                        "pourcentage", "porcentaje", "percentuale", "procent"};
     const std::string text = folded_label(label);
-    for (std::size_t k = 0; k < text.size(); ++k) {
-        if (text[k] != '%') continue;
-        std::size_t before = k;
-        while (before > 0 && text[before - 1] == ' ') --before;
-        if (before == 0 || !(text[before - 1] >= '0' && text[before - 1] <= '9')) return true;
-    }
-    for (const char* word : {"percent", "percentage", "pct", "prozent", "pourcentage", "porcentaje", "percentuale", "procent"}) {
-        const std::string_view w(word);
-        for (std::size_t at = text.find(w); at != std::string::npos; at = text.find(w, at + 1)) {
-            const auto letter = [](char c) { return (c >= 'a' && c <= 'z') || static_cast<unsigned char>(c) >= 0x80; };
-            if ((at == 0 || !letter(text[at - 1])) && (at + w.size() == text.size() || !letter(text[at + w.size()])))
-                return true;
-        }
-    }
-    return false;
+    const std::vector<std::string_view> found = label_words(text);
+    return std::any_of(found.begin(), found.end(), [&](std::string_view word) { return listed(word, words); });
 }
 
 void refuse_summaries(const Lines& lines, const BodySide& side, const std::vector<char>& total) {
@@ -422,7 +412,8 @@ const char* const cumulative_words[] = {"cumulative", "cumul", "cumulé", "cumul
 // with a word of the second list a category ("Salary band A", "Flexible hours", "Within cost"):
 // neither is an amount. Not "pay" or "payment", which name outcomes as often ("Late payment").
 const char* const amount_words[] = {"amount", "amounts", "salary", "salaries", "wage", "wages", "earnings",
-                                    "revenue", "revenues", "cost", "costs", "spend", "spending", "hours", "hrs", "eur", "usd", "gbp", "chf", "€", "$", "£", "¥", "betrag",
+                                    "revenue", "revenues", "cost", "costs", "spend", "spending", "hours", "hrs",
+                                    "eur", "usd", "gbp", "chf", "€", "$", "£", "¥", "betrag",
                                     "gehalt", "lohn", "kosten", "umsatz", "stunden", "montant", "salaire",
                                     "salaires", "heures", "importe", "salario", "horas", "bedrag", "salaris",
                                     "uren"};
@@ -710,7 +701,7 @@ bool names_a_missing_value(std::string_view label) {
                                           "empty", "blank", "(leer)", "leer", "(vide)", "vide", "(vacío)",
                                           "(vacio)", "(vuoto)", "(leeg)"};
     const std::string text = folded_label(label);
-    return std::any_of(std::begin(markers), std::end(markers), [&](const char* m) { return text == m; });
+    return listed(text, markers);
 }
 
 bool is_total_label(std::string_view label) {
