@@ -28,10 +28,19 @@ void check_df(double df) {
         throw Error("the degrees of freedom must be at most " + format_count(max_df) + ", not " + format_number(df));
 }
 
+// ln of e^-y y^a / Γ(a), the prefix of Legendre's continued fraction for Q(a, y). For a of 1 or more
+// it is written as a·(ln(1 + t) − t) − s(a) + ln a with t = (y − a)/a, so that nothing large cancels;
+// below 1 nothing large cancels in the plain form, and t would overflow for a tiny a (a degrees of
+// freedom of 1e-307 gave NaN).
+double log_gamma_prefix(double a, double y) {
+    if (a < 1) return -y + a * std::log(y) - boost::math::lgamma(a, detail::Policy());
+    const double t = (y - a) / a;
+    return a * boost::math::log1pmx(t, detail::Policy()) - detail::stirling_part(a) + std::log(a);
+}
+
 // ln Q(a, y), the regularised upper incomplete gamma function, for y > a + 1, where Q may be far
-// below the smallest double: ln of the prefix e^-y y^a / Γ(a), written as a·(ln(1 + t) − t) − s(a) +
-// ln a with t = (y − a)/a so that nothing large cancels, plus ln of Legendre's continued fraction
-// (modified Lentz), which converges in a few dozen terms this far out.
+// below the smallest double: ln of the prefix (log_gamma_prefix) plus ln of Legendre's continued
+// fraction (modified Lentz), which converges in a few dozen terms this far out.
 double log_upper_gamma(double a, double y) {
     const double tiny = 1e-300;
     double b = y + 1 - a, c = 1 / tiny, d = 1 / b, h = d;
@@ -47,9 +56,7 @@ double log_upper_gamma(double a, double y) {
         h *= step;
         if (std::fabs(step - 1) < 1e-17) break;
     }
-    const double t = (y - a) / a;
-    const double prefix = a * boost::math::log1pmx(t, detail::Policy()) - detail::stirling_part(a) + std::log(a);
-    return prefix + std::log(h);
+    return log_gamma_prefix(a, y) + std::log(h);
 }
 
 // The critical value for an alpha below the smallest normal double (2.2e-308, reachable only by
@@ -61,8 +68,7 @@ double critical_value_far_out(double df, double alpha) {
     for (int i = 0; i < 100; ++i) {
         const double y = x / 2;
         const double log_q = log_upper_gamma(a, y);
-        const double t = (y - a) / a;
-        const double log_h = log_q - (a * boost::math::log1pmx(t, detail::Policy()) - detail::stirling_part(a) + std::log(a));
+        const double log_h = log_q - log_gamma_prefix(a, y);
         const double step = (log_q - log_alpha) * 2 * y * std::exp(log_h);
         x += step;
         if (std::fabs(step) <= 1e-16 * x) break;

@@ -44,6 +44,14 @@ TEST(ChiSquaredCriticalValue, IsFiniteForAnAlphaFarOutInTheTail) {
     EXPECT_NEAR_REL(chi_squared_p_value(c, 1), 1e-300, 1e-12);
 }
 
+TEST(ChiSquaredCriticalValue, MatchesMpmathForAnAlphaBelowTheSmallestNormalDoubleAndTinyDegreesOfFreedom) {
+    // mpmath 1.3.0 findroot of ln Q(df/2, c/2) = ln alpha at 50 digits. A fuzz finding: df 2^-1019
+    // with alpha 2^-1074 gave NaN (the prefix's t = (y - a)/a overflowed for a tiny a).
+    EXPECT_NEAR_REL(chi_squared_critical_value(0x1p-1019, 0x1p-1074), 67.757694249064906, 1e-12);
+    EXPECT_NEAR_REL(chi_squared_critical_value(1e-300, 1e-310), 38.646331256371537, 1e-12);
+    EXPECT_NEAR_REL(chi_squared_critical_value(0.01, 1e-310), 1403.9667449156242, 1e-12);
+}
+
 TEST(ChiSquaredPValue, MatchesMpmathForOrdinaryAndLargeDegreesOfFreedom) {
     // mpmath 1.2.1 gammainc at 60 digits. Boost's own error grows with df: about 2e-13 at
     // df 1e8 and 2e-12 at df 1e10 (still within what the rounding of df and x permits),
