@@ -89,9 +89,14 @@ RateInterval wilson_interval(double count, double total, double confidence) {
 RowRates row_rates(const CellGrid& range, double confidence) {
     detail::check_confidence(confidence);
     const CountTable table = read_rate_table(range);
-    require(table.body_columns() >= 2,
-            "rates need at least 2 columns of counts (column 1 the outcome of interest, the others the rest); this "
-            "range has 1");
+    // Columns set aside as totals are not the rest: "Promoted | Total" holds one column of counts.
+    std::size_t totals = 0;
+    for (const SetAside& aside : table.set_aside_columns())
+        if (aside.why == SetAside::Why::total) ++totals;
+    if (table.body_columns() - totals < 2)
+        throw Error("rates need at least 2 columns of counts (column 1 the outcome of interest, the others the "
+                    "rest); this range has 1" + std::string(totals == 0 ? "" : totals == 1 ? " besides a total" :
+                                                                                " besides its totals"));
     require(!table.kept_rows().empty(), "no row of the table has counts, so there is no rate to compute");
     const Matrix body = table.to_body_shape(table.counts());
     const std::vector<std::string> names = detail::body_row_names(table);

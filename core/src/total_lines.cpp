@@ -75,6 +75,10 @@ const char* const count_words[] = {
     // German, French, Spanish, Portuguese, Italian, Dutch, Scandinavian and Polish
     "anzahl", "fallzahl", "effectif", "effectifs", "nombre", "nb", "número", "numero", "cantidad", "quantidade",
     "conteggio", "aantal", "antal", "antall", "liczba",
+    // The people considered for a selection, of whom the selected are a part ("Hired | Applicants")
+    "applicants", "applications", "candidates", "bewerber", "bewerbungen", "kandidaten", "candidats",
+    "candidatures", "candidatos", "candidaturas", "candidati", "sollicitanten", "kandydaci", "sökande",
+    "ansøgere",
 };
 
 const char* const people_words[] = {
@@ -613,6 +617,59 @@ void refuse_parts(const Lines& lines, const BodySide& side, const std::vector<ch
     }
 }
 
+// Whether a label names the whole group: as a total, a number of people, the people considered or
+// everyone of a unit ("Total", "N", "Applicants", "All staff", "Whole company", "Everyone"), which no
+// category of people is called. Not the words for people alone ("Staff", "Employees"), which also
+// name groups ("Managers | Staff"), nor "All …" followed by other words ("All of the time" answers).
+bool names_everyone(std::string_view label) {
+    static const char* const units[] = {"company", "firm",    "organisation", "organization", "departments",
+                                        "teams",   "groups",  "branches",     "offices",      "sites",
+                                        "regions", "units",   "divisions",    "locations",    "stores"};
+    if (label.empty()) return false;
+    if (is_total_label(label)) return true;
+    const std::string text = folded_total_label(label);
+    if (text == "company" || text == "everyone" || text == "everybody" || names_a_count_folded(text)) return true;
+    for (const char* beginning : {"all ", "overall ", "whole ", "entire "}) {
+        if (!begins_with(text, beginning)) continue;
+        const std::string rest = text.substr(std::strlen(beginning));
+        return listed(rest, people_words) || listed(rest, units) || names_a_count_folded(rest);
+    }
+    return false;
+}
+
+// A side of exactly two lines with counts, one of which names the whole group (names_everyone) and
+// holds at least as many as the other at every position (more at one at least): "Promoted | Total"
+// or "Hired | Applicants", as a sheet of rates is typed. Each person of the part is in the whole
+// too, so the test would compare the part with the whole instead of with the rest: refused.
+// Positions of the other side's labelled totals (`skip`) take no part; neither does a pair whose
+// lines both name the whole.
+void refuse_part_beside_whole(const Lines& lines, const BodySide& side, const std::vector<char>& skip) {
+    if (!side.labelled) return;
+    std::size_t with_counts[2], found = 0;
+    for (std::size_t i = 0; i < lines.count(); ++i) {
+        if (lines.empty(i)) continue;
+        if (found == 2) return;
+        with_counts[found++] = i;
+    }
+    if (found != 2) return;
+    const bool everyone[2] = {names_everyone((*side.labels)[with_counts[0]]),
+                              names_everyone((*side.labels)[with_counts[1]])};
+    if (everyone[0] == everyone[1]) return;
+    const std::size_t whole = with_counts[everyone[0] ? 0 : 1], part = with_counts[everyone[0] ? 1 : 0];
+    bool larger = false;
+    for (std::size_t k = 0; k < lines.length(); ++k) {
+        if (skip[k]) continue;
+        if (lines.at(part, k) > lines.at(whole, k)) return;
+        larger = larger || lines.at(part, k) < lines.at(whole, k);
+    }
+    if (!larger) return;
+    throw Error(line_name(side, whole) + " names the whole group and holds at least as many as " + line_name(side, part) +
+                " in every " + side.other_word + ", so it reads as everyone, of whom " + line_name(side, part) +
+                " is a part: its people would be counted twice, and the test would compare a part with the whole "
+                "instead of with the rest; replace it with the rest, its counts minus those of " +
+                line_name(side, part) + " (a table of counts holds each person once)");
+}
+
 // Lines labelled as a missing value ("n/a", "(empty)"): people without an answer, tested as a group.
 // An empty line so labelled (a spacer "-") is set aside with the other empty lines.
 void doubt_missing_labels(const Lines& lines, const BodySide& side, const std::vector<char>& total,
@@ -733,6 +790,8 @@ TotalLines find_total_lines(const Matrix& body, const BodySide& rows, const Body
         refuse_summaries(Lines{body, false}, columns, totals.columns);
         refuse_parts(Lines{body, true}, rows, totals.rows, totals.doubts);
         refuse_parts(Lines{body, false}, columns, totals.columns, totals.doubts);
+        refuse_part_beside_whole(Lines{body, true}, rows, totals.columns);
+        refuse_part_beside_whole(Lines{body, false}, columns, totals.rows);
     }
     Workspace workspace;
     const std::size_t longest = std::max(body.rows(), body.columns());

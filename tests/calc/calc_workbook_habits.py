@@ -167,6 +167,14 @@ class LinesThatHoldNoCounts(HabitCase):
         self.refused(f"=ASSOC.PVALUE({table})", f"=ASSOC.CHECK({table})",
                      'the row "of which managers" reads as a part of what the rows before it count')
 
+    def test_a_count_beside_the_whole_group_it_is_part_of_is_refused(self):
+        # Invented: hires beside applicants, as typed for selection rates.
+        table = self.put([["Office", "Hired", "Applicants"], ["North", 10, 50], ["South", 12, 40]])
+        self.refused(f"=ASSOC.PVALUE({table})", f"=ASSOC.CHECK({table})",
+                     'the column "Applicants" names the whole group and holds at least as many as the column "Hired"')
+        self.refused(f"=ASSOC.RATES({table})", f'=ASSOC.CHECK({table}; "rates")',
+                     'replace it with the rest, its counts minus those of the column "Hired"')
+
     def test_amounts_of_money_make_the_table_doubtful(self):
         table = self.put([["Region", "Salary (EUR)", "Bonus (EUR)"], ["North", 412000, 38000],
                           ["South", 398000, 41000]])

@@ -199,6 +199,19 @@ TEST(RowRates, RejectsASingleColumnOfCounts) {
                  "this range has 1");
 }
 
+TEST(RowRates, RejectsOneColumnOfCountsBesideATotal) {
+    // Invented: everyone promoted in both groups, so "Total" holds the sum and is set aside; the
+    // one column left has no rest to compare with.
+    expect_error([] { row_rates(grid({{"", "Promoted", "Total"}, {"A", 10, 10}, {"B", 12, 12}})); },
+                 "rates need at least 2 columns of counts (column 1 the outcome of interest, the others the rest); "
+                 "this range has 1 besides a total");
+}
+
+TEST(RowRates, RejectsAnOutcomeBesideTheGroupSizes) {
+    // Invented: "Promoted | Total" typed for rates, the total not being the sum of the one column.
+    EXPECT_THROW(row_rates(grid({{"", "Promoted", "Total"}, {"A", 10, 50}, {"B", 12, 40}})), Error);
+}
+
 TEST(RowRates, RejectsATableWithoutCounts) {
     expect_error([] { row_rates(grid({{0, 0}, {0, nullptr}})); },
                  "no row of the table has counts, so there is no rate to compute");

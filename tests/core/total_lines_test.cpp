@@ -548,3 +548,49 @@ TEST(UnlabelledLines, WithoutCountsAreOnlySetAside) {
     EXPECT_TRUE(read.doubts().empty());
 }
 
+
+// Invented: the number hired beside the number of applicants, as a sheet of selection rates has them;
+// read as a table of counts it would count each person hired twice.
+TEST(PartBesideWhole, IsRefusedWhenOneOfTwoColumnsNamesTheWholeGroupAndHoldsMore) {
+    expect_error([] { read_count_table(grid({{"Office", "Hired", "Applicants"}, {"North", 10, 50}, {"South", 12, 40}})); },
+                 "the column \"Applicants\" names the whole group and holds at least as many as the column \"Hired\" "
+                 "in every row, so it reads as everyone, of whom the column \"Hired\" is a part: its people would be "
+                 "counted twice, and the test would compare a part with the whole instead of with the rest; replace it "
+                 "with the rest, its counts minus those of the column \"Hired\" (a table of counts holds each person "
+                 "once)");
+}
+
+TEST(PartBesideWhole, IsRefusedForRowsAndForTotalsCountsAndEveryoneToo) {
+    for (const char* whole : {"Total", "N", "Headcount", "All staff", "Whole company", "Candidates", "Everyone"}) {
+        EXPECT_THROW(read_count_table(grid({{"", "North", "South", "East"}, {"Promoted", 4, 6, 3}, {whole, 20, 31, 9}})),
+                     Error)
+            << whole;
+    }
+}
+
+TEST(PartBesideWhole, IsRefusedWhatEverTheOtherSidesTotalHolds) {
+    // The "Total" row is set aside and takes no part in the comparison.
+    EXPECT_THROW(read_count_table(grid({{"", "Hired", "Applicants"}, {"North", 10, 50}, {"South", 12, 40}, {"Total", 22, 9}})),
+                 Error);
+}
+
+TEST(PartBesideWhole, KeepsAnAnswerThatBeginsWithAll) {
+    // A survey scale ("All of the time | Some of the time") is not everyone beside a part.
+    const CountTable read = read_count_table(
+        grid({{"", "All of the time", "Some of the time"}, {"Sales", 20, 5}, {"Legal", 14, 9}}));
+    EXPECT_EQ(read.columns(), 2u);
+    EXPECT_TRUE(read.doubts().empty());
+}
+
+TEST(PartBesideWhole, KeepsAWholeGroupLabelThatIsSmallerSomewhere) {
+    // "N" smaller than "Yes" in one row cannot hold everyone of that row; doubted as a count label.
+    const CountTable read = read_count_table(grid({{"", "Yes", "N"}, {"Sales", 10, 50}, {"Legal", 40, 12}}));
+    EXPECT_EQ(read.columns(), 2u);
+    EXPECT_EQ(read.doubts().size(), 1u);
+}
+
+TEST(PartBesideWhole, KeepsAGroupNamedByAWordForPeople) {
+    const CountTable read = read_count_table(grid({{"", "Managers", "Staff"}, {"Promoted", 4, 26}, {"Not promoted", 6, 39}}));
+    EXPECT_EQ(read.columns(), 2u);
+    EXPECT_TRUE(read.doubts().empty());
+}
