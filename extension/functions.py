@@ -396,7 +396,11 @@ FUNCTIONS = [
         ["The degrees of freedom are the categories − 1 − estimated. A category expected to have no counts "
          "must have none, and is then left out. Expected values under a label that speaks of percentages "
          "(\"Plan %\") must add up to 100 (within 1, for rounding): otherwise a category is missing or a value "
-         "mistyped, and they are an error rather than rescaled."],
+         "mistyped, and they are an error rather than rescaled.",
+         "When both ranges name their categories (a column of labels beside each, every label different), the "
+         "expected values are matched to the observed categories by label, whatever their order (spaces at the "
+         "ends and capitals aside); labels that differ are an error that names them. Otherwise the values are "
+         "taken in order."],
         "=ASSOC.FIT(B2:B5; C2:C5)"),
     Function(
         "ASSOC.POWER", "power",

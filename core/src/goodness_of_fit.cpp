@@ -1,5 +1,6 @@
 #include "assoc/goodness_of_fit.hpp"
 
+#include <algorithm>
 #include <cctype>
 #include <cmath>
 #include <string>
@@ -17,9 +18,15 @@ namespace {
 
 std::string values_phrase(std::size_t n) { return std::to_string(n) + (n == 1 ? " value" : " values"); }
 
+// One row or one column of numbers, with the labels of its categories when every category has one.
+struct Line {
+    std::vector<double> values;
+    std::vector<std::string> labels;  // one per value, or none
+};
+
 // One row or one column of numbers, with the labels a table may have; zeros are kept in place.
 // `counts_only`: percentages and shares are refused (observed counts), or allowed (expected shares).
-std::vector<double> read_line(const CellGrid& range, bool counts_only) {
+Line read_line(const CellGrid& range, bool counts_only) {
     ReadOptions options;
     options.require_two_by_two = false;
     options.counts_only = counts_only;
@@ -29,7 +36,59 @@ std::vector<double> read_line(const CellGrid& range, bool counts_only) {
     require(counts.rows() == 1 || counts.columns() == 1,
             "select one row or one column of numbers; this range has " + std::to_string(counts.rows()) +
                 " rows and " + std::to_string(counts.columns()) + " columns of numbers");
-    return counts.values();
+    Line line;
+    line.values = counts.values();
+    // The categories run along the line: a column's are named by the row labels, a row's by the
+    // column labels (a single header cell, "Observed", names the line, not a category).
+    const bool along_rows = counts.columns() == 1 && counts.rows() > 1;
+    const bool labelled = along_rows ? table.has_row_labels() : table.has_column_labels();
+    if (labelled && line.values.size() > 1) {
+        for (std::size_t i : along_rows ? table.category_rows() : table.category_columns()) {
+            const std::string& label = (along_rows ? table.body_row_labels() : table.body_column_labels())[i];
+            if (label.empty()) return Line{line.values, {}};
+            line.labels.push_back(label);
+        }
+    }
+    return line;
+}
+
+// When both ranges name their categories, the expected values are taken by label, not by place: a
+// plan typed in another order than the counts ("South, North, East" beside "North, South, East")
+// would otherwise be tested against the wrong categories. Labels that do not match are an error.
+std::vector<double> expected_by_label(const Line& observed, const Line& expected, std::vector<std::string>& remarks) {
+    if (observed.labels.empty() || expected.labels.empty()) return expected.values;
+    std::vector<std::string> observed_keys, expected_keys;
+    for (const std::string& label : observed.labels) observed_keys.push_back(folded_label(label));
+    for (const std::string& label : expected.labels) expected_keys.push_back(folded_label(label));
+    const auto repeats = [](std::vector<std::string> keys) {
+        std::sort(keys.begin(), keys.end());
+        return std::adjacent_find(keys.begin(), keys.end()) != keys.end();
+    };
+    if (repeats(observed_keys) || repeats(expected_keys)) return expected.values;
+    if (observed_keys == expected_keys) return expected.values;
+    std::vector<std::string> only_observed, only_expected;
+    std::vector<double> ordered;
+    for (std::size_t i = 0; i < observed_keys.size(); ++i) {
+        const auto at = std::find(expected_keys.begin(), expected_keys.end(), observed_keys[i]);
+        if (at == expected_keys.end())
+            only_observed.push_back(quoted_label(observed.labels[i]));
+        else
+            ordered.push_back(expected.values[static_cast<std::size_t>(at - expected_keys.begin())]);
+    }
+    for (std::size_t i = 0; i < expected_keys.size(); ++i)
+        if (std::find(observed_keys.begin(), observed_keys.end(), expected_keys[i]) == observed_keys.end())
+            only_expected.push_back(quoted_label(expected.labels[i]));
+    if (!only_observed.empty() || !only_expected.empty()) {
+        std::string found;
+        if (!only_observed.empty()) found += "; only in the observed range: " + name_list(only_observed, 6);
+        if (!only_expected.empty()) found += "; only in the expected range: " + name_list(only_expected, 6);
+        throw Error("the two ranges name different categories" + found +
+                    ". Give both the same labels (spaces at the ends and capitals aside), or leave the labels out of "
+                    "the expected range to take its values in the observed range's order");
+    }
+    remarks.push_back("The expected values were matched to the observed categories by their labels: the expected "
+                      "range lists them in another order.");
+    return ordered;
 }
 
 void check_values(const std::vector<double>& values, const char* what) {
@@ -129,18 +188,26 @@ void require_whole_percentages(const CellGrid& expected, const std::vector<doubl
 }  // namespace
 
 GoodnessOfFit goodness_of_fit(const CellGrid& observed, const CellGrid& expected, double estimated) {
-    const std::vector<double> observed_values = read_line(observed, true);
+    const Line observed_line = read_line(observed, true);
     std::vector<double> expected_values;
+    std::vector<std::string> remarks;
     if (!expected.empty()) {
+        Line expected_line;
         try {
-            expected_values = read_line(expected, false);
+            expected_line = read_line(expected, false);
         } catch (const Error& error) {
             // The reader's messages speak of counts; say which range they are about.
             throw Error(std::string("in the expected range: ") + error.what());
         }
-        require_whole_percentages(expected, expected_values);
+        require_whole_percentages(expected, expected_line.values);
+        if (expected_line.values.size() == observed_line.values.size())
+            expected_values = expected_by_label(observed_line, expected_line, remarks);
+        else
+            expected_values = expected_line.values;  // the count mismatch is said below
     }
-    return goodness_of_fit(observed_values, expected_values, estimated);
+    GoodnessOfFit result = goodness_of_fit(observed_line.values, expected_values, estimated);
+    result.remarks = std::move(remarks);
+    return result;
 }
 
 }  // namespace assoc

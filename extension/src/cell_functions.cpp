@@ -147,6 +147,7 @@ CellGrid celltest(const CellGrid& range, PAdjustment adjust) {
 
 std::vector<double> fit(const CellGrid& observed, const CellGrid& expected, double estimated) {
     const GoodnessOfFit result = goodness_of_fit(observed, expected, estimated);
+    for (const std::string& sentence : result.remarks) remark(sentence);
     return {result.p_value, result.statistic, result.df};
 }
 

@@ -11,6 +11,7 @@ columns give the same table as the records counted from their exact ranges. Wher
 is named beside its check (scipy 1.10.1 or exact arithmetic). The guide's section "Workbook habits"
 describes each case; CTest runs this file as calc.workbook_habits.
 """
+import math
 import unittest
 
 from calc_support import ERR_ILLEGAL_ARGUMENT, CalcTestCase, address, run_harness, session
@@ -174,6 +175,15 @@ class LinesThatHoldNoCounts(HabitCase):
                      'the column "Applicants" names the whole group and holds at least as many as the column "Hired"')
         self.refused(f"=ASSOC.RATES({table})", f'=ASSOC.CHECK({table}; "rates")',
                      'replace it with the rest, its counts minus those of the column "Hired"')
+
+    def test_a_plan_typed_in_another_order_is_matched_to_the_counts_by_label(self):
+        # Invented: staff by region against a plan listing the regions in another order. By label,
+        # X² = 0 + 25/50 + 25/20 = 1.75 on 2 degrees of freedom, p = exp(-1.75/2) (exact identity).
+        observed = self.put([["Region", "Staff"], ["North", 30], ["South", 45], ["East", 25]])
+        plan = self.put([["Region", "Plan"], ["South", 50], ["North", 30], ["East", 20]], column=3)
+        self.assertAlmostEqual(self.number("H1", f"=ASSOC.FIT({observed}; {plan})"), math.exp(-0.875), places=12)
+        plan = self.put([["Region", "Plan"], ["South", 50], ["North", 30], ["West", 20]], column=3)
+        self.assertEqual(self.formula("H1", f"=ASSOC.FIT({observed}; {plan})").getError(), ERR_ILLEGAL_ARGUMENT)
 
     def test_amounts_of_money_make_the_table_doubtful(self):
         table = self.put([["Region", "Salary (EUR)", "Bonus (EUR)"], ["North", 412000, 38000],

@@ -136,3 +136,35 @@ TEST(GoodnessOfFit, TakesRoundedPercentagesAndUnlabelledValuesInAnyUnit) {
     const GoodnessOfFit plain = goodness_of_fit(grid({{30}, {20}, {50}}), grid({{30}, {30}, {30}}));
     EXPECT_EQ(rounded.p_value, plain.p_value);  // exact identity: equal shares in any unit
 }
+
+// Invented: staff by region against a plan typed in another order. Matched by label, the terms are
+// (30-30)²/30 + (45-50)²/50 + (25-20)²/20 = 1.75 with 2 degrees of freedom, whose p-value is
+// exp(-1.75/2) (exact identity: chi-squared(2) is the exponential with mean 2).
+TEST(GoodnessOfFit, MatchesTheExpectedValuesToTheObservedCategoriesByLabel) {
+    const GoodnessOfFit fit =
+        goodness_of_fit(grid({{"Region", "Staff"}, {"North", 30}, {"South", 45}, {"East", 25}}),
+                        grid({{"Region", "Plan"}, {"south ", 50}, {"North", 30}, {"East", 20}}));
+    EXPECT_NEAR_REL(fit.statistic, 1.75, 1e-15);
+    EXPECT_NEAR_REL(fit.p_value, std::exp(-0.875), 1e-14);
+    ASSERT_EQ(fit.remarks.size(), 1u);
+    EXPECT_EQ(fit.remarks[0], "The expected values were matched to the observed categories by their labels: the "
+                              "expected range lists them in another order.");
+}
+
+TEST(GoodnessOfFit, TakesTheExpectedValuesInPlaceWhenOnlyOneRangeNamesTheCategories) {
+    const GoodnessOfFit fit =
+        goodness_of_fit(grid({{"Region", "Staff"}, {"North", 30}, {"South", 45}, {"East", 25}}), grid({{"Plan"}, {50}, {30}, {20}}));
+    // (30-50)²/50 + (45-30)²/30 + (25-20)²/20 = 8 + 7.5 + 1.25.
+    EXPECT_NEAR_REL(fit.statistic, 16.75, 1e-15);
+    EXPECT_TRUE(fit.remarks.empty());
+}
+
+TEST(GoodnessOfFit, RefusesRangesThatNameDifferentCategories) {
+    expect_error([] {
+        goodness_of_fit(grid({{"Region", "Staff"}, {"North", 30}, {"South", 45}, {"East", 25}}),
+                        grid({{"Region", "Plan"}, {"North", 30}, {"South", 50}, {"West", 20}}));
+    },
+                 "the two ranges name different categories; only in the observed range: \"East\"; only in the expected "
+                 "range: \"West\". Give both the same labels (spaces at the ends and capitals aside), or leave the labels "
+                 "out of the expected range to take its values in the observed range's order");
+}

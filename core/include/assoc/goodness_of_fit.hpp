@@ -1,6 +1,7 @@
 #pragma once
 // Pearson's goodness-of-fit test: do the counts of one categorical variable follow given shares?
 #include <cstddef>
+#include <string>
 #include <vector>
 
 #include "assoc/cell.hpp"
@@ -14,6 +15,7 @@ struct GoodnessOfFit {
     std::vector<double> observed;     // as read, one per category
     std::vector<double> expected;     // rescaled to the observed total, one per category
     std::size_t categories = 0;       // categories tested: those with an expected count above 0
+    std::vector<std::string> remarks; // how the ranges were read (expected values matched by label)
 };
 
 // The test on numbers. `expected` holds expected counts or shares in any unit (9, 3, 3, 1 or
@@ -27,7 +29,9 @@ GoodnessOfFit goodness_of_fit(const std::vector<double>& observed, const std::ve
 // it may carry labels the way a table does (see read_count_table): a text cell at its start
 // ("Observed"), or a row of labels above a row of counts, or a column of labels to the left of
 // a column of counts. Blanks count as 0. The two ranges need the same number of values but
-// not the same orientation. An empty `expected` grid means equal shares.
+// not the same orientation. When both name every category (distinct labels), the expected values are
+// matched to the observed categories by label, whatever their order; different labels are an error.
+// An empty `expected` grid means equal shares.
 GoodnessOfFit goodness_of_fit(const CellGrid& observed, const CellGrid& expected = {}, double estimated = 0);
 
 }  // namespace assoc
