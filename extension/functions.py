@@ -548,7 +548,11 @@ FUNCTIONS = [
         "row", "one row: the two-sided p-value and z; a plain entry shows the p-value",
         ["z is positive when the share of the first outcome (row 1 of a 2×k table, column 1 of a k×2 table) "
          "rises with the score. z² is the statistic with the variance based on n; Mantel's version with n − 1 "
-         "is smaller by the factor (n − 1)/n."],
+         "is smaller by the factor (n − 1)/n.",
+         "Without scores, categories whose labels name an order of their own, by their numbers (\"0-2 years\", "
+         "\"2-5 years\", \"10+ years\"; years before quarters) or as the steps of a common answer scale (\"Poor\", "
+         "\"Fair\", \"Good\"), must come in that order or its reverse: otherwise the table is an error that "
+         "names both orders."],
         "=ASSOC.TREND(A1:F3; A5:E5)"),
     Function(
         "ASSOC.IMPACT", "impact",
@@ -758,7 +762,10 @@ ORDERED_FUNCTIONS = [
          "too many, and scores that do not rise (or fall) steadily are errors.",
          "For a table of 2 rows, M² = (n − 1)/n × z² of ASSOC.TREND with the same column scores (ASSOC.TREND's "
          "variance uses n, Mantel's M² uses n − 1), and r has the sign opposite to z's when the row scores rise.",
-         "ASSOC.STRENGTH with \"gamma\" or \"taub\" gives the strength of such an association."],
+         "ASSOC.STRENGTH with \"gamma\" or \"taub\" gives the strength of such an association.",
+         "Rows or columns whose labels name an order of their own, by their numbers (\"Under 30\", \"30-39\", "
+         "\"40+\") or as the steps of a common answer scale (\"Never\" … \"Always\"), must come in that order or "
+         "its reverse: otherwise the table is an error that names both orders."],
         "=ASSOC.ORDINAL(A1:F6)"),
     Function(
         "ASSOC.WITHIN", "within",

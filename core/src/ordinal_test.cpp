@@ -9,6 +9,7 @@
 #include "assoc/expected_counts.hpp"
 #include "assoc/format.hpp"
 #include "assoc/validity.hpp"
+#include "category_order.hpp"
 #include "cell_line.hpp"
 
 namespace assoc {
@@ -122,6 +123,15 @@ OrdinalResult ordinal_test(const CountTable& table, const std::vector<double>& r
 
 OrdinalResult ordinal_test(const CellGrid& table, const CellGrid& row_scores, const CellGrid& column_scores) {
     const CountTable read = read_count_table(table);
+    // Each side is taken in the table's order (scores must rise or fall with it), which its labels
+    // must not contradict.
+    for (const bool rows : {true, false}) {
+        if (!(rows ? read.has_row_labels() : read.has_column_labels())) continue;
+        std::vector<std::string> labels;
+        for (std::size_t i : rows ? read.category_rows() : read.category_columns())
+            labels.push_back((rows ? read.body_row_labels() : read.body_column_labels())[i]);
+        if (auto why = detail::categories_out_of_order(labels, rows ? "row" : "column", nullptr)) throw Error(*why);
+    }
     OrdinalResult result = ordinal_test(read, read_scores(row_scores, "row"), read_scores(column_scores, "column"));
     result.remarks = table_notes(read);
     return result;

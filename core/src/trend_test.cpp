@@ -11,6 +11,7 @@
 #include "assoc/format.hpp"
 #include "assoc/validity.hpp"
 #include "boost_policy.hpp"
+#include "category_order.hpp"
 #include "cell_line.hpp"
 #include "extended_arithmetic.hpp"
 
@@ -113,6 +114,16 @@ TrendResult trend_test(const CellGrid& table, const CellGrid& scores) {
     options.require_two_by_two = false;  // a category nobody is in still has its score
     const CountTable read = read_count_table(table, options);
     const Matrix body = read.category_counts();  // every category keeps its place; totals are left out
+    if (scores.empty() && (body.rows() == 2 || body.columns() == 2)) {
+        // The categories run along the columns of a 2×k table (as trend_test(Matrix) decides).
+        const bool in_columns = body.rows() == 2;
+        std::vector<std::string> labels;
+        if (in_columns ? read.has_column_labels() : read.has_row_labels())
+            for (std::size_t i : in_columns ? read.category_columns() : read.category_rows())
+                labels.push_back((in_columns ? read.body_column_labels() : read.body_row_labels())[i]);
+        if (auto why = detail::categories_out_of_order(labels, in_columns ? "column" : "row", "scores"))
+            throw Error(*why);
+    }
     std::vector<double> score_values;
     if (!scores.empty()) {
         const detail::CellLine line(scores, "scores");

@@ -185,6 +185,12 @@ class LinesThatHoldNoCounts(HabitCase):
         plan = self.put([["Region", "Plan"], ["South", 50], ["North", 30], ["West", 20]], column=3)
         self.assertEqual(self.formula("H1", f"=ASSOC.FIT({observed}; {plan})").getError(), ERR_ILLEGAL_ARGUMENT)
 
+    def test_bands_typed_out_of_order_are_refused_for_a_trend(self):
+        table = self.put([["Service", "5-10 years", "0-2 years", "2-5 years", "10+ years"],
+                          ["Promoted", 12, 3, 5, 8], ["Not promoted", 10, 30, 25, 20]])
+        self.refused(f"=ASSOC.TREND({table})", f'=ASSOC.CHECK({table}; "trend")',
+                     'the columns\' labels name an order ("0-2 years", "2-5 years", "5-10 years" and "10+ years")')
+
     def test_amounts_of_money_make_the_table_doubtful(self):
         table = self.put([["Region", "Salary (EUR)", "Bonus (EUR)"], ["North", 412000, 38000],
                           ["South", 398000, 41000]])

@@ -144,3 +144,20 @@ TEST(OrdinalTest, RejectsScoresInABlock) {
     expect_error([] { ordinal_test(grid({{1, 2}, {3, 4}}), CellGrid(), grid({{1, 2}, {3, 4}})); },
                  "the column scores must be a single row or a single column; the range has 2 rows and 2 columns");
 }
+
+// Invented: ratings by office, the answer scale typed out of order.
+TEST(OrdinalTest, RefusesAnAnswerScaleOutOfItsOrderWithoutScores) {
+    const CellGrid ratings = grid({{"", "Poor", "Good", "Fair", "Excellent"}, {"North", 5, 20, 10, 8}, {"South", 9, 12, 15, 3}});
+    expect_error([&] { ordinal_test(ratings); },
+                 "the columns' labels name an order (\"Poor\", \"Fair\", \"Good\" and \"Excellent\") but the table "
+                 "has them in another (\"Poor\", \"Good\", \"Fair\" and \"Excellent\"), and the test follows the "
+                 "table's order, so it would follow an order nobody meant; put the columns in the order of their labels");
+    // Scores must rise or fall with the table's order, so they cannot mend it.
+    EXPECT_THROW(ordinal_test(ratings, CellGrid{}, grid({{1, 2, 3, 4}})), Error);
+}
+
+TEST(OrdinalTest, TakesAnAnswerScaleInItsOrder) {
+    EXPECT_NO_THROW(ordinal_test(grid({{"", "Never", "Sometimes", "Often", "Always"},
+                                       {"North", 5, 20, 10, 8},
+                                       {"South", 9, 12, 15, 3}})));
+}

@@ -131,3 +131,40 @@ TEST(TrendTest, RejectsATableWithOnlyOneOutcome) {
     expect_error([] { trend_test(grid({{4, 0}, {7, 0}, {2, 0}})); },
                  "every count is in the first outcome, so there is no share that could change");
 }
+
+// Invented: promotions by length of service, the bands typed out of order. Scored 1, 2, 3, 4 in the
+// table's order, the test would follow "5-10, 0-2, 2-5, 10+ years".
+TEST(TrendTest, RefusesBandsWhoseNumbersNameAnotherOrderThanTheTables) {
+    expect_error([] {
+        trend_test(grid({{"Service", "5-10 years", "0-2 years", "2-5 years", "10+ years"},
+                         {"Promoted", 12, 3, 5, 8},
+                         {"Not promoted", 10, 30, 25, 20}}));
+    },
+                 "the columns' labels name an order (\"0-2 years\", \"2-5 years\", \"5-10 years\" and \"10+ years\") "
+                 "but the table has them in another (\"5-10 years\", \"0-2 years\", \"2-5 years\" and \"10+ years\"), "
+                 "and without scores the columns are scored 1, 2, 3, … in the table's order, so the test would follow "
+                 "an order nobody meant; put the columns in the order of their labels, or give scores (one per "
+                 "column, in the table's order)");
+}
+
+TEST(TrendTest, TakesBandsInTheirOrderOrItsReverseAndOutOfOrderWithScores) {
+    const TrendResult rising = trend_test(grid({{"Age", "Under 30", "30-39", "40-49", "50+"},
+                                               {"Yes", 3, 5, 8, 12},
+                                               {"No", 30, 25, 20, 10}}));
+    const TrendResult falling = trend_test(grid({{"Age", "50+", "40-49", "30-39", "Under 30"},
+                                                {"Yes", 12, 8, 5, 3},
+                                                {"No", 10, 20, 25, 30}}));
+    // Exact identity: reversing the categories and their counts reverses the order, so z changes sign.
+    EXPECT_DOUBLE_EQ(rising.z, -falling.z);
+    const TrendResult scored = trend_test(grid({{"Age", "40-49", "Under 30", "30-39", "50+"},
+                                               {"Yes", 8, 3, 5, 12},
+                                               {"No", 20, 30, 25, 10}}),
+                                          grid({{45, 25, 35, 55}}));
+    EXPECT_GT(scored.z, 0);
+}
+
+TEST(TrendTest, ReadsYearsBeforeQuartersAndCodesAsNoOrder) {
+    // "Q4 2025" comes before "Q1 2026"; "A1, B2, C1" are codes whose numbers name no order.
+    EXPECT_NO_THROW(trend_test(grid({{"", "Q3 2025", "Q4 2025", "Q1 2026"}, {"Late", 4, 6, 9}, {"On time", 40, 38, 30}})));
+    EXPECT_NO_THROW(trend_test(grid({{"", "A1", "B2", "C1"}, {"Late", 4, 6, 9}, {"On time", 40, 38, 30}})));
+}
