@@ -95,6 +95,35 @@ std::string partial_overlap_remark(const std::vector<Cell>& rows, const std::vec
                     "ASSOC.COUNTS(B2:B81; C2:C81; ; H1:H5) with the labels listed in H1:H5.";
 }
 
+// A side whose every label names a single record (IDs, names, dates of each record) holds no
+// categories: each row (column) would be a group of one, and the test would say nothing about any
+// group. Refused from 5 records counted; weighted records may each stand for many people, and pass.
+void refuse_labels_of_one(const RecordCounts& counted) {
+    constexpr std::size_t fewest = 5;
+    if (counted.records - counted.skipped_blank < fewest) return;
+    const Matrix& counts = counted.counts;
+    for (const bool rows : {true, false}) {
+        const std::size_t lines = rows ? counts.rows() : counts.columns();
+        const std::size_t length = rows ? counts.columns() : counts.rows();
+        bool single = true;
+        for (std::size_t i = 0; i < lines && single; ++i) {
+            double sum = 0;
+            for (std::size_t k = 0; k < length; ++k) sum += rows ? counts(i, k) : counts(k, i);
+            single = sum <= 1;
+        }
+        if (!single) continue;
+        const std::vector<Cell>& levels = rows ? counted.row_levels : counted.column_levels;
+        std::vector<std::string> examples;
+        for (std::size_t i = 0; i < levels.size() && examples.size() < 2; ++i)
+            examples.push_back(quoted_label(level_text(levels[i])));
+        const char* side = rows ? "row" : "column";
+        throw Error(std::string("every record has a ") + side + " label of its own (" + examples[0] +
+                    (examples.size() > 1 ? ", " + examples[1] : std::string()) + ", …), as IDs, names or dates do, so each " + side + " would be a group of one and the test would "
+                    "say nothing about any group; count by a column that records share, such as a department or an "
+                    "outcome");
+    }
+}
+
 }  // namespace
 
 RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabels& column_labels,
@@ -191,6 +220,7 @@ RecordCounts counts_from_records(const CodedLabels& row_labels, const CodedLabel
     require(std::isfinite(result.total), "the weights add up to more than a spreadsheet number can hold");
     result.row_levels = row_index.listed(row_order, collation);
     result.column_levels = column_index.listed(column_order, collation);
+    if (!weighted) refuse_labels_of_one(result);
     result.remarks = span.remarks;
     for (std::string& remark : order_remarks) result.remarks.push_back(std::move(remark));
     for (std::string& remark : row_index.lookalike_remarks("row labels")) result.remarks.push_back(std::move(remark));

@@ -191,6 +191,12 @@ class LinesThatHoldNoCounts(HabitCase):
         self.refused(f"=ASSOC.TREND({table})", f'=ASSOC.CHECK({table}; "trend")',
                      'the columns\' labels name an order ("0-2 years", "2-5 years", "5-10 years" and "10+ years")')
 
+    def test_records_counted_by_a_column_of_ids_are_refused(self):
+        ids = self.put([["E101"], ["E102"], ["E103"], ["E104"], ["E105"], ["E106"]])
+        answers = self.put([["Yes"], ["No"], ["Yes"], ["No"], ["No"], ["Yes"]], column=1)
+        self.refused(f"=ASSOC.PVALUE(ASSOC.COUNTS({ids}; {answers}))", '=ASSOC.CHECK(A1:B6; "counts")',
+                     'every record has a row label of its own ("E101", "E102", …), as IDs, names or dates do')
+
     def test_amounts_of_money_make_the_table_doubtful(self):
         table = self.put([["Region", "Salary (EUR)", "Bonus (EUR)"], ["North", 412000, 38000],
                           ["South", 398000, 41000]])

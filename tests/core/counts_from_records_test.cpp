@@ -237,9 +237,28 @@ TEST(CountsFromRecords, RejectsATableLargerThanTheCellLimit) {
 }
 
 TEST(CountsFromRecords, CountsFurtherLabelsThatDifferOnlyInCapitalsWithoutNamingThem) {
-    const RecordCounts counts = counts_from_records(grid({{"Sales", "sales", "SALES", "Legal", "legal"}}),
-                                                    grid({{1, 2, 1, 2, 1}}));
+    const RecordCounts counts = counts_from_records(grid({{"Sales", "sales", "SALES", "Legal", "legal", "Sales"}}),
+                                                    grid({{1, 2, 1, 2, 1, 2}}));
     ASSERT_EQ(counts.remarks.size(), 1u);
     EXPECT_EQ(counts.remarks[0], "The row labels \"Sales\" and \"sales\" differ only in capitals and are counted "
                                  "apart; so are 2 other labels that differ from another only in capitals.");
+}
+
+// Invented: employee numbers selected instead of the department column.
+TEST(CountsFromRecords, RefusesALabelOfItsOwnForEveryRecord) {
+    expect_error([] {
+        counts_from_records(grid({{"E101"}, {"E102"}, {"E103"}, {"E104"}, {"E105"}}),
+                            grid({{"Yes"}, {"No"}, {"Yes"}, {"No"}, {"No"}}));
+    },
+                 "every record has a row label of its own (\"E101\", \"E102\", …), as IDs, names or dates do, so "
+                 "each row would be a group of one and the test would say nothing about any group; count by a column "
+                 "that records share, such as a department or an outcome");
+}
+
+TEST(CountsFromRecords, KeepsFewRecordsAndWeightedRecordsWithLabelsOfTheirOwn) {
+    EXPECT_NO_THROW(counts_from_records(grid({{"A"}, {"B"}, {"C"}, {"D"}}), grid({{"Yes"}, {"No"}, {"Yes"}, {"No"}})));
+    // Weighted records each stand for many people: one record per department and outcome is a table.
+    EXPECT_NO_THROW(counts_from_records(grid({{"Sales"}, {"Legal"}, {"IT"}, {"HR"}, {"Ops"}}),
+                                        grid({{"Yes"}, {"No"}, {"Yes"}, {"No"}, {"Yes"}}),
+                                        grid({{12}, {30}, {8}, {15}, {22}})));
 }
