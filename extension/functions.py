@@ -405,7 +405,8 @@ FUNCTIONS = [
     Function(
         "ASSOC.POWER", "power",
         "The power of the chi-squared test: the chance that it finds an effect of size w with n counts in all.",
-        [Argument("w", "number", "The effect size w, 0 or more (Cohen: 0.1 small, 0.3 medium, 0.5 large)."),
+        [Argument("w", "number", "The effect size w, 0 or more and below 5 (Cohen: 0.1 small, 0.3 medium, 0.5 large); "
+                                       "5 or more is an error, most often a percentage typed as a number (30 for 0.3)."),
          Argument("n", "number", "The total count, above 0."),
          Argument("df", "number", "The degrees of freedom of the test, a whole number of 1 or more."),
          ALPHA],
@@ -416,7 +417,8 @@ FUNCTIONS = [
         "ASSOC.SAMPLESIZE", "samplesize",
         "The smallest total count with which the chi-squared test reaches the given power for an effect of "
         "size w.",
-        [Argument("w", "number", "The effect size w, above 0 (Cohen: 0.1 small, 0.3 medium, 0.5 large)."),
+        [Argument("w", "number", "The effect size w, above 0 and below 5 (Cohen: 0.1 small, 0.3 medium, 0.5 large); "
+                                       "5 or more is an error, most often a percentage typed as a number (30 for 0.3)."),
          Argument("power", "number", "The power wanted, between alpha and 1, for example 0.8."),
          Argument("df", "number", "The degrees of freedom of the test, a whole number of 1 or more."),
          ALPHA],

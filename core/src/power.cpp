@@ -21,8 +21,19 @@ constexpr double largest_sample_size = 1e12;
 
 void check_df(double df) { detail::whole_number(df, 1, 1e6, "the degrees of freedom"); }
 
+// An effect size of 5 or more is a percentage typed as a number (30 for 0.3) far more often than an
+// effect: a test of independence has w at most the square root of its degrees of freedom, and a
+// goodness of fit reaches 5 only against a share below 1 in 26 that is met 25 times too often.
+// Answered, it gives a power of 1 and a sample size of 1 or 2, with full confidence.
+constexpr double largest_w = 5;
+
 void check_w(double w) {
     require(std::isfinite(w) && w >= 0, "the effect size w must be a number of 0 or more, not " + format_number(w));
+    if (w >= largest_w)
+        throw Error("the effect size w is " + format_number(w) + "; w is a fraction, about 0.1 for a small effect, 0.3 "
+                    "for a medium and 0.5 for a large one, and Assoc takes w below " + format_number(largest_w) +
+                    ". If " + format_number(w) + " is a percentage, enter " + format_number(w / 100) + " (or " +
+                    format_number(w) + "%)");
 }
 
 // Power for noncentrality λ against the critical value of level alpha.

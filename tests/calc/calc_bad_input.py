@@ -556,6 +556,8 @@ class NumberArguments(Battery):
             Case("sample size for a power of 1", None, "=ASSOC.SAMPLESIZE(0.3; 1; 1)", error()),
             Case("sample size beyond 1e12", None, "=ASSOC.SAMPLESIZE(1e-7; 0.8; 1)", error(),
                  '=ASSOC.CHECK({1e-7;0.8;1}; "samplesize")'),
+            Case("sample size for w typed as a percentage", None, "=ASSOC.SAMPLESIZE(30; 0.8; 1)", error(),
+                 '=ASSOC.CHECK({30;0.8;1}; "samplesize")'),
             Case("impact threshold 0", at([[5, 3], [10, 10]]), "=ASSOC.IMPACT(A1:B1; A2:B2; 0)", error(),
                  array="H1:J2"),
             Case("impact threshold 1.01", at([[5, 3], [10, 10]]), "=ASSOC.IMPACT(A1:B1; A2:B2; 1.01)", error(),

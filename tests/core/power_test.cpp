@@ -34,7 +34,7 @@ TEST(ChiSquaredPower, IsAlphaForAnEffectOfZero) {
 // noncentrality leaves it at alpha to the last digit (the fuzz target found it falling as n doubled).
 TEST(ChiSquaredPower, IsAlphaForASubnormalNoncentralityWhateverN) {
     for (double n : {0x1p-1074, 0x1p-1073, 1e-310, 1e-300})
-        EXPECT_EQ(chi_squared_power(19, n, 1, 0.05), 0.05) << n;
+        EXPECT_EQ(chi_squared_power(4, n, 1, 0.05), 0.05) << n;
 }
 
 TEST(ChiSquaredPower, IsOneWhenTheNoncentralityIsHuge) {
@@ -86,7 +86,19 @@ TEST(ChiSquaredSampleSize, SettlesForAPowerVeryCloseToOne) {
 }
 
 TEST(ChiSquaredSampleSize, IsOneForAHugeEffect) {
-    EXPECT_EQ(chi_squared_sample_size(50, 0.8, 1), 1);
+    // n·w² = 24 is far beyond the critical value 3.84 for one count.
+    EXPECT_EQ(chi_squared_sample_size(4.9, 0.8, 1), 1);
+}
+
+TEST(ChiSquaredSampleSize, RefusesAnEffectSizeTypedAsAPercentage) {
+    expect_error([] { chi_squared_sample_size(30, 0.8, 1); },
+                 "the effect size w is 30; w is a fraction, about 0.1 for a small effect, 0.3 for a medium and 0.5 for "
+                 "a large one, and Assoc takes w below 5. If 30 is a percentage, enter 0.3 (or 30%)");
+}
+
+TEST(ChiSquaredPower, RefusesAnEffectSizeOfFiveOrMore) {
+    EXPECT_THROW(chi_squared_power(5, 100, 4), Error);
+    EXPECT_NO_THROW(chi_squared_power(4.99, 100, 4));
 }
 
 TEST(ChiSquaredSampleSize, RejectsAPowerNotAboveAlpha) {
