@@ -575,7 +575,9 @@ FUNCTIONS = [
          "are blank, or with 0 considered, has no selection rate: its row is left empty with its reason, and the "
          "other groups are compared. A first or last group that holds the sums of at least 2 other groups in both "
          "ranges is a total, and an error: leave the total row out of the ranges. Counts are numbers of people: a "
-         "selection rate (0.15) typed instead of the number selected is an error.",
+         "selection rate (0.15) typed instead of the number selected is an error, and so is a header over the "
+         "considered counts that names those not selected (\"Not selected\", \"Rejected\", \"Others\"): "
+         "considered means everyone in the group.",
          "The four-fifths rule of thumb comes from the US Uniform Guidelines on Employee Selection Procedures, "
          "29 CFR 1607.4(D). It is a screening rule, not a test: with few people a large difference can be "
          "chance, and with many a small one can matter. Follow applicable law and policy and seek qualified "

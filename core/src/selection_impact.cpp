@@ -2,6 +2,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstring>
+#include <iterator>
 #include <optional>
 
 #include "assoc/error.hpp"
@@ -117,6 +119,18 @@ namespace {
 // A total row among the groups (the company as a whole under its departments) is no group: it would be
 // compared with its own parts. The first or last group that holds, in both ranges, the sums of at
 // least 2 other groups with people considered is refused; the ranges carry no labels to set it aside by.
+// A header over the considered counts that names the people not selected ("Not selected",
+// "Rejected"): the rates would divide by the others instead of by everyone considered.
+bool names_the_rest(const std::string& header) {
+    static const char* const words[] = {"rejected", "declined",  "unsuccessful", "refused", "turned down", "others",
+                                        "the rest", "remaining", "rest",         "abgelehnt", "rechazados", "rejetés",
+                                        "rejetes",  "respinti",  "afgewezen"};
+    const std::string text = folded_label(header);
+    for (const char* start : {"not ", "non-", "non ", "nicht ", "no ", "niet "})
+        if (text.compare(0, std::strlen(start), start) == 0) return true;
+    return std::any_of(std::begin(words), std::end(words), [&](const char* w) { return text == w; });
+}
+
 void refuse_total_group(const std::vector<GroupCounts>& groups, const std::string& place, std::size_t first) {
     if (groups.size() < 3) return;
     for (std::size_t candidate : {groups.size() - 1, std::size_t{0}}) {
@@ -191,6 +205,10 @@ SelectionImpact selection_impact(const CellGrid& selected, const CellGrid& consi
         groups.push_back(group);
     }
     require(!groups.empty(), "the ranges hold no counts");
+    if (first == 1 && pool[0].is_text() && names_the_rest(pool[0].as_text()))
+        throw Error("the considered counts are headed " + quoted_label(pool[0].as_text()) + ", which reads as the "
+                    "people not selected; considered means everyone in the group, those selected and the others, so "
+                    "give those numbers (the two counts added together)");
     refuse_total_group(groups, place, first);
     SelectionImpact result = impact_of(groups, threshold);
     if (first == 1)

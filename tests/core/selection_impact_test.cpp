@@ -145,3 +145,15 @@ TEST(SelectionImpact, RefusesAGroupThatHoldsTheSumsOfTheOthers) {
                  "the group in row 4 holds the sums of the other groups (42 selected of 200), so it looks like a total, "
                  "and a total is no group to compare with its own parts; leave it out of the ranges");
 }
+
+// Invented: offers by office beside the candidates who got none, typed where everyone considered
+// belongs; the rates would be offers over the others.
+TEST(SelectionImpact, RefusesConsideredCountsHeadedAsThoseNotSelected) {
+    for (const char* header : {"Not selected", "Rejected", "non-hired", "Others"}) {
+        expect_error([&] { selection_impact(grid({{"Offers"}, {12}, {5}}), grid({{header}, {30}, {25}})); },
+                     "the considered counts are headed \"" + std::string(header) + "\", which reads as the people not "
+                     "selected; considered means everyone in the group, those selected and the others, so give those "
+                     "numbers (the two counts added together)");
+    }
+    EXPECT_NO_THROW(selection_impact(grid({{"Offers"}, {12}, {5}}), grid({{"Applicants"}, {42}, {30}})));
+}
