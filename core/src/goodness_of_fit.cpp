@@ -1,7 +1,6 @@
 #include "assoc/goodness_of_fit.hpp"
 
 #include <algorithm>
-#include <cctype>
 #include <cmath>
 #include <string>
 
@@ -12,6 +11,8 @@
 #include "assoc/format.hpp"
 #include "assoc/wording.hpp"
 #include "exact_margins.hpp"
+#include "row_names.hpp"
+#include "total_lines.hpp"
 
 namespace assoc {
 namespace {
@@ -41,14 +42,9 @@ Line read_line(const CellGrid& range, bool counts_only) {
     // The categories run along the line: a column's are named by the row labels, a row's by the
     // column labels (a single header cell, "Observed", names the line, not a category).
     const bool along_rows = counts.columns() == 1 && counts.rows() > 1;
-    const bool labelled = along_rows ? table.has_row_labels() : table.has_column_labels();
-    if (labelled && line.values.size() > 1) {
-        for (std::size_t i : along_rows ? table.category_rows() : table.category_columns()) {
-            const std::string& label = (along_rows ? table.body_row_labels() : table.body_column_labels())[i];
-            if (label.empty()) return Line{line.values, {}};
-            line.labels.push_back(label);
-        }
-    }
+    if (line.values.size() > 1) line.labels = detail::category_labels(table, along_rows);
+    if (std::any_of(line.labels.begin(), line.labels.end(), [](const std::string& label) { return label.empty(); }))
+        line.labels.clear();
     return line;
 }
 
@@ -163,19 +159,9 @@ namespace {
 // nobody meant. Rounding within 1 is allowed.
 void require_whole_percentages(const CellGrid& expected, const std::vector<double>& values) {
     if (expected.empty() || !expected.at(0, 0).is_text()) return;
-    const std::string label = folded_label(expected.at(0, 0).as_text());
-    const auto has_word = [&](const char* word) {
-        const std::string w(word);
-        for (std::size_t at = label.find(w); at != std::string::npos; at = label.find(w, at + 1)) {
-            const bool starts = at == 0 || !std::isalpha(static_cast<unsigned char>(label[at - 1]));
-            const bool ends = at + w.size() == label.size() || !std::isalpha(static_cast<unsigned char>(label[at + w.size()]));
-            if (starts && ends) return true;
-        }
-        return false;
-    };
-    const bool percent = label.find('%') != std::string::npos || has_word("percent") || has_word("percentage") ||
-                         has_word("pct") || has_word("prozent") || has_word("pourcentage") || has_word("porcentaje") ||
-                         has_word("percentuale") || has_word("procent");
+    const std::string& label = expected.at(0, 0).as_text();
+    // Any "%" here, even after a digit ("Plan 2026 %"); the words as a count table reads them.
+    const bool percent = label.find('%') != std::string::npos || detail::names_percentages(label);
     if (!percent) return;  // "shares" may be parts in any unit (9 : 3 : 3 : 1)
     double sum = 0;
     for (double value : values) sum += value;

@@ -11,6 +11,7 @@
 #include "assoc/validity.hpp"
 #include "category_order.hpp"
 #include "cell_line.hpp"
+#include "row_names.hpp"
 
 namespace assoc {
 namespace {
@@ -125,13 +126,9 @@ OrdinalResult ordinal_test(const CellGrid& table, const CellGrid& row_scores, co
     const CountTable read = read_count_table(table);
     // Each side is taken in the table's order (scores must rise or fall with it), which its labels
     // must not contradict.
-    for (const bool rows : {true, false}) {
-        if (!(rows ? read.has_row_labels() : read.has_column_labels())) continue;
-        std::vector<std::string> labels;
-        for (std::size_t i : rows ? read.category_rows() : read.category_columns())
-            labels.push_back((rows ? read.body_row_labels() : read.body_column_labels())[i]);
-        if (auto why = detail::categories_out_of_order(labels, rows ? "row" : "column", nullptr)) throw Error(*why);
-    }
+    for (const bool rows : {true, false})
+        if (auto why = detail::categories_out_of_order(detail::category_labels(read, rows), rows ? "row" : "column", nullptr))
+            throw Error(*why);
     OrdinalResult result = ordinal_test(read, read_scores(row_scores, "row"), read_scores(column_scores, "column"));
     result.remarks = table_notes(read);
     return result;

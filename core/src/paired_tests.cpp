@@ -11,6 +11,7 @@
 #include "assoc/validity.hpp"
 #include "assoc/wording.hpp"
 #include "discrete_tail.hpp"
+#include "row_names.hpp"
 #include "stirling.hpp"
 
 namespace assoc {
@@ -64,8 +65,7 @@ std::vector<std::size_t> columns_matching_rows(const CountTable& read, std::vect
         const bool rows_labelled = read.has_row_labels();
         if (rows_labelled || read.has_column_labels()) {
             std::vector<std::string> labels;
-            for (std::size_t i : rows_labelled ? read.category_rows() : read.category_columns())
-                labels.push_back(quoted_label((rows_labelled ? read.body_row_labels() : read.body_column_labels())[i]));
+            for (const std::string& label : detail::category_labels(read, rows_labelled)) labels.push_back(quoted_label(label));
             remarks.push_back(std::string("The ") + (rows_labelled ? "columns" : "rows") + " have no labels, so they were "
                               "read as the " + (rows_labelled ? "rows'" : "columns'") + " categories in the same order (" +
                               name_list(labels, 6) + "); if they come in another order, label them.");
@@ -73,9 +73,7 @@ std::vector<std::size_t> columns_matching_rows(const CountTable& read, std::vect
         return same_place;
     }
 
-    std::vector<std::string> rows, columns;
-    for (std::size_t r : read.category_rows()) rows.push_back(read.body_row_labels()[r]);
-    for (std::size_t c : read.category_columns()) columns.push_back(read.body_column_labels()[c]);
+    const std::vector<std::string> rows = detail::category_labels(read, true), columns = detail::category_labels(read, false);
     const auto require_labels = [](const std::vector<std::string>& labels, const char* side) {
         std::vector<std::string> seen;
         for (const std::string& label : labels) {

@@ -1,7 +1,7 @@
 #pragma once
 // Names of the rows of a table's body for results and messages: the row's label, or "row k" when
 // the range has no label for it (k its 1-based row in the range as selected, a header row being row
-// 1, as every message counts rows).
+// 1, as every message counts rows); and the labels of a side's categories.
 #include <cstddef>
 #include <string>
 #include <vector>
@@ -18,6 +18,15 @@ inline std::vector<std::string> body_row_names(const CountTable& table) {
         if (names[r].empty()) names[r] = "row " + std::to_string(table.range_row(r));
     }
     return names;
+}
+
+// The labels of the categories on one side (rows or columns; totals left out, lines of zeros kept),
+// in the order of the range: "" where the range has none.
+inline std::vector<std::string> category_labels(const CountTable& table, bool rows) {
+    std::vector<std::string> labels;
+    for (std::size_t i : rows ? table.category_rows() : table.category_columns())
+        labels.push_back((rows ? table.body_row_labels() : table.body_column_labels())[i]);
+    return labels;
 }
 
 // "row 3" or "row 3 (Legal)": a row named in a message by its row in the range and its name from

@@ -331,16 +331,6 @@ bool names_a_summary(std::string_view label) {
     return std::any_of(found.begin(), found.end(), [&](std::string_view word) { return listed(word, words); });
 }
 
-// A label that says its numbers are percentages: a "%" that follows no digit ("% promoted", "Yes (%)";
-// "0-2%" names a band of pay rises) or the word itself.
-bool names_percentages(std::string_view label) {
-    static const char* const words[] = {"%",           "percent",   "percentage", "pct",    "prozent",
-                                        "pourcentage", "porcentaje", "percentuale", "procent"};
-    const std::string text = folded_label(label);
-    const std::vector<std::string_view> found = label_words(text);
-    return std::any_of(found.begin(), found.end(), [&](std::string_view word) { return listed(word, words); });
-}
-
 void refuse_summaries(const Lines& lines, const BodySide& side, const std::vector<char>& total) {
     if (!side.labelled) return;
     for (std::size_t i = 0; i < lines.count(); ++i) {
@@ -750,6 +740,14 @@ std::string text_among_counts_reason(const Cell& cell) {
         return ", a number stored as text (as imported or pasted data often is); counts must be numbers: enter it "
                "again as a number, or convert those cells to numbers";
     return "; counts must be numbers";
+}
+
+bool names_percentages(std::string_view label) {
+    static const char* const words[] = {"%",           "percent",   "percentage", "pct",    "prozent",
+                                        "pourcentage", "porcentaje", "percentuale", "procent"};
+    const std::string text = folded_label(label);
+    const std::vector<std::string_view> found = label_words(text);
+    return std::any_of(found.begin(), found.end(), [&](std::string_view word) { return listed(word, words); });
 }
 
 bool names_a_missing_value(std::string_view label) {

@@ -37,6 +37,10 @@ bool names_the_whole_group(std::string_view label);
 // of the others is doubted by find_total_lines.
 bool names_a_count(std::string_view label);
 
+// Whether a label says its numbers are percentages: a "%" that follows no digit ("% promoted",
+// "Yes (%)"; "0-2%" names a band of pay rises) or the word itself ("Percent", "Prozent", "pct").
+bool names_percentages(std::string_view label);
+
 // Whether a label marks a missing value rather than naming a group or an answer: "n/a", "NA", "#N/A",
 // "-", "?", "null", "NaN", "missing", and the "(empty)" or "(blank)" a summary of records shows for blank
 // cells. "N/A" may also mean "not applicable", an answer of its own: the messages say how to keep it.

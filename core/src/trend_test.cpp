@@ -14,6 +14,7 @@
 #include "category_order.hpp"
 #include "cell_line.hpp"
 #include "extended_arithmetic.hpp"
+#include "row_names.hpp"
 
 namespace assoc {
 
@@ -117,11 +118,8 @@ TrendResult trend_test(const CellGrid& table, const CellGrid& scores) {
     if (scores.empty() && (body.rows() == 2 || body.columns() == 2)) {
         // The categories run along the columns of a 2×k table (as trend_test(Matrix) decides).
         const bool in_columns = body.rows() == 2;
-        std::vector<std::string> labels;
-        if (in_columns ? read.has_column_labels() : read.has_row_labels())
-            for (std::size_t i : in_columns ? read.category_columns() : read.category_rows())
-                labels.push_back((in_columns ? read.body_column_labels() : read.body_row_labels())[i]);
-        if (auto why = detail::categories_out_of_order(labels, in_columns ? "column" : "row", "scores"))
+        if (auto why = detail::categories_out_of_order(detail::category_labels(read, !in_columns),
+                                                       in_columns ? "column" : "row", "scores"))
             throw Error(*why);
     }
     std::vector<double> score_values;
