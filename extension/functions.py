@@ -202,6 +202,11 @@ TABLE = Argument(
     "A first row and a first column of text labels are read as headers. Blank cells count as 0; "
     "rows and columns of zeros, and rows and columns labelled as totals, are set aside.")
 
+# The measures of column 1 refuse a first column that reads as the absence of another (outcome_column.hpp).
+OUTCOME_FIRST = ("A first column of counts whose label reads as the absence of another's (\"No\" before \"Yes\", "
+                 "\"Not promoted\" before \"Promoted\", as a pivot table sorts them) is an error that says so, since "
+                 "the result would measure not having the outcome: put the outcome of interest first, or, to measure "
+                 "\"No\" on purpose, leave the header row out of the range.")
 TWO_BY_TWO = Argument(
     "table", "table",
     "A 2×2 range of counts, headers allowed: rows are the two groups, column 1 the outcome of interest "
@@ -360,7 +365,7 @@ FUNCTIONS = [
                "odds ratio",
         ["When a cell is 0, 0.5 is added to every cell first (the Haldane–Anscombe correction); ASSOC.CHECK "
          "says so. This is the sample (cross-product) odds ratio, not the conditional estimate some exact "
-         "tests report."],
+         "tests report.", OUTCOME_FIRST],
         "=ASSOC.ODDSRATIO(A1:C3; 0.95)"),
     Function(
         "ASSOC.RISKRATIO", "riskratio",
@@ -369,7 +374,7 @@ FUNCTIONS = [
         [TWO_BY_TWO, CONFIDENCE],
         "row", "one row: the risk ratio, the lower and the upper end of the interval; a plain entry shows the "
                "risk ratio",
-        ["When a cell is 0, 0.5 is added to every cell first, as for the odds ratio."],
+        ["When a cell is 0, 0.5 is added to every cell first, as for the odds ratio.", OUTCOME_FIRST],
         "=ASSOC.RISKRATIO(A1:C3)"),
     Function(
         "ASSOC.CELLTEST", "celltest",
@@ -506,7 +511,11 @@ FUNCTIONS = [
          "counts being whole; a correction larger than the difference would turn a difference smaller than "
          "half a count into evidence. Yates' and McNemar's corrections in Assoc follow the same rule. Other "
          "tools differ only when |D| < ½: some then drop the correction (statistic D² / V), some subtract ½ "
-         "regardless ((½ − |D|)² / V)."],
+         "regardless ((½ − |D|)² / V).",
+         "Column 1 is the outcome of the common odds ratio: a first column of counts (or, with one row per stratum, "
+         "a third) whose label reads as the absence of the next one's (\"No\" before \"Yes\") is an error that "
+         "says so, for the p-value too; put the outcome of interest first, or leave the header row out of the "
+         "range."],
         "=ASSOC.STRATA(A1:E7)"),
     Function(
         "ASSOC.HOMOGENEITY", "homogeneity",
@@ -685,7 +694,7 @@ MEMO_FUNCTIONS = [
          "has the lower end 0, a rate of 1 the upper end 1, and no correction is needed. A table of one row is "
          "allowed. ASSOC.CHECK with \"rates\" names the rows that have no counts.",
          "Intervals that overlap do not show that two groups do not differ: ASSOC.RATEDIFF and ASSOC.PAIRWISE "
-         "compare groups."],
+         "compare groups.", OUTCOME_FIRST],
         "=ASSOC.RATES(A1:C6)"),
     Function(
         "ASSOC.RATEDIFF", "ratediff",
@@ -698,7 +707,7 @@ MEMO_FUNCTIONS = [
                "percentage points); a plain entry shows the difference",
         ["Newcombe's method (1998, method 10) combines the Wilson intervals of the two rates; it stays between −1 "
          "and 1 and needs no correction when a rate is 0 or 1. A column of zeros is allowed (both rates 0, or "
-         "both 1); a row of zeros is not, since that group has no rate."],
+         "both 1); a row of zeros is not, since that group has no rate.", OUTCOME_FIRST],
         "=ASSOC.RATEDIFF(A1:C3)"),
     Function(
         "ASSOC.PAIRWISE", "pairwise",
@@ -733,7 +742,10 @@ MEMO_FUNCTIONS = [
          "interval are those of ASSOC.RISKRATIO.",
          "Beside ASSOC.IMPACT: a ratio below 0.8 (or above 1.25, which puts row 2's group below four-fifths of row "
          "1's) is the four-fifths screen applied within strata. It is a screen, not a test; follow applicable law "
-         "and policy and seek qualified advice."],
+         "and policy and seek qualified advice.",
+         "A first column of counts (or, with one row per stratum, a third) whose label reads as the absence of the "
+         "next one's (\"No\" before \"Yes\") is an error that says so; put the outcome of interest first, or "
+         "leave the header row out of the range."],
         "=ASSOC.STRATARISK(A1:E5)"),
 ]
 

@@ -4,12 +4,14 @@
 
 #include "argument_checks.hpp"
 #include "assoc/error.hpp"
+#include "assoc/outcome_column.hpp"
 #include "ratio_estimate_detail.hpp"
 
 namespace assoc {
 
 CommonRiskRatio common_risk_ratio(const Strata& strata, double confidence) {
     detail::check_confidence(confidence);
+    detail::require_outcome_first(strata, "the common risk ratio");
     CommonRiskRatio result;
     result.remarks = strata.remarks;  // how the strata were read (rows paired in order, totals left out)
     double r = 0.0, s = 0.0, numerator = 0.0;  // Σ a·n0/n, Σ c·n1/n, Σ (a·n1·d + c·n0·b)/n²

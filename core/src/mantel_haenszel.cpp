@@ -8,6 +8,7 @@
 #include "assoc/chi_squared_distribution.hpp"
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "assoc/outcome_column.hpp"
 #include "assoc/wording.hpp"
 #include "boost_policy.hpp"
 #include "common_odds_ratio.hpp"
@@ -71,6 +72,7 @@ std::vector<std::string> uninformative_strata_remarks(const Strata& strata) {
 MantelHaenszelResult mantel_haenszel_test(const Strata& strata, Continuity continuity, double confidence) {
     require(confidence > 0 && confidence < 1,
             "the confidence level must lie between 0 and 1, not " + format_number(confidence));
+    detail::require_outcome_first(strata, "the common odds ratio");
     MantelHaenszelResult result;
     result.confidence = confidence;
     result.remarks = strata.remarks;

@@ -8,6 +8,7 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "assoc/outcome_column.hpp"
 #include "assoc/validity.hpp"
 #include "boost_policy.hpp"
 #include "row_names.hpp"
@@ -78,6 +79,17 @@ CountTable read_rate_table(const CellGrid& range) {
     return read_count_table(range, options);
 }
 
+// The rates are those of the body's first column (the outcome), which must not read as the absence of
+// another column of counts.
+void require_outcome_column_first(const CountTable& table, const char* measure) {
+    if (!table.has_column_labels()) return;
+    const std::vector<std::size_t>& columns = table.category_columns();
+    if (columns.empty()) return;
+    std::vector<std::string> others;
+    for (std::size_t k = 1; k < columns.size(); ++k) others.push_back(table.body_column_labels()[columns[k]]);
+    detail::require_outcome_first(table.body_column_labels()[columns[0]], others, measure);
+}
+
 }  // namespace
 
 RateInterval wilson_interval(double count, double total, double confidence) {
@@ -98,6 +110,7 @@ RowRates row_rates(const CellGrid& range, double confidence) {
                     "rest); this range has 1" + std::string(totals == 0 ? "" : totals == 1 ? " besides a total" :
                                                                                 " besides its totals"));
     require(!table.kept_rows().empty(), "no row of the table has counts, so there is no rate to compute");
+    require_outcome_column_first(table, "the rates");
     const Matrix body = table.to_body_shape(table.counts());
     const std::vector<std::string> names = detail::body_row_names(table);
     const double z = two_sided_z(confidence);
@@ -147,6 +160,7 @@ RateDifference rate_difference(const CellGrid& range, double confidence) {
                 std::to_string(body.rows()) + (body.rows() == 1 ? " row" : " rows") + " and " +
                 std::to_string(body.columns()) + (body.columns() == 1 ? " column" : " columns") +
                 " of counts");
+    require_outcome_column_first(table, "the rate difference");
     const std::vector<std::string> names = detail::body_row_names(table);
     for (std::size_t r = 0; r < 2; ++r)
         require(body(r, 0) + body(r, 1) > 0, detail::row_reference(table, table.category_rows()[r],

@@ -5,6 +5,7 @@
 
 #include "argument_checks.hpp"
 #include "assoc/error.hpp"
+#include "assoc/outcome_column.hpp"
 #include "boost_policy.hpp"
 #include "ratio_estimate_detail.hpp"
 
@@ -28,6 +29,8 @@ TwoByTwoCells ratio_cells(const CountTable& table, const char* what) {
     require(table.is_two_by_two(), std::string(what) + " needs a 2×2 table; this table has " +
                                        std::to_string(table.rows()) + " rows and " + std::to_string(table.columns()) +
                                        " columns with counts");
+    if (table.has_column_labels())
+        require_outcome_first(table.column_labels()[0], {table.column_labels()[1]}, what);
     TwoByTwoCells cells{table.count(0, 0), table.count(0, 1), table.count(1, 0), table.count(1, 1), false};
     if (needs_zero_cell_correction(table)) {
         // Every cell, not only the zero ones: that is the estimator the literature describes

@@ -181,6 +181,7 @@ Strata read_strata(const CellGrid& given) {
 
     Strata result;
     result.blank_cells = read.blank_cells();
+    for (std::size_t c : read.category_columns()) result.column_labels.push_back(read.body_column_labels()[c]);
     result.remarks = table_notes(read);  // doubts, how it was read, total lines set aside
     std::vector<std::string> labels;        // the group (or stratum) label of each category row
     std::vector<std::string> stratum_names;  // from the stratum column(s), "" where blank

@@ -8,6 +8,7 @@
 #include "assoc/error.hpp"
 #include "assoc/exact_test.hpp"
 #include "assoc/format.hpp"
+#include "assoc/outcome_column.hpp"
 #include "assoc/pairwise_comparisons.hpp"
 #include "assoc/residuals.hpp"
 #include "assoc/validity.hpp"
@@ -471,15 +472,21 @@ void rates_block(Layout& s) {
         if (!rest_skip[c]) rest.push_back(c);
     const bool one_other = rest.size() == 1;
     s.heading("Rates by row, with 95% intervals (ASSOC.RATES)");
+    // ASSOC.RATES refuses a first column whose label reads as the absence of another's ("Not promoted"
+    // beside "Promoted"); chosen in the dialog, it is meant, so the arranged block heads the rest in words.
+    const std::string& outcome_name = s.reading.column_names[outcome];
+    const bool names_an_absence = std::any_of(rest.begin(), rest.end(), [&](std::size_t c) {
+        return names_the_absence_of(outcome_name, s.reading.column_names[c]);
+    });
 
     std::string source = s.table;
-    if (outcome != 0) {
+    if (outcome != 0 || names_an_absence) {
         const std::size_t header = s.row;
         // A text in the corner, so that the block is read with its header row whatever the labels hold.
         s.plan.text(header, 0, s.reading.variables.rows.empty() ? "Rows" : s.reading.variables.rows, Look::header);
         s.plan.formula(header, 1, "=" + outcome_label, Look::header);
-        if (one_other) s.plan.formula(header, 2, "=" + s.column_label[rest[0]], Look::header);
-        else s.plan.text(header, 2, "The other columns", Look::header);
+        if (one_other && !names_an_absence) s.plan.formula(header, 2, "=" + s.column_label[rest[0]], Look::header);
+        else s.plan.text(header, 2, one_other ? "The rest" : "The other columns", Look::header);
         ++s.row;
         s.row_labels();
         std::vector<std::string> counts;

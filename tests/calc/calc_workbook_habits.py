@@ -446,6 +446,32 @@ class LabelsThatMeanSomething(HabitCase):
                       self.words("H4", '=ASSOC.CHECK(A1:B5; "counts")'))
 
 
+class OutcomeColumnOrder(HabitCase):
+    # Invented: a pivot table of promotions by team, its columns sorted "No" before "Yes".
+    SORTED = [["Team", "No", "Yes", "Total Result"], ["Team A", 7, 18, 25], ["Team B", 16, 9, 25],
+              ["Total Result", 23, 27, 50]]
+
+    def test_a_first_column_that_reads_as_the_absence_of_another_is_refused_by_the_measures_of_column_1(self):
+        table = self.put(self.SORTED)
+        for function in ("ODDSRATIO", "RISKRATIO", "RATEDIFF", "RATES"):
+            with self.subTest(function=function):
+                self.refused(f"=ASSOC.{function}({table})", f'=ASSOC.CHECK({table}; "{function.lower()}")',
+                             'the first column of counts, "No", reads as the absence of the column "Yes"',
+                             'put the column "Yes" first. If "No" is the outcome you mean, leave the header row out')
+        # The test of independence does not depend on the order of the columns.
+        self.assertTrue(self.words("H1", f"=ASSOC.CHECK({table})").startswith("Sound:"))
+
+    def test_the_same_counts_without_the_header_row_are_measured_as_given(self):
+        self.put(self.SORTED)
+        # The odds of column 1 ("No") in row 1 over row 2: (7·9)/(18·16), an exact identity.
+        self.assertAlmostEqual(self.number("H1", "=ASSOC.ODDSRATIO(A2:C3)"), 7 * 9 / (18 * 16), places=14)
+
+    def test_the_outcome_first_is_measured(self):
+        table = self.put([["Team", "Promoted", "Not promoted"], ["Team A", 18, 7], ["Team B", 9, 16]])
+        # The risk of "Promoted" in Team A over Team B: (18/25)/(9/25) = 2, an exact identity.
+        self.assertAlmostEqual(self.number("H1", f"=ASSOC.RISKRATIO({table})"), 2.0, places=14)
+
+
 class OrdersAndSpellings(HabitCase):
     SCALE = ["Poor", "Fair", "Good", "Excellent"]
 

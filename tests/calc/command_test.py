@@ -365,6 +365,15 @@ class MemoFigures(CommandCase):
         self.assertAllClose([[self.figure(sheet, "Rate difference (ASSOC.RATEDIFF)", c) for c in (1, 2, 3)]],
                             [REFERENCE["teams"]["rate_difference"]["second_second"]], 1e-10, "rate difference")
 
+    def test_a_table_sorted_no_before_yes_gets_the_rates_of_yes_unless_no_is_chosen(self):
+        # Invented teams, the columns in sorted order; rates are count over row total (exact identities).
+        sorted_teams = [["Team / Outcome", "No", "Yes"], ["Team A", 7, 18], ["Team B", 16, 9]]
+        sheet = self.analyse(self.put(sorted_teams))
+        self.assertEqual([round(row[1], 12) for row in self.block_under(sheet, "Row total", 2, 4)], [0.72, 0.36])
+        self.assertAlmostEqual(self.figure(sheet, "Rate difference (ASSOC.RATEDIFF)", 1), 0.36, places=12)
+        sheet = self.analyse(self.put(sorted_teams), OutcomeColumn=1)
+        self.assertEqual([round(row[1], 12) for row in self.block_under(sheet, "Row total", 2, 4)], [0.28, 0.64])
+
     def test_a_large_table_gets_the_interval_of_v_and_every_pair(self):
         # Reference: command_values.json "large" (scipy ncx2 inversion; scipy per pair, Holm by statsmodels).
         sheet = self.analyse(self.put(REFERENCE["large"]["counts"]))

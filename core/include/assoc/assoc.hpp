@@ -23,6 +23,7 @@
 #include "assoc/matrix.hpp"
 #include "assoc/monte_carlo.hpp"
 #include "assoc/odds_ratio.hpp"
+#include "assoc/outcome_column.hpp"
 #include "assoc/ordinal_measures.hpp"
 #include "assoc/ordinal_test.hpp"
 #include "assoc/p_value_adjustment.hpp"

@@ -29,6 +29,9 @@ struct Strata {
     std::vector<Stratum> tables;  // one 2×2 table per stratum, in the order of the range
     StrataLayout layout = StrataLayout::one_row_each;
     std::size_t blank_cells = 0;  // blank count cells, read as 0
+    // The header labels of the columns of counts (2 when stacked, 4 with one row each; "" where none):
+    // what tells which column is the outcome.
+    std::vector<std::string> column_labels;
     // How the range was read, in sentences for ASSOC.CHECK: rows paired in order because the labels do
     // not show the strata, rows of a stratum matched by their group labels, totals set aside.
     std::vector<std::string> remarks;

@@ -1,5 +1,7 @@
 #include "uno/options_dialog.hpp"
 
+#include <algorithm>
+
 #include <com/sun/star/awt/DialogProvider2.hpp>
 #include <com/sun/star/awt/MessageBoxButtons.hpp>
 #include <com/sun/star/awt/MessageBoxType.hpp>
@@ -27,6 +29,7 @@
 #include <com/sun/star/lang/XComponent.hpp>
 
 #include "assoc/error.hpp"
+#include "assoc/outcome_column.hpp"
 #include "uno/uno_common.hpp"
 
 namespace assoc::command {
@@ -103,6 +106,15 @@ std::size_t position_of(const std::vector<std::string>& labels, const std::strin
     return 0;
 }
 
+// The outcome of interest offered when none is remembered: column 1, unless its label reads as the
+// absence of another column's ("No" before "Yes", as a pivot table sorts them); then that column, which
+// the dialog shows selected and the sheet names.
+std::size_t offered_outcome(const std::vector<std::string>& columns) {
+    for (std::size_t k = 1; k < columns.size(); ++k)
+        if (assoc::names_the_absence_of(columns[0], columns[k])) return k;
+    return 0;
+}
+
 }  // namespace
 
 bool has_visible_window(const Reference<css::frame::XFrame>& frame) {
@@ -171,12 +183,15 @@ std::optional<DialogAnswer> ask_options(const Reference<css::uno::XComponentCont
 
 CommandOptions remembered_options(const Reference<css::frame::XModel>& model, const DialogFacts& facts) {
     CommandOptions options;
+    options.outcome_column = offered_outcome(facts.columns);
     const Reference<css::beans::XPropertyContainer> stored = custom_properties(model);
     if (!stored.is()) return options;
     double alpha = 0;
     if ((property(stored, alpha_property) >>= alpha) && alpha > 0 && alpha < 1) options.alpha = alpha;
     options.placement = static_cast<Placement>(position_of(placement_words, text_property(stored, placement_property)));
-    options.outcome_column = position_of(facts.columns, text_property(stored, outcome_property));
+    const std::string outcome = text_property(stored, outcome_property);
+    if (std::find(facts.columns.begin(), facts.columns.end(), outcome) != facts.columns.end())
+        options.outcome_column = position_of(facts.columns, outcome);
     if (facts.two_by_two) options.group_row = position_of(facts.rows, text_property(stored, group_property));
     return options;
 }
