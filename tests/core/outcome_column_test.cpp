@@ -39,11 +39,14 @@ TEST(OutcomeColumn, OddsRatioRefusesNoBeforeYes) {
 }
 
 TEST(OutcomeColumn, OddsRatioRefusesTheOtherLabelNegated) {
-    for (const auto& [first, second] : {std::pair{"Not promoted", "Promoted"}, {"non-manager", "Manager"},
-                                        {"No exception", "Exception"}, {"Unsuccessful", "Successful"},
-                                        {"Without overtime", "With overtime"}, {"Promoted: no", "Promoted: yes"},
-                                        {"N", "Y"}, {"FALSE", "TRUE"}, {"Nein", "Ja"}, {"no - left", "yes - left"}})
+    for (const auto& labels : {std::pair{"Not promoted", "Promoted"}, {"non-manager", "Manager"},
+                               {"No exception", "Exception"}, {"Unsuccessful", "Successful"},
+                               {"Without overtime", "With overtime"}, {"Promoted: no", "Promoted: yes"},
+                               {"N", "Y"}, {"FALSE", "TRUE"}, {"Nein", "Ja"}, {"no - left", "yes - left"}}) {
+        const char* const first = labels.first;
+        const char* const second = labels.second;
         expect_error([&] { odds_ratio(with_columns(first, second)); }, refusal(first, second, "the odds ratio"));
+    }
 }
 
 TEST(OutcomeColumn, OddsRatioTakesTheOutcomeFirstAndLabelsThatNegateNothing) {
