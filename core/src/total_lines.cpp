@@ -377,7 +377,7 @@ void doubt_count_labels(const BodySide& side, const std::vector<char>& total, st
 // rate rounded to whole numbers, a target or an expected number beside the observed ones, a
 // difference, a running count, or an amount of money or time ("Salary (EUR)", "Hours overtime").
 // Each makes the table "Doubtful"; none is set aside, since the author may mean a group by it.
-enum class NotCounts { summary, reference, difference, cumulative, amount };
+enum class NotCounts { summary, reference, difference, cumulative, amount, measure };
 
 // The words, lower case, as whole words of a label. A summary or a running count may be named
 // anywhere in the label ("Promotion rate"); a target only by its first word ("Expected", "Target
@@ -411,6 +411,12 @@ const char* const amount_words[] = {"amount", "amounts", "salary", "salaries", "
                                     "gehalt", "lohn", "kosten", "umsatz", "stunden", "montant", "salaire",
                                     "salaires", "heures", "importe", "salario", "horas", "bedrag", "salaris",
                                     "uren"};
+// A measure of each group typed beside its counts ("Age", "Score", "Index", "Std dev"), as the whole
+// label: with more words it may name a category ("Less than a year", "Retirement age").
+const char* const measure_labels[] = {"age", "average age", "index", "score", "rating", "rank", "ranking",
+                                      "fte", "odds", "sd", "std", "std dev", "stdev", "standard deviation",
+                                      "minimum", "maximum", "year", "tenure", "years of service", "length of service",
+                                      "alter", "âge", "edad", "età", "leeftijd"};
 const char* const category_words[] = {"band", "bands", "grade", "grades", "range", "group", "level", "scale",
                                       "class", "bracket", "centre", "center", "code", "type", "rise", "raise",
                                       "increase", "cut", "freeze", "review", "category", "tier", "gap", "flexible",
@@ -446,6 +452,9 @@ std::optional<NotCountsLabel> names_no_counts(std::string_view label) {
         return std::nullopt;
     for (std::string_view word : words)
         if (listed(word, amount_words)) return NotCountsLabel{NotCounts::amount, std::string(word)};
+    std::string joined;
+    for (std::string_view word : words) joined += (joined.empty() ? "" : " ") + std::string(word);
+    if (listed(joined, measure_labels)) return NotCountsLabel{NotCounts::measure, joined};
     return std::nullopt;
 }
 
@@ -527,11 +536,13 @@ void doubt_not_counts(const Lines& values, const BodySide& side, const std::vect
     }
     static const char* const singular[] = {"an average, a rate or a share", "a target, a plan or an expected number",
                                            "a difference or a change", "a running count",
-                                           "an amount of money or time"};
+                                           "an amount of money or time",
+                                           "a measure of each group (an age, a score, an index, a spread)"};
     static const char* const plural[] = {"averages, rates or shares", "targets, plans or expected numbers",
-                                         "differences or changes", "running counts", "amounts of money or time"};
+                                         "differences or changes", "running counts", "amounts of money or time",
+                                         "measures of each group (ages, scores, indexes, spreads)"};
     for (NotCounts kind : {NotCounts::summary, NotCounts::reference, NotCounts::difference, NotCounts::cumulative,
-                           NotCounts::amount}) {
+                           NotCounts::amount, NotCounts::measure}) {
         std::vector<std::size_t> lines;
         for (const auto& [line, found] : named)
             if (found.kind == kind && (kind == NotCounts::amount || holders[found.word] < 2)) lines.push_back(line);
@@ -547,6 +558,9 @@ void doubt_not_counts(const Lines& values, const BodySide& side, const std::vect
         if (kind == NotCounts::amount)
             text += "the tests need the number of people or items in each cell, and on amounts their p-value means "
                     "nothing.";
+        else if (kind == NotCounts::measure)
+            text += std::string("the tests need the number of people or items in each cell; leave ") +
+                    (one ? "it" : "them") + " out of the range.";
         else
             text += std::string("if ") + (one ? "it is" : "they are") + " no group of " + (one ? "its" : "their") +
                     " own, leave " + (one ? "it" : "them") + " out of the range.";

@@ -197,6 +197,12 @@ class LinesThatHoldNoCounts(HabitCase):
         self.refused(f"=ASSOC.PVALUE(ASSOC.COUNTS({ids}; {answers}))", '=ASSOC.CHECK(A1:B6; "counts")',
                      'every record has a row label of its own ("E101", "E102", …), as IDs, names or dates do')
 
+    def test_a_measure_of_each_group_beside_the_counts_makes_the_table_doubtful(self):
+        # Invented: promotions by department with the average age typed in a column headed "Age".
+        table = self.put([["Dept", "Yes", "No", "Age"], ["Sales", 12, 30, 41], ["Legal", 5, 22, 38], ["IT", 9, 14, 35]])
+        text = self.words("H1", f"=ASSOC.CHECK({table})")
+        self.assertTrue(text.startswith('Doubtful: The column "Age" is labelled as a measure of each group'), text)
+
     def test_amounts_of_money_make_the_table_doubtful(self):
         table = self.put([["Region", "Salary (EUR)", "Bonus (EUR)"], ["North", 412000, 38000],
                           ["South", 398000, 41000]])

@@ -380,6 +380,32 @@ TEST(NotCountsLines, BandsAndKindsOfPayOrHoursAreCategories) {
     EXPECT_TRUE(read.doubts().empty()) << read.doubts().front();
 }
 
+// Invented: promotions by department with each department's average age typed beside the counts.
+TEST(NotCountsLines, AMeasureOfEachGroupBesideTheCountsIsDoubted) {
+    const CountTable read = read_count_table(grid({{"Dept", "Yes", "No", "Age"},
+                                                   {"Sales", 12, 30, 41},
+                                                   {"Legal", 5, 22, 38},
+                                                   {"IT", 9, 14, 35}}));
+    ASSERT_EQ(read.doubts().size(), 1u);
+    EXPECT_EQ(read.doubts()[0], "The column \"Age\" is labelled as a measure of each group (an age, a score, an index, "
+                                "a spread), not as a number of people or items, and was tested as counts; the tests "
+                                "need the number of people or items in each cell; leave it out of the range.");
+    EXPECT_EQ(check_validity(read).summary().rfind("Doubtful:", 0), 0u);
+    for (const char* label : {"Score", "Index", "Std. dev.", "FTE", "Year", "Years of service", "Rating"}) {
+        const CountTable one =
+            read_count_table(grid({{"Team", "Yes", "No", label}, {"North", 10, 12, 7}, {"South", 20, 18, 9}}));
+        EXPECT_EQ(one.doubts().size(), 1u) << label;
+    }
+}
+
+TEST(NotCountsLines, CategoriesThatNameAMeasureAmongOtherWordsAreNotDoubted) {
+    const CountTable read = read_count_table(grid({{"Tenure", "Less than a year", "Retirement age", "Low score",
+                                                    "High score"},
+                                                   {"North", 5, 2, 7, 9},
+                                                   {"South", 3, 4, 6, 8}}));
+    EXPECT_TRUE(read.doubts().empty()) << read.doubts().front();
+}
+
 TEST(RepeatedLabels, AreDoubtedAsOneGroupSplitOrCopied) {
     const CountTable read =
         read_count_table(grid({{"Dept", "Yes", "No"}, {"Sales", 30, 45}, {"Legal", 10, 80}, {"Sales", 22, 41}}));
