@@ -189,9 +189,10 @@ CommandOptions remembered_options(const Reference<css::frame::XModel>& model, co
     double alpha = 0;
     if ((property(stored, alpha_property) >>= alpha) && alpha > 0 && alpha < 1) options.alpha = alpha;
     options.placement = static_cast<Placement>(position_of(placement_words, text_property(stored, placement_property)));
-    const std::string outcome = text_property(stored, outcome_property);
-    if (std::find(facts.columns.begin(), facts.columns.end(), outcome) != facts.columns.end())
-        options.outcome_column = position_of(facts.columns, outcome);
+    // A remembered outcome that this table has; otherwise the one offered above.
+    const auto remembered = std::find(facts.columns.begin(), facts.columns.end(), text_property(stored, outcome_property));
+    if (remembered != facts.columns.end())
+        options.outcome_column = static_cast<std::size_t>(remembered - facts.columns.begin());
     if (facts.two_by_two) options.group_row = position_of(facts.rows, text_property(stored, group_property));
     return options;
 }
