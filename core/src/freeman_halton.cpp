@@ -29,9 +29,10 @@
 // is counted in bytes before it is allocated, and the clock is read every few thousand steps of
 // every loop whose length is not already bounded by the memory counted. And a table that cannot
 // finish within the cap is refused as soon as that shows, not when the cap is reached: each stage
-// counts its work before doing it, and a forecast of the time still needed is checked against
-// what is left (see "The forecast" below; bench/exact_refusal_validation.cpp
-// measures how early it refuses and that it does not refuse tables that would finish).
+// counts its work before doing it, and a forecast of the time still needed (and of the memory
+// the last stage's futures will hold) is checked against what is left (see "The forecast" below;
+// bench/exact_refusal_validation.cpp measures how early it refuses and that it does not refuse
+// tables that would finish).
 #include "freeman_halton.hpp"
 
 #include <algorithm>
@@ -200,7 +201,7 @@ public:
             };
             std::vector<Task> tasks;
             reserve_for(tasks, stage.size());
-            double units = 0;
+            double units = 0, past_bytes = 0;
             for (auto& [node, entry] : stage) {
                 std::vector<Past>& pasts = entry.pasts;
                 release(entry.slots);
@@ -225,9 +226,10 @@ public:
                 }
                 tasks.push_back(Task{&node, &pasts, first, end, static_cast<double>(end - first) * fills, fills_from,
                                      fills_to});
+                past_bytes += static_cast<double>(pasts.capacity() * sizeof(Past));
                 units += tasks.back().units;
             }
-            begin_stage(k, units, last);
+            begin_stage(k, units, last, past_bytes);
             Stage next;
             double units_before = 0;
             for (const Task& task : tasks) {
@@ -498,6 +500,7 @@ private:
         built_future_values_ += static_cast<double>(values.size());
         merge_equal_values(values);
         take(future_node_bytes() + 4 * values.size() * sizeof(double));
+        future_bytes_ += static_cast<double>(future_node_bytes() + 4 * values.size() * sizeof(double));
         FutureList list;
         list.log_values.reserve(values.size());
         list.masses.reserve(values.size());
@@ -821,15 +824,20 @@ private:
     // and refuses, with the limit's own message, as soon as that cannot fit in the time left. The
     // processor time is turned into time on the clock by the share of it the test has had so far
     // (at least a quarter).
+    // The memory of the last stage is foreseen too (check_future_memory): the futures it builds
+    // stay until its end, beside everything but its pasts.
     // Each part is a lower estimate, so that a table that would finish is not refused; a table
     // whose cost only shows late (many stages that grow slowly) is still refused at the limit.
-    void begin_stage(std::size_t k, double units, bool last) {
+    void begin_stage(std::size_t k, double units, bool last, double past_bytes) {
         stage_ = k;
         last_stage_ = last;
         stage_units_ = units;
         units_done_ = 0;
         stage_started_ = cpu_seconds();
         stage_futures_seconds_ = futures_seconds_;
+        kept_bytes_ = static_cast<double>(memory_) - past_bytes;
+        stage_future_bytes_ = future_bytes_;
+        stage_future_values_ = built_future_values_;
         window_units_ = window_seconds_ = mark_units_ = mark_seconds_ = 0;
         check_forecast();
     }
@@ -875,6 +883,23 @@ private:
         // (a busy machine) would otherwise see every remaining step magnified many times.
         const double slowdown = cpu >= 0.05 ? std::clamp(wall / cpu, 1.0, max_slowdown) : 1.0;
         if (wall + seconds_left * slowdown > limits_.max_seconds) fail("time");
+        if (last_stage_) check_future_memory();
+    }
+
+    // The last stage keeps every futures list it builds until it ends, while its pasts are given
+    // back task by task; so at its end it holds at least what it held at its start less its pasts
+    // (kept_bytes_), and all the lists. The lists still to build hold at least the values the plan
+    // counted for them (planned_future_values_, before equal values merge), in bytes at half the
+    // pace of the lists built so far in the stage: equal values merge unevenly from list to list
+    // (on the bench tables a list took 6 to 27 bytes per counted value), and the half leaves room
+    // for that. Measured once the stage has built 100,000 values and 2% of its plan.
+    void check_future_memory() {
+        const double built = built_future_values_ - stage_future_values_;
+        const double left = planned_future_values_ - built_future_values_;
+        if (left <= 0 || built < std::max(1e5, 0.02 * (planned_future_values_ - stage_future_values_))) return;
+        const double bytes = future_bytes_ - stage_future_bytes_;
+        const double bytes_per_value = 0.5 * bytes / built;
+        if (kept_bytes_ + bytes + left * bytes_per_value > static_cast<double>(limits_.max_memory_bytes)) fail("memory");
     }
     static constexpr double early_forward_rate = 15e-9, settle_rate = 1e-9, default_future_rate = 20e-9;
     static constexpr double max_slowdown = 4;
@@ -914,6 +939,8 @@ private:
     double units_done_ = 0, stage_units_ = 0;
     std::size_t futures_depth_ = 0;
     double futures_seconds_ = 0;
+    // Bytes of the futures lists built, and for the last stage's memory forecast, what it started from.
+    double future_bytes_ = 0, kept_bytes_ = 0, stage_future_bytes_ = 0, stage_future_values_ = 0;
     double stage_started_ = 0, stage_futures_seconds_ = 0;
     double forward_rate_ = early_forward_rate;
     double planned_future_values_ = 0, built_future_values_ = 0;

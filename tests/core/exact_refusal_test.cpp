@@ -6,8 +6,10 @@
 #include <gtest/gtest.h>
 
 #include <string>
+#include <utility>
 #include <vector>
 
+#include "assoc/error.hpp"
 #include "assoc/exact_test.hpp"
 #include "test_support.hpp"
 
@@ -48,6 +50,33 @@ TEST(ExactRefusal, RefusesATableWhoseFuturesCannotFitInTheMemoryLimit) {
                       with_forecast(600, 5'000'000));
     }, "the exact test for this table needs more memory than allowed (the limit is 600 seconds and 5 MB of working "
        "memory); " + instead);
+}
+
+// The memory of the last stage's futures is foreseen from the lists built so far, and the
+// forecast must not refuse a table that fits: around the least memory bench/exact_suite.txt
+// "4x4_n80" (invented) needs (about 15.5 MB here; its futures hold about 530,000 values), every
+// limit gives the same outcome with the forecast as without it, a refusal naming the memory or
+// the very same p-value. Nothing here reads the clock in a way that matters (ten minutes).
+TEST(ExactRefusal, ForeseesTheMemoryOfTheFuturesWithoutRefusingATableThatFits) {
+    const CountTable table = counts_table({{6, 3, 0, 4}, {4, 6, 1, 6}, {5, 2, 4, 7}, {7, 2, 6, 17}});
+    // The p-value, or the refusal's message.
+    const auto outcome = [&table](std::size_t bytes, bool forecast) -> std::pair<double, std::string> {
+        try {
+            return {exact_p_value(table, Side::two_sided, with_forecast(600, bytes, forecast)), ""};
+        } catch (const Error& e) {
+            return {-1, e.what()};
+        }
+    };
+    int computed = 0, refused = 0;
+    for (std::size_t quarter_megabytes = 58; quarter_megabytes <= 66; ++quarter_megabytes) {
+        const std::size_t bytes = quarter_megabytes * 250'000;
+        const auto without = outcome(bytes, false);
+        EXPECT_EQ(outcome(bytes, true), without) << "limit of " << bytes << " bytes";
+        ++(without.second.empty() ? computed : refused);
+    }
+    // The limits straddle the need: some are refused, some computed.
+    EXPECT_GT(computed, 0);
+    EXPECT_GT(refused, 0);
 }
 
 // Tables of bench/exact_suite.txt that finish well within ASSOC.EXACT's limits (5 s, 400 MB), of
