@@ -209,6 +209,27 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
         }
     }
 
+    // Every count a number stored as text (imported or pasted data): each row under the header would
+    // read as another row of labels, and the refusals below would speak of titles and row fields.
+    if (header_row || header_column) {
+        std::size_t text_row = 0, text_column = 0, texts = 0;
+        bool only_number_texts = true;
+        for (std::size_t r = first_body_row; r < range.rows() && only_number_texts; ++r)
+            for (std::size_t c = first_body_column; c < range.columns() && only_number_texts; ++c) {
+                const Cell& cell = range.at(r, c);
+                if (cell.is_blank()) continue;
+                only_number_texts = detail::is_number_as_text(cell);
+                if (texts++ == 0) {
+                    text_row = r;
+                    text_column = c;
+                }
+            }
+        if (only_number_texts && texts > 0)
+            throw Error("the counts are numbers stored as text (as imported or pasted data often is; " +
+                        cell_name(text_row, text_column) + " holds " + range.at(text_row, text_column).describe() +
+                        "); counts must be numbers: enter them again as numbers, or convert those cells to numbers");
+    }
+
     // A second row of labels under the header row (blank rows between them or not): a title above the
     // table's header, or the field row of a pivot table ("Count - Employee", "Outcome") above its row of
     // labels. Which row names the columns is the author's to say, so it is refused with words rather

@@ -740,7 +740,14 @@ std::string text_among_counts_reason(const Cell& cell) {
     if (text == "-" || text == "–" || text == "—")
         return ", which a report may use for zero; counts must be numbers: leave the cell blank (read as 0) or "
                "enter 0";
-    // Digits, with a sign, separators of thousands and decimals (, . ' and spaces) or a percent sign.
+    if (is_number_as_text(cell))
+        return ", a number stored as text (as imported or pasted data often is); counts must be numbers: enter it "
+               "again as a number, or convert those cells to numbers";
+    return "; counts must be numbers";
+}
+
+bool is_number_as_text(const Cell& cell) {
+    const std::string_view text = cell.is_text() ? trimmed_label(cell.as_text()) : std::string_view();
     std::size_t digits = 0, other = 0;
     for (std::size_t k = 0; k < text.size(); ++k) {
         const char c = text[k];
@@ -750,10 +757,7 @@ std::string text_among_counts_reason(const Cell& cell) {
                    (k + 1 == text.size() && c == '%')))
             ++other;
     }
-    if (digits > 0 && other == 0)
-        return ", a number stored as text (as imported or pasted data often is); counts must be numbers: enter it "
-               "again as a number, or convert those cells to numbers";
-    return "; counts must be numbers";
+    return digits > 0 && other == 0;
 }
 
 bool names_percentages(std::string_view label) {

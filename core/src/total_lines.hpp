@@ -51,6 +51,10 @@ bool names_a_missing_value(std::string_view label);
 // a report uses for zero.
 std::string text_among_counts_reason(const Cell& cell);
 
+// Whether a cell is a number stored as text: digits with a sign, separators of thousands and decimals
+// (, . ' and spaces) or a final percent sign, and nothing else ("12", " 1,200 ", "-3").
+bool is_number_as_text(const Cell& cell);
+
 // Whether two sums are the same amount, to 1e-9 relative (rounding of sums of non-whole counts):
 // how a total line, a subtotal or a stratum of totals is recognised. Inline: the searches for total
 // lines call it for every position of every line of every table read.

@@ -240,6 +240,13 @@ class NumbersThatLabel(HabitCase):
         plain = self.put([[4, 6], [12, 15]], row=20)
         self.assertEqual(self.number("H1", f"=ASSOC.PVALUE({inner})"), self.number("H2", f"=ASSOC.PVALUE({plain})"))
 
+    def test_counts_an_import_left_as_text_are_refused_as_numbers_stored_as_text(self):
+        table = self.put([["Department", "Promoted", "Not promoted"], ["Sales", "30", "45"], ["Legal", "10", "80"]])
+        self.assertEqual(self.sheet.getCellRangeByName("B2").getType().value, "TEXT")
+        self.refused(f"=ASSOC.PVALUE({table})", f"=ASSOC.CHECK({table})",
+                     'the counts are numbers stored as text (as imported or pasted data often is; row 2, column 2 '
+                     'holds the text "30")', "enter them again as numbers")
+
 
 class WholeColumnsAndRecords(HabitCase):
     # Invented records: channel and outcome of 8 invoices, with headers in row 1.

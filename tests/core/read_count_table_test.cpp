@@ -126,6 +126,32 @@ TEST(ReadCountTable, RefusesTwoRowsOfLabelsSayingWhichToSelect) {
                  message);
 }
 
+// Counts that an import left as text ("10", " 1,200 "): every row under the header would read as
+// another row of labels, so the refusal says what they are instead of speaking of titles.
+TEST(ReadCountTable, RefusesCountsStoredAsTextSayingWhatTheyAre) {
+    const char* const message =
+        "the counts are numbers stored as text (as imported or pasted data often is; row 2, column 2 holds the text "
+        "\"10\"); counts must be numbers: enter them again as numbers, or convert those cells to numbers";
+    expect_error([] { read_count_table(grid({{"Department", "Yes", "No"}, {"Finance", "10", "12"},
+                                             {"Sales", "8", " 1,200 "}})); },
+                 message);
+    // A blank cell among them (read as 0 if they were numbers): the message names the first text.
+    expect_error([] { read_count_table(grid({{"Department", "Yes", "No"}, {"Finance", nullptr, "12"},
+                                             {"Sales", "8", "9"}})); },
+                 "the counts are numbers stored as text (as imported or pasted data often is; row 2, column 3 holds "
+                 "the text \"12\"); counts must be numbers: enter them again as numbers, or convert those cells to "
+                 "numbers");
+}
+
+// A second header row of years typed as text, above real counts, is still two rows of labels.
+TEST(ReadCountTable, RefusesAHeaderRowOfYearsAsTextAsTwoRowsOfLabels) {
+    expect_error([] { read_count_table(grid({{"Department", "Promoted", "Promoted"}, {nullptr, "2025", "2026"},
+                                             {"Finance", 4, 6}, {"Sales", 12, 15}})); },
+                 "rows 1 and 2 both hold only labels (row 2: \"2025\" and \"2026\"), but a table has one row of "
+                 "labels above its counts; select the table from its row of column labels down, leaving out a title "
+                 "or a pivot table's field row above it");
+}
+
 // Blank rows above the header, or a blank column left of the row labels: a range drawn from above or
 // from the left of the table. Read from there, the header would be taken for counts.
 TEST(ReadCountTable, RefusesBlankLinesBeforeTheLabelsSayingWhereToStart) {
