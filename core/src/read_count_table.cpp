@@ -82,6 +82,24 @@ bool counts_up_by_one(std::size_t length, CellAt cell_at) {
     return true;
 }
 
+// Whole numbers that rise in equal steps of 2 or more along a first row or column: the lower bounds
+// of bands (ages 20, 30, 40, 50; salaries 1000, 2000, 3000) or the points of a scale, typed as
+// numbers over their columns. Counts seldom do: at least 4 numbers, or 3 that are all multiples of 5.
+template <class CellAt>
+bool rises_in_equal_steps(std::size_t length, CellAt cell_at) {
+    if (length < 3 || !cell_at(0).is_number() || !cell_at(1).is_number()) return false;
+    const double start = cell_at(0).as_number(), step = cell_at(1).as_number() - start;
+    if (!(start >= 0 && start < 1e15) || start != std::floor(start) || !(step >= 2) || step != std::floor(step))
+        return false;
+    bool round = true;
+    for (std::size_t i = 0; i < length; ++i) {
+        const Cell& cell = cell_at(i);
+        if (!cell.is_number() || cell.as_number() != start + static_cast<double>(i) * step) return false;
+        round = round && std::fmod(cell.as_number(), 5.0) == 0;
+    }
+    return length >= 4 || round;
+}
+
 template <class CellAt>
 bool all_whole_numbers(std::size_t length, CellAt cell_at) {
     if (length < 2) return false;
@@ -326,6 +344,14 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
                                             : "count up by one as codes of departments or numbered categories do") +
                                    ", and they were read as counts; if they are labels, enter them as text (type an "
                                    "apostrophe first: '" + (ordinal ? std::string("1") : as_typed(start)) +
+                                   (label.is_text() ? ") so that they are read as labels." : ") or add a text header."));
+        } else if (rises_in_equal_steps(length, cell_at)) {
+            const double start = cell_at(0).as_number(), step = cell_at(1).as_number() - start;
+            label_doubts.push_back(std::string(line) + " holds the whole numbers " + as_typed(start) + ", " +
+                                   as_typed(start + step) + ", " + as_typed(start + 2 * step) + (length > 3 ? ", …" : "") +
+                                   ", which rise in equal steps as the bounds of bands (ages, pay) or the points of a "
+                                   "scale do, and they were read as counts; if they are labels, enter them as text (type "
+                                   "an apostrophe first: '" + as_typed(start) +
                                    (label.is_text() ? ") so that they are read as labels." : ") or add a text header."));
         }
     };

@@ -185,6 +185,30 @@ TEST(ValidityCheck, IsDoubtfulWhenTheFirstColumnCountsUpByOneAsCodesDo) {
         << check_validity(table).summary();
 }
 
+// Invented: survey answers by branch over age bands whose lower bounds were typed as numbers.
+TEST(ValidityCheck, IsDoubtfulWhenTheFirstRowRisesInEqualStepsAsBoundsOfBandsDo) {
+    const CountTable table =
+        assoc::test::table({{"Branch", 20, 30, 40, 50}, {"North", 10, 12, 4, 3}, {"South", 30, 25, 20, 9}});
+    EXPECT_EQ(check_validity(table).summary().rfind(
+                  "Doubtful: Row 1 holds the whole numbers 20, 30, 40, …, which rise in equal steps as the bounds of "
+                  "bands (ages, pay) or the points of a scale do, and they were read as counts; if they are labels, "
+                  "enter them as text (type an apostrophe first: '20) so that they are read as labels.",
+                  0),
+              0u)
+        << check_validity(table).summary();
+}
+
+// Counts that happen to rise in equal steps: three that are not all round, or steps of one unit
+// beyond the codes' pattern, stay Sound (common practice: counts seldom form such a run).
+TEST(ValidityCheck, StaysSoundWhenThreeCountsRiseInEqualStepsThatAreNotRound) {
+    const CountTable table =
+        assoc::test::table({{"Dept", "Promoted", "Not promoted"}, {"Sales", 14, 30}, {"Legal", 10, 24}, {"HR", 12, 27}});
+    EXPECT_EQ(check_validity(table).summary().rfind("Sound:", 0), 0u) << check_validity(table).summary();
+    const CountTable rising =
+        assoc::test::table({{"Group", 6, 9, 12}, {"Promoted", 14, 30, 22}, {"Not promoted", 10, 24, 27}});
+    EXPECT_EQ(check_validity(rising).summary().rfind("Sound:", 0), 0u) << check_validity(rising).summary();
+}
+
 TEST(ValidityCheck, IsDoubtfulWhenTheFirstColumnsLabelNamesCodes) {
     for (const char* label : {"Code", "Dept no.", "Cost centre ID", "Grade", "Age band"}) {
         const CountTable table =
