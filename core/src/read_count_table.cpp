@@ -84,7 +84,9 @@ bool counts_up_by_one(std::size_t length, CellAt cell_at) {
 
 // Whole numbers that rise in equal steps of 2 or more along a first row or column: the lower bounds
 // of bands (ages 20, 30, 40, 50; salaries 1000, 2000, 3000) or the points of a scale, typed as
-// numbers over their columns. Counts seldom do: at least 4 numbers, or 3 that are all multiples of 5.
+// numbers over their columns. Counts seldom do: at least 4 numbers, or 3 that are all multiples of 5;
+// and only a line that has a label in the corner cell is doubted, since a range of numbers alone is
+// counts selected without their labels (invented examples often hold 10, 20, 30).
 template <class CellAt>
 bool rises_in_equal_steps(std::size_t length, CellAt cell_at) {
     if (length < 3 || !cell_at(0).is_number() || !cell_at(1).is_number()) return false;
@@ -345,14 +347,13 @@ CountTable read_count_table(const CellGrid& range, const ReadOptions& options) {
                                    ", and they were read as counts; if they are labels, enter them as text (type an "
                                    "apostrophe first: '" + (ordinal ? std::string("1") : as_typed(start)) +
                                    (label.is_text() ? ") so that they are read as labels." : ") or add a text header."));
-        } else if (rises_in_equal_steps(length, cell_at)) {
+        } else if (label.is_text() && rises_in_equal_steps(length, cell_at)) {
             const double start = cell_at(0).as_number(), step = cell_at(1).as_number() - start;
             label_doubts.push_back(std::string(line) + " holds the whole numbers " + as_typed(start) + ", " +
                                    as_typed(start + step) + ", " + as_typed(start + 2 * step) + (length > 3 ? ", …" : "") +
                                    ", which rise in equal steps as the bounds of bands (ages, pay) or the points of a "
                                    "scale do, and they were read as counts; if they are labels, enter them as text (type "
-                                   "an apostrophe first: '" + as_typed(start) +
-                                   (label.is_text() ? ") so that they are read as labels." : ") or add a text header."));
+                                   "an apostrophe first: '" + as_typed(start) + ") so that they are read as labels.");
         }
     };
     // The corner cell labels the first row when there is a header column, and the first column when

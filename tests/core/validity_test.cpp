@@ -198,8 +198,8 @@ TEST(ValidityCheck, IsDoubtfulWhenTheFirstRowRisesInEqualStepsAsBoundsOfBandsDo)
         << check_validity(table).summary();
 }
 
-// Counts that happen to rise in equal steps: three that are not all round, or steps of one unit
-// beyond the codes' pattern, stay Sound (common practice: counts seldom form such a run).
+// Counts that happen to rise in equal steps stay Sound: three that are not all round, and any in a
+// range of numbers alone (common practice: counts seldom form such a run beside a label).
 TEST(ValidityCheck, StaysSoundWhenThreeCountsRiseInEqualStepsThatAreNotRound) {
     const CountTable table =
         assoc::test::table({{"Dept", "Promoted", "Not promoted"}, {"Sales", 14, 30}, {"Legal", 10, 24}, {"HR", 12, 27}});
@@ -207,6 +207,9 @@ TEST(ValidityCheck, StaysSoundWhenThreeCountsRiseInEqualStepsThatAreNotRound) {
     const CountTable rising =
         assoc::test::table({{"Group", 6, 9, 12}, {"Promoted", 14, 30, 22}, {"Not promoted", 10, 24, 27}});
     EXPECT_EQ(check_validity(rising).summary().rfind("Sound:", 0), 0u) << check_validity(rising).summary();
+    // Numbers alone, without labels: counts selected without them, however round.
+    const CountTable numbers = assoc::test::table({{10, 20, 30}, {30, 20, 10}, {20, 20, 20}});
+    EXPECT_EQ(check_validity(numbers).summary().rfind("Sound:", 0), 0u) << check_validity(numbers).summary();
 }
 
 TEST(ValidityCheck, IsDoubtfulWhenTheFirstColumnsLabelNamesCodes) {
