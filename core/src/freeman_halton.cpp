@@ -499,8 +499,9 @@ private:
         std::vector<Past> values = k + 2 == columns_.size() ? last_two_columns(node) : combined_futures(k, node);
         built_future_values_ += static_cast<double>(values.size());
         merge_equal_values(values);
-        take(future_node_bytes() + 4 * values.size() * sizeof(double));
-        future_bytes_ += static_cast<double>(future_node_bytes() + 4 * values.size() * sizeof(double));
+        const std::size_t list_bytes = future_node_bytes() + 4 * values.size() * sizeof(double);
+        take(list_bytes);
+        future_bytes_ += static_cast<double>(list_bytes);
         FutureList list;
         list.log_values.reserve(values.size());
         list.masses.reserve(values.size());

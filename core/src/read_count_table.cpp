@@ -67,39 +67,39 @@ std::string date_of_serial(double serial) {
     return std::to_string(day) + " " + names[month - 1] + " " + std::to_string(year);
 }
 
-// Whole numbers that count up by one along a first row or column of at least 3: 0, 1, 2, … or 1, 2, 3,
-// … (the numbers of ordered categories, such as courses taken, or a rating) or 101, 102, 103, … (codes
-// of departments or cost centres), typed as numbers; or counts that happen to rise by one.
+// The step by which whole numbers of 0 or more rise along a first row or column of at least 3
+// (start, start + step, start + 2·step, …; the step whole and positive), or 0 when they do not.
 template <class CellAt>
-bool counts_up_by_one(std::size_t length, CellAt cell_at) {
-    if (length < 3 || !cell_at(0).is_number()) return false;
-    const double start = cell_at(0).as_number();
-    if (!(start >= 0 && start < 1e15) || start != std::floor(start)) return false;
-    for (std::size_t i = 1; i < length; ++i) {
+double equal_step(std::size_t length, CellAt cell_at) {
+    if (length < 3 || !cell_at(0).is_number() || !cell_at(1).is_number()) return 0;
+    const double start = cell_at(0).as_number(), step = cell_at(1).as_number() - start;
+    if (!(start >= 0 && start < 1e15) || start != std::floor(start) || !(step >= 1) || step != std::floor(step))
+        return 0;
+    for (std::size_t i = 2; i < length; ++i) {
         const Cell& cell = cell_at(i);
-        if (!cell.is_number() || cell.as_number() != start + static_cast<double>(i)) return false;
+        if (!cell.is_number() || cell.as_number() != start + static_cast<double>(i) * step) return 0;
     }
-    return true;
+    return step;
 }
 
-// Whole numbers that rise in equal steps of 2 or more along a first row or column: the lower bounds
-// of bands (ages 20, 30, 40, 50; salaries 1000, 2000, 3000) or the points of a scale, typed as
-// numbers over their columns. Counts seldom do: at least 4 numbers, or 3 that are all multiples of 5;
-// and only a line that has a label in the corner cell is doubted, since a range of numbers alone is
-// counts selected without their labels (invented examples often hold 10, 20, 30).
+// Whole numbers that count up by one: 0, 1, 2, … or 1, 2, 3, … (the numbers of ordered categories,
+// such as courses taken, or a rating) or 101, 102, 103, … (codes of departments or cost centres),
+// typed as numbers; or counts that happen to rise by one.
+template <class CellAt>
+bool counts_up_by_one(std::size_t length, CellAt cell_at) {
+    return equal_step(length, cell_at) == 1;
+}
+
+// Whole numbers that rise in equal steps of 2 or more: the lower bounds of bands (ages 20, 30, 40,
+// 50; salaries 1000, 2000, 3000) or the points of a scale, typed as numbers over their columns.
+// Counts seldom do: at least 4 numbers, or 3 that are all multiples of 5; and only a line that has a
+// label in the corner cell is doubted (by the caller), since a range of numbers alone is counts
+// selected without their labels (invented examples often hold 10, 20, 30).
 template <class CellAt>
 bool rises_in_equal_steps(std::size_t length, CellAt cell_at) {
-    if (length < 3 || !cell_at(0).is_number() || !cell_at(1).is_number()) return false;
-    const double start = cell_at(0).as_number(), step = cell_at(1).as_number() - start;
-    if (!(start >= 0 && start < 1e15) || start != std::floor(start) || !(step >= 2) || step != std::floor(step))
-        return false;
-    bool round = true;
-    for (std::size_t i = 0; i < length; ++i) {
-        const Cell& cell = cell_at(i);
-        if (!cell.is_number() || cell.as_number() != start + static_cast<double>(i) * step) return false;
-        round = round && std::fmod(cell.as_number(), 5.0) == 0;
-    }
-    return length >= 4 || round;
+    const double step = equal_step(length, cell_at);
+    if (step < 2) return false;
+    return length >= 4 || (std::fmod(cell_at(0).as_number(), 5.0) == 0 && std::fmod(step, 5.0) == 0);
 }
 
 template <class CellAt>
