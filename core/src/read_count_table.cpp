@@ -435,25 +435,37 @@ void CountTable::finish(Matrix body, const ReadOptions& options, const std::vect
     whole_counts_ = whole;
     const double* const body_row_totals = body_totals.data();
     const double* const body_column_totals = body_totals.data() + body_rows_;
-    // Room for everything at once: a sheet may read thousands of small tables per recalculation.
-    kept_rows_.reserve(body_rows_);
-    kept_columns_.reserve(body_columns_);
+    // Room for everything at once, and nothing built twice: a sheet may read thousands of small tables
+    // per recalculation. When no line is set aside (the usual table), the kept lines are the
+    // categories and the counts are the body, so the accessors hand out those and no copy is made.
     category_rows_.reserve(body_rows_);
     category_columns_.reserve(body_columns_);
-    row_labels_.reserve(body_rows_);
-    column_labels_.reserve(body_columns_);
     for (std::size_t r = 0; r < body_rows_; ++r) {
         if (!total_rows[r]) category_rows_.push_back(r);
         if (total_rows[r]) set_aside_rows_.push_back({r, body_row_labels_[r], SetAside::Why::total, range_row(r)});
-        else if (body_row_totals[r] > 0) kept_rows_.push_back(r);
-        else set_aside_rows_.push_back({r, body_row_labels_[r], SetAside::Why::no_counts, range_row(r)});
+        else if (!(body_row_totals[r] > 0))
+            set_aside_rows_.push_back({r, body_row_labels_[r], SetAside::Why::no_counts, range_row(r)});
     }
     for (std::size_t c = 0; c < body_columns_; ++c) {
         if (!total_columns[c]) category_columns_.push_back(c);
         if (total_columns[c]) set_aside_columns_.push_back({c, body_column_labels_[c], SetAside::Why::total, range_column(c)});
-        else if (body_column_totals[c] > 0) kept_columns_.push_back(c);
-        else set_aside_columns_.push_back({c, body_column_labels_[c], SetAside::Why::no_counts, range_column(c)});
+        else if (!(body_column_totals[c] > 0))
+            set_aside_columns_.push_back({c, body_column_labels_[c], SetAside::Why::no_counts, range_column(c)});
     }
+    every_row_kept_ = set_aside_rows_.empty();
+    every_column_kept_ = set_aside_columns_.empty();
+    if (!every_row_kept_) {
+        kept_rows_.reserve(body_rows_);
+        for (std::size_t r : category_rows_)
+            if (body_row_totals[r] > 0) kept_rows_.push_back(r);
+    }
+    if (!every_column_kept_) {
+        kept_columns_.reserve(body_columns_);
+        for (std::size_t c : category_columns_)
+            if (body_column_totals[c] > 0) kept_columns_.push_back(c);
+    }
+    const std::vector<std::size_t>& rows_kept = kept_rows();
+    const std::vector<std::size_t>& columns_kept = kept_columns();
 
     if (options.require_two_by_two) {
         auto shortfall = [](std::size_t kept, const std::vector<SetAside>& aside, const char* word) {
@@ -468,22 +480,29 @@ void CountTable::finish(Matrix body, const ReadOptions& options, const std::vect
             if (!parts.empty()) message += " (" + name_list(parts) + " set aside)";
             return message + "; a test of association needs at least 2 rows and 2 columns with counts";
         };
-        if (kept_rows_.size() < 2) throw Error(shortfall(kept_rows_.size(), set_aside_rows_, "row"));
-        if (kept_columns_.size() < 2) throw Error(shortfall(kept_columns_.size(), set_aside_columns_, "column"));
+        if (rows_kept.size() < 2) throw Error(shortfall(rows_kept.size(), set_aside_rows_, "row"));
+        if (columns_kept.size() < 2) throw Error(shortfall(columns_kept.size(), set_aside_columns_, "column"));
     }
 
-    counts_ = Matrix(kept_rows_.size(), kept_columns_.size());
-    row_totals_.assign(kept_rows_.size(), 0.0);
-    column_totals_.assign(kept_columns_.size(), 0.0);
-    for (std::size_t r = 0; r < kept_rows_.size(); ++r) {
-        row_totals_[r] = body_row_totals[kept_rows_[r]];
-        row_labels_.push_back(body_row_labels_[kept_rows_[r]]);
-        for (std::size_t c = 0; c < kept_columns_.size(); ++c) counts_(r, c) = body_(kept_rows_[r], kept_columns_[c]);
+    if (!(every_row_kept_ && every_column_kept_)) {
+        counts_ = Matrix(rows_kept.size(), columns_kept.size());
+        for (std::size_t r = 0; r < rows_kept.size(); ++r)
+            for (std::size_t c = 0; c < columns_kept.size(); ++c) counts_(r, c) = body_(rows_kept[r], columns_kept[c]);
     }
-    for (std::size_t c = 0; c < kept_columns_.size(); ++c) {
-        column_totals_[c] = body_column_totals[kept_columns_[c]];
-        column_labels_.push_back(body_column_labels_[kept_columns_[c]]);
+    if (!every_row_kept_) {
+        row_labels_.reserve(rows_kept.size());
+        for (std::size_t r : rows_kept) row_labels_.push_back(body_row_labels_[r]);
     }
+    if (!every_column_kept_) {
+        column_labels_.reserve(columns_kept.size());
+        for (std::size_t c : columns_kept) column_labels_.push_back(body_column_labels_[c]);
+    }
+    column_totals_.resize(columns_kept.size());
+    for (std::size_t c = 0; c < columns_kept.size(); ++c) column_totals_[c] = body_column_totals[columns_kept[c]];
+    // The row totals take over the body's sums (rows first) in place.
+    for (std::size_t r = 0; r < rows_kept.size(); ++r) body_totals[r] = body_row_totals[rows_kept[r]];
+    body_totals.resize(rows_kept.size());
+    row_totals_ = std::move(body_totals);
     total_ = 0.0;
     for (double t : row_totals_) total_ += t;
     require(std::isfinite(total_), "the counts add up to more than a spreadsheet number can hold");
@@ -508,8 +527,10 @@ Matrix CountTable::category_counts() const {
 
 Matrix CountTable::to_body_shape(const Matrix& kept, double fill) const {
     Matrix body(body_rows_, body_columns_, fill);
-    for (std::size_t r = 0; r < kept_rows_.size(); ++r)
-        for (std::size_t c = 0; c < kept_columns_.size(); ++c) body(kept_rows_[r], kept_columns_[c]) = kept(r, c);
+    const std::vector<std::size_t>& rows_kept = kept_rows();
+    const std::vector<std::size_t>& columns_kept = kept_columns();
+    for (std::size_t r = 0; r < rows_kept.size(); ++r)
+        for (std::size_t c = 0; c < columns_kept.size(); ++c) body(rows_kept[r], columns_kept[c]) = kept(r, c);
     return body;
 }
 

@@ -13,6 +13,8 @@
 #include <utility>
 #include <vector>
 
+#include <boost/container/small_vector.hpp>
+
 #include "assoc/cell.hpp"
 #include "assoc/error.hpp"
 #include "assoc/wording.hpp"
@@ -139,7 +141,8 @@ struct Lines {
 
 // Whether `line` holds the sum of `others` (leaving out `except`) at every position not excluded
 // by `skip`.
-bool holds_sum(const Lines& lines, std::size_t line, const std::vector<std::size_t>& others, const std::vector<char>& skip,
+template <class Indices>
+bool holds_sum(const Lines& lines, std::size_t line, const Indices& others, const std::vector<char>& skip,
                std::size_t except = static_cast<std::size_t>(-1)) {
     for (std::size_t k = 0; k < lines.length(); ++k) {
         if (skip[k]) continue;
@@ -163,17 +166,18 @@ std::string capitalised(std::string text) {
 }
 
 // Buffers that the searches of both sides reuse: every table read runs them, thousands of times in a
-// sheet of small tables, where allocations cost more than the sums.
+// sheet of small tables, where allocations cost more than the sums (a table of up to 16 lines a side
+// needs none).
 struct Workspace {
-    std::vector<std::size_t> lines;
-    std::vector<double> sums;
+    boost::container::small_vector<std::size_t, 16> lines;
+    boost::container::small_vector<double, 16> sums;
 };
 
 // Looks for total lines on one side: `total` gets the labelled ones and `skip` holds the labelled
 // totals of the other side, whose positions take no part in the sums.
 void find_on_side(const Lines& lines, const BodySide& side, std::vector<char>& total, const std::vector<char>& skip,
                   std::vector<std::string>& doubts, Workspace& workspace) {
-    std::vector<std::size_t>& data = workspace.lines;
+    auto& data = workspace.lines;
     data.clear();
     for (std::size_t i = 0; i < lines.count(); ++i)
         if (!total[i]) data.push_back(i);
@@ -248,9 +252,9 @@ void find_subtotals(const Lines& lines, const BodySide& side, const std::vector<
     for (std::size_t i = 0; i < lines.count(); ++i)
         if (!total[i] && !lines.empty(i)) ++data_lines;
     if (lines.count() < 3) return;
-    std::vector<double>& sum = workspace.sums;
+    auto& sum = workspace.sums;
     sum.resize(lines.length());
-    std::vector<std::size_t>& block = workspace.lines;
+    auto& block = workspace.lines;
     for (std::size_t i = 2; i < lines.count(); ++i) {
         if (total[i] || lines.empty(i)) continue;
         std::fill(sum.begin(), sum.end(), 0.0);

@@ -43,10 +43,10 @@ struct ReadOptions {
 class CountTable {
 public:
     // The counts of the rows and columns that take part, in their original order.
-    const Matrix& counts() const { return counts_; }
-    std::size_t rows() const { return counts_.rows(); }
-    std::size_t columns() const { return counts_.columns(); }
-    double count(std::size_t row, std::size_t column) const { return counts_(row, column); }
+    const Matrix& counts() const { return every_row_kept_ && every_column_kept_ ? body_ : counts_; }
+    std::size_t rows() const { return counts().rows(); }
+    std::size_t columns() const { return counts().columns(); }
+    double count(std::size_t row, std::size_t column) const { return counts()(row, column); }
 
     double total() const { return total_; }
     double row_total(std::size_t row) const { return row_totals_[row]; }
@@ -55,8 +55,10 @@ public:
     const std::vector<double>& column_totals() const { return column_totals_; }
 
     // Labels of the kept rows/columns, trimmed ("" where the range has no header).
-    const std::vector<std::string>& row_labels() const { return row_labels_; }
-    const std::vector<std::string>& column_labels() const { return column_labels_; }
+    const std::vector<std::string>& row_labels() const { return every_row_kept_ ? body_row_labels_ : row_labels_; }
+    const std::vector<std::string>& column_labels() const {
+        return every_column_kept_ ? body_column_labels_ : column_labels_;
+    }
     bool has_row_labels() const { return has_row_labels_; }
     bool has_column_labels() const { return has_column_labels_; }
     // Labels of every body row/column, set-aside ones included.
@@ -71,8 +73,8 @@ public:
     std::size_t range_row(std::size_t index) const { return index + (has_column_labels_ ? 2 : 1); }
     std::size_t range_column(std::size_t index) const { return index + (has_row_labels_ ? 2 : 1); }
     // Body position of each kept row/column.
-    const std::vector<std::size_t>& kept_rows() const { return kept_rows_; }
-    const std::vector<std::size_t>& kept_columns() const { return kept_columns_; }
+    const std::vector<std::size_t>& kept_rows() const { return every_row_kept_ ? category_rows_ : kept_rows_; }
+    const std::vector<std::size_t>& kept_columns() const { return every_column_kept_ ? category_columns_ : kept_columns_; }
     const std::vector<SetAside>& set_aside_rows() const { return set_aside_rows_; }
     const std::vector<SetAside>& set_aside_columns() const { return set_aside_columns_; }
     // Body positions of the rows/columns that are not totals (empty ones included): the categories
@@ -106,6 +108,9 @@ private:
     void finish(Matrix body, const ReadOptions& options, const std::vector<char>& total_rows,
                 const std::vector<char>& total_columns, std::vector<double> body_totals, bool whole);
 
+    // When no row (column) is set aside, the kept rows (columns) are the body's: counts(), the labels
+    // and kept_rows() then hand out the body's own members, and the kept copies stay empty.
+    bool every_row_kept_ = false, every_column_kept_ = false;
     Matrix counts_;
     Matrix body_;
     double total_ = 0.0;
