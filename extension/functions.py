@@ -400,8 +400,12 @@ FUNCTIONS = [
         "row", "one row: the p-value, the statistic X², the degrees of freedom; a plain entry shows the p-value",
         ["The degrees of freedom are the categories − 1 − estimated. A category expected to have no counts "
          "must have none, and is then left out. Expected values under a label that speaks of percentages "
-         "(\"Plan %\") must add up to 100 (within 1, for rounding): otherwise a category is missing or a value "
-         "mistyped, and they are an error rather than rescaled.",
+         "(\"Plan %\") must add up to 100 (within 1, for rounding), or to 1 when the cells are formatted as "
+         "percentages (30% holds 0.3): otherwise a category is missing or a value mistyped, and they are an error "
+         "rather than rescaled. So are expected values that are all shares (from 0 to below 1) and do not add up to "
+         "1 even allowing for their rounding (half a unit of their last decimal each: 0.3, 0.3, 0.3 for thirds is "
+         "taken, 0.25, 0.35, 0.3 is not). Total rows in either range are set aside, and ASSOC.CHECK with "
+         "\"ASSOC.FIT\" says so.",
          "When both ranges name their categories (a column of labels beside each, every label different), the "
          "expected values are matched to the observed categories by label, whatever their order (spaces at the "
          "ends and capitals aside); labels that differ are an error that names them. Otherwise the values are "

@@ -9,6 +9,7 @@
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
 #include "assoc/format.hpp"
+#include "assoc/validity.hpp"
 #include "assoc/wording.hpp"
 #include "exact_margins.hpp"
 #include "row_names.hpp"
@@ -23,6 +24,9 @@ std::string values_phrase(std::size_t n) { return std::to_string(n) + (n == 1 ? 
 struct Line {
     std::vector<double> values;
     std::vector<std::string> labels;  // one per value, or none
+    // What reading the range set aside or doubted (a "Total" row left out, a line that holds the sum of
+    // the others), for ASSOC.CHECK: said, not only done.
+    std::vector<std::string> notes;
 };
 
 // One row or one column of numbers, with the labels a table may have; zeros are kept in place.
@@ -45,6 +49,7 @@ Line read_line(const CellGrid& range, bool counts_only) {
     if (line.values.size() > 1) line.labels = detail::category_labels(table, along_rows);
     if (std::any_of(line.labels.begin(), line.labels.end(), [](const std::string& label) { return label.empty(); }))
         line.labels.clear();
+    line.notes = table_notes(table);
     return line;
 }
 
@@ -165,10 +170,40 @@ void require_whole_percentages(const CellGrid& expected, const std::vector<doubl
     if (!percent) return;  // "shares" may be parts in any unit (9 : 3 : 3 : 1)
     double sum = 0;
     for (double value : values) sum += value;
-    if (std::fabs(sum - 100) <= 1) return;
+    // Cells formatted as percentages hold shares (30% is 0.3): those add up to 1.
+    if (std::fabs(sum - 100) <= 1 || std::fabs(sum - 1) <= 0.01) return;
     throw Error("in the expected range: the percentages under the label " + quoted_label(expected.at(0, 0).as_text()) +
                 " add up to " + format_number(sum, 6) + ", not 100, so a category may be missing or a value mistyped; "
                 "correct them, or give expected counts under a label that does not speak of percentages");
+}
+
+// Smallest number of decimals (up to 9) that writes every value: how finely they were rounded.
+int decimals_of(const std::vector<double>& values) {
+    for (int decimals = 0; decimals < 9; ++decimals) {
+        const double scale = std::pow(10.0, decimals);
+        if (std::all_of(values.begin(), values.end(), [&](double v) {
+                return std::fabs(v * scale - std::nearbyint(v * scale)) <= 1e-6;
+            }))
+            return decimals;
+    }
+    return 9;
+}
+
+// Expected values that are all shares (numbers from 0 to below 1, none a whole unit) must add up to 1,
+// allowing for their rounding (half a unit of their last decimal each): shares that add up to 0.9 miss
+// a category or hold a mistyped value, and rescaling them would test against a plan nobody meant.
+// Values of 1 or more are parts in any unit (9 : 3 : 3 : 1) and are rescaled.
+void require_whole_shares(const std::vector<double>& values) {
+    if (values.size() < 2 || std::any_of(values.begin(), values.end(), [](double v) { return !(v >= 0 && v < 1); }))
+        return;
+    double sum = 0;
+    for (double value : values) sum += value;
+    if (sum == 0) return;  // said by the test itself
+    const double rounding = 0.5 * std::pow(10.0, -decimals_of(values)) * static_cast<double>(values.size());
+    if (std::fabs(sum - 1) <= std::max(rounding, 1e-9)) return;
+    throw Error("in the expected range: the values are shares (all between 0 and 1) but add up to " +
+                format_number(sum, 6) + ", not 1, even allowing for their rounding, so a category may be missing or a "
+                "value mistyped; correct them so that they add up to 1, or give expected counts");
 }
 
 }  // namespace
@@ -176,7 +211,7 @@ void require_whole_percentages(const CellGrid& expected, const std::vector<doubl
 GoodnessOfFit goodness_of_fit(const CellGrid& observed, const CellGrid& expected, double estimated) {
     const Line observed_line = read_line(observed, true);
     std::vector<double> expected_values;
-    std::vector<std::string> remarks;
+    std::vector<std::string> remarks = observed_line.notes;
     if (!expected.empty()) {
         Line expected_line;
         try {
@@ -186,6 +221,12 @@ GoodnessOfFit goodness_of_fit(const CellGrid& observed, const CellGrid& expected
             throw Error(std::string("in the expected range: ") + error.what());
         }
         require_whole_percentages(expected, expected_line.values);
+        require_whole_shares(expected_line.values);
+        for (std::string note : expected_line.notes) {
+            if (note.size() > 1 && note[0] >= 'A' && note[0] <= 'Z' && note[1] >= 'a' && note[1] <= 'z')
+                note[0] = static_cast<char>(note[0] - 'A' + 'a');
+            remarks.push_back("In the expected range: " + note);
+        }
         if (expected_line.values.size() == observed_line.values.size())
             expected_values = expected_by_label(observed_line, expected_line, remarks);
         else

@@ -168,3 +168,46 @@ TEST(GoodnessOfFit, RefusesRangesThatNameDifferentCategories) {
                  "range: \"West\". Give both the same labels (spaces at the ends and capitals aside), or leave the labels "
                  "out of the expected range to take its values in the observed range's order");
 }
+
+// Invented: staff by site against planned shares that miss a site (0.25 + 0.35 + 0.3 = 0.9); rounded
+// to two decimals they could add up to 0.9 ± 0.015 at most, so no rounding explains it.
+TEST(GoodnessOfFit, RefusesSharesThatDoNotAddUpToOne) {
+    expect_error([] { goodness_of_fit(grid({{30}, {20}, {50}}), grid({{0.25}, {0.35}, {0.3}})); },
+                 "in the expected range: the values are shares (all between 0 and 1) but add up to 0.9, not 1, even "
+                 "allowing for their rounding, so a category may be missing or a value mistyped; correct them so that "
+                 "they add up to 1, or give expected counts");
+}
+
+TEST(GoodnessOfFit, TakesSharesThatAddUpToOneOnceRounded) {
+    // Thirds rounded to one decimal (0.3 each, 0.9 in all) are within 3 × 0.05 of 1: equal shares, as
+    // equal shares in any unit are (exact identity).
+    const GoodnessOfFit rounded = goodness_of_fit(grid({{30}, {20}, {50}}), grid({{0.3}, {0.3}, {0.3}}));
+    const GoodnessOfFit plain = goodness_of_fit(grid({{30}, {20}, {50}}), grid({{1}, {1}, {1}}));
+    EXPECT_EQ(rounded.p_value, plain.p_value);
+}
+
+TEST(GoodnessOfFit, TakesPercentageCellsThatHoldShares) {
+    // A cell formatted as a percentage holds its share (30% is 0.3), under a label that speaks of percent.
+    const GoodnessOfFit shares = goodness_of_fit(grid({{"Staff"}, {30}, {20}, {50}}), grid({{"Plan %"}, {0.3}, {0.2}, {0.5}}));
+    // The counts are the plan's shares of 100: X² is 0 but for the binary rounding of 0.3 and 0.2.
+    EXPECT_LT(shares.statistic, 1e-25);
+}
+
+// Invented: staff by region with the sheet's "Total" row inside the observed range.
+TEST(GoodnessOfFit, SaysThatATotalRowWasSetAside) {
+    const GoodnessOfFit fit = goodness_of_fit(grid({{"Region", "Staff"}, {"North", 40}, {"South", 35}, {"East", 25},
+                                                    {"Total", 100}}),
+                                              CellGrid());
+    // (40-100/3)² + (35-100/3)² + (25-100/3)² over 100/3: 350/3 / (100/3) = 3.5 (exact identity).
+    EXPECT_NEAR_REL(fit.statistic, 3.5, 1e-14);
+    ASSERT_EQ(fit.remarks.size(), 1u);
+    EXPECT_EQ(fit.remarks[0], "The row \"Total\" is a total and was set aside.");
+}
+
+TEST(GoodnessOfFit, SaysWhatWasSetAsideInTheExpectedRange) {
+    const GoodnessOfFit fit = goodness_of_fit(grid({{"Staff"}, {30}, {20}, {50}}),
+                                              grid({{"Region", "Plan"}, {"North", 3}, {"South", 2}, {"East", 5}, {"Total", 10}}));
+    EXPECT_EQ(fit.statistic, 0.0);
+    ASSERT_EQ(fit.remarks.size(), 1u);
+    EXPECT_EQ(fit.remarks[0], "In the expected range: the row \"Total\" is a total and was set aside.");
+}
