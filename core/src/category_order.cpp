@@ -69,11 +69,12 @@ const std::vector<std::vector<std::string_view>>& scales() {
 
 // Each label's place on one common scale, or empty when no one scale holds them all.
 std::vector<double> scale_places(const std::vector<std::string>& labels) {
+    std::vector<std::string> folded;
+    for (const std::string& label : labels) folded.push_back(folded_label(label));
     for (const std::vector<std::string_view>& scale : scales()) {
         std::vector<double> places;
-        for (const std::string& label : labels) {
-            const std::string folded = folded_label(label);
-            const auto at = std::find(scale.begin(), scale.end(), std::string_view(folded));
+        for (const std::string& label : folded) {
+            const auto at = std::find(scale.begin(), scale.end(), std::string_view(label));
             if (at == scale.end()) break;
             places.push_back(static_cast<double>(at - scale.begin()));
         }

@@ -159,24 +159,6 @@ GoodnessOfFit goodness_of_fit(const std::vector<double>& observed, const std::ve
 
 namespace {
 
-// Expected values under a label that says they are percentages ("Expected %") must add up to 100:
-// otherwise a category is missing or a value mistyped, and rescaling them would test against shares
-// nobody meant. Rounding within 1 is allowed.
-void require_whole_percentages(const CellGrid& expected, const std::vector<double>& values) {
-    if (expected.empty() || !expected.at(0, 0).is_text()) return;
-    const std::string& label = expected.at(0, 0).as_text();
-    // Any "%" here, even after a digit ("Plan 2026 %"); the words as a count table reads them.
-    const bool percent = label.find('%') != std::string::npos || detail::names_percentages(label);
-    if (!percent) return;  // "shares" may be parts in any unit (9 : 3 : 3 : 1)
-    double sum = 0;
-    for (double value : values) sum += value;
-    // Cells formatted as percentages hold shares (30% is 0.3): those add up to 1.
-    if (std::fabs(sum - 100) <= 1 || std::fabs(sum - 1) <= 0.01) return;
-    throw Error("in the expected range: the percentages under the label " + quoted_label(expected.at(0, 0).as_text()) +
-                " add up to " + format_number(sum, 6) + ", not 100, so a category may be missing or a value mistyped; "
-                "correct them, or give expected counts under a label that does not speak of percentages");
-}
-
 // Smallest number of decimals (up to 9) that writes every value: how finely they were rounded.
 int decimals_of(const std::vector<double>& values) {
     for (int decimals = 0; decimals < 9; ++decimals) {
@@ -189,16 +171,28 @@ int decimals_of(const std::vector<double>& values) {
     return 9;
 }
 
-// Expected values that are all shares (numbers from 0 to below 1, none a whole unit) must add up to 1,
-// allowing for their rounding (half a unit of their last decimal each): shares that add up to 0.9 miss
-// a category or hold a mistyped value, and rescaling them would test against a plan nobody meant.
-// Values of 1 or more are parts in any unit (9 : 3 : 3 : 1) and are rescaled.
-void require_whole_shares(const std::vector<double>& values) {
-    if (values.size() < 2 || std::any_of(values.begin(), values.end(), [](double v) { return !(v >= 0 && v < 1); }))
-        return;
+// Expected values that show what they add up to must add up to it; otherwise a category is missing or
+// a value mistyped, and rescaling them would test against a plan nobody meant:
+// - under a label that says they are percentages ("Expected %"), 100 within 1, or 1 within 0.01 when
+//   the cells are formatted as percentages (30% holds 0.3);
+// - values that are all shares (from 0 to below 1, none a whole unit), 1 allowing for their rounding
+//   (half a unit of their last decimal each).
+// Other values are parts in any unit (9 : 3 : 3 : 1) and are rescaled.
+void require_plan_adds_up(const CellGrid& expected, const std::vector<double>& values) {
     double sum = 0;
     for (double value : values) sum += value;
-    if (sum == 0) return;  // said by the test itself
+    if (!expected.empty() && expected.at(0, 0).is_text()) {
+        const std::string& label = expected.at(0, 0).as_text();
+        // Any "%" here, even after a digit ("Plan 2026 %"); the words as a count table reads them.
+        const bool percent = label.find('%') != std::string::npos || detail::names_percentages(label);
+        if (percent && !(std::fabs(sum - 100) <= 1 || std::fabs(sum - 1) <= 0.01))
+            throw Error("in the expected range: the percentages under the label " + quoted_label(label) + " add up to " +
+                        format_number(sum, 6) + ", not 100, so a category may be missing or a value mistyped; correct "
+                        "them, or give expected counts under a label that does not speak of percentages");
+    }
+    if (values.size() < 2 || sum == 0 ||  // a plan of zeros is said by the test itself
+        std::any_of(values.begin(), values.end(), [](double v) { return !(v >= 0 && v < 1); }))
+        return;
     const double rounding = 0.5 * std::pow(10.0, -decimals_of(values)) * static_cast<double>(values.size());
     if (std::fabs(sum - 1) <= std::max(rounding, 1e-9)) return;
     throw Error("in the expected range: the values are shares (all between 0 and 1) but add up to " +
@@ -220,8 +214,7 @@ GoodnessOfFit goodness_of_fit(const CellGrid& observed, const CellGrid& expected
             // The reader's messages speak of counts; say which range they are about.
             throw Error(std::string("in the expected range: ") + error.what());
         }
-        require_whole_percentages(expected, expected_line.values);
-        require_whole_shares(expected_line.values);
+        require_plan_adds_up(expected, expected_line.values);
         for (std::string note : expected_line.notes) {
             if (note.size() > 1 && note[0] >= 'A' && note[0] <= 'Z' && note[1] >= 'a' && note[1] <= 'z')
                 note[0] = static_cast<char>(note[0] - 'A' + 'a');

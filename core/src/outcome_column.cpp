@@ -1,8 +1,9 @@
 #include "assoc/outcome_column.hpp"
 
 #include <algorithm>
-#include <utility>
+#include <cstring>
 #include <iterator>
+#include <utility>
 
 #include "assoc/error.hpp"
 #include "assoc/wording.hpp"
@@ -94,7 +95,7 @@ void require_outcome_first(const std::string& outcome, const std::vector<std::st
                     ", reads as the absence of the column " + quoted_label(other) + ", and the " + position +
                     " column is the outcome: " + measure + " would measure " + quoted_label(outcome) + ", not " +
                     quoted_label(other) + " (a table in sorted order, as a pivot table is, puts \"No\" before \"Yes\"); "
-                    "put the column " + quoted_label(other) + " " + (std::string(position) == "first" ? "first" : "before it") +
+                    "put the column " + quoted_label(other) + " " + (std::strcmp(position, "first") == 0 ? "first" : "before it") +
                     ". If " + quoted_label(outcome) + " is the outcome you mean, leave the header row out of the range");
     }
 }

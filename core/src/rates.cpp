@@ -83,11 +83,11 @@ CountTable read_rate_table(const CellGrid& range) {
 // another column of counts.
 void require_outcome_column_first(const CountTable& table, const char* measure) {
     if (!table.has_column_labels()) return;
-    const std::vector<std::size_t>& columns = table.category_columns();
-    if (columns.empty()) return;
-    std::vector<std::string> others;
-    for (std::size_t k = 1; k < columns.size(); ++k) others.push_back(table.body_column_labels()[columns[k]]);
-    detail::require_outcome_first(table.body_column_labels()[columns[0]], others, measure);
+    std::vector<std::string> others = detail::category_labels(table, false);
+    if (others.empty()) return;
+    const std::string outcome = others.front();
+    others.erase(others.begin());
+    detail::require_outcome_first(outcome, others, measure);
 }
 
 }  // namespace

@@ -6,6 +6,7 @@
 #include "assoc/strata.hpp"
 #include "assoc/validity.hpp"
 #include "assoc/wording.hpp"
+#include "row_names.hpp"
 #include "total_lines.hpp"
 
 namespace assoc {
@@ -181,7 +182,7 @@ Strata read_strata(const CellGrid& given) {
 
     Strata result;
     result.blank_cells = read.blank_cells();
-    for (std::size_t c : read.category_columns()) result.column_labels.push_back(read.body_column_labels()[c]);
+    result.column_labels = detail::category_labels(read, false);
     result.remarks = table_notes(read);  // doubts, how it was read, total lines set aside
     std::vector<std::string> labels;        // the group (or stratum) label of each category row
     std::vector<std::string> stratum_names;  // from the stratum column(s), "" where blank
