@@ -461,7 +461,10 @@ FUNCTIONS = [
          "zeros, which the other functions set aside.",
          "Whole columns (B:B) may be given: the blank cells below the last record are no records, and a first "
          "cell that holds a text found nowhere else in the column is its header and is left out (ASSOC.CHECK "
-         "says so). A weight that is negative, or text, is an error that names its row.",
+         "says so). A weight that is negative, or text, is an error that names its row. A header repeated "
+         "among the records (the first row again lower down, its texts found nowhere else, as in a report "
+         "pasted page by page) is an error that names its rows; such a line lower down only is counted, and "
+         "ASSOC.CHECK with \"counts\" points it out.",
          "The order of the rows and columns is that of ASSOC.LEVELS (see there for how texts are sorted)."],
         "=ASSOC.COUNTS(B2:B200; C2:C200)"),
     Function(

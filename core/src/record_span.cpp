@@ -3,6 +3,7 @@
 #include <algorithm>
 #include <set>
 #include <string_view>
+#include <unordered_map>
 
 #include "assoc/error.hpp"
 #include "assoc/wording.hpp"
@@ -228,11 +229,109 @@ void refuse_total_line_at_end(const std::vector<const CodedLabels*>& labels, con
     }
 }
 
+// Records whose every cell is a text found nowhere else in its range but in records identical to
+// them: a header repeated among the records (a report pasted page by page) or a note. The same texts
+// on top of the records and again further down are such a header, counted as records: refused,
+// naming them (set aside, they would misalign the counts with ASSOC.LEVELS on one of the ranges, which
+// cannot tell). Found lower down, they may be a small group of their own (the one person of a
+// department who gave an answer no one else gave), so they are counted and said. Only with two ranges
+// or more, among at least 6 records whose labels repeat in every range, and at most 3 such groups.
+void look_for_repeated_headers(const std::vector<const CodedLabels*>& labels, RecordSpan& span) {
+    if (labels.size() < 2 || span.end < span.first + 6) return;
+    const std::size_t ranges = labels.size();
+    constexpr std::size_t none = static_cast<std::size_t>(-1);
+    // Every range's spellings as levels (equal texts one level, each number its own) and their counts.
+    std::vector<std::vector<std::size_t>> level(ranges), count(ranges);
+    for (std::size_t r = 0; r < ranges; ++r) {
+        const CodedLabels& range = *labels[r];
+        std::unordered_map<std::string_view, std::size_t> texts;
+        level[r].resize(range.spellings.size());
+        for (std::size_t s = 0; s < range.spellings.size(); ++s)
+            level[r][s] = range.spellings[s].is_text()
+                              ? texts.emplace(trimmed_label(range.spellings[s].as_text()), texts.size()).first->second
+                              : range.spellings.size() + s;
+        count[r].assign(2 * range.spellings.size(), 0);
+        for (std::size_t i = span.first; i < span.end; ++i)
+            if (!blank_at(range, i)) ++count[r][level[r][range.codes[i]]];
+    }
+    const auto level_at = [&](std::size_t r, std::size_t i) { return level[r][labels[r]->codes[i]]; };
+    // A candidate holds texts in every range, each as often as the others: the group of its level in
+    // the first range, if every record of it is identical, is such a line.
+    std::vector<std::size_t> first_of(count[0].size(), none);
+    std::vector<bool> identical(count[0].size(), true);
+    for (std::size_t i = span.first; i < span.end; ++i) {
+        bool candidate = true;
+        for (std::size_t r = 0; r < ranges && candidate; ++r)
+            candidate = is_text_code(*labels[r], blank_at(*labels[r], i) ? CodedLabels::blank : labels[r]->codes[i]) &&
+                        count[r][level_at(r, i)] == count[0][level_at(0, i)];
+        const std::size_t group = blank_at(*labels[0], i) ? none : level_at(0, i);
+        if (group == none) continue;
+        if (!candidate) {
+            identical[group] = false;
+            continue;
+        }
+        if (first_of[group] == none) {
+            first_of[group] = i;
+            continue;
+        }
+        for (std::size_t r = 1; r < ranges && identical[group]; ++r)
+            identical[group] = level_at(r, i) == level_at(r, first_of[group]);
+    }
+    std::vector<std::size_t> groups;
+    for (std::size_t g = 0; g < first_of.size(); ++g)
+        if (first_of[g] != none && identical[g]) groups.push_back(g);
+    if (groups.empty() || groups.size() > 3) return;
+
+    // The other records: at least 6, and in every range some label that repeats and two labels or more.
+    std::vector<bool> in_group(span.end, false);
+    std::size_t others = 0;
+    for (std::size_t i = span.first; i < span.end; ++i) {
+        const bool member = !blank_at(*labels[0], i) && first_of[level_at(0, i)] != none && identical[level_at(0, i)];
+        in_group[i] = member;
+        if (!member && std::any_of(labels.begin(), labels.end(), [&](const CodedLabels* range) { return !blank_at(*range, i); }))
+            ++others;
+    }
+    if (others < 6) return;
+    for (std::size_t r = 0; r < ranges; ++r) {
+        std::vector<std::size_t> left(count[r].size(), 0);
+        for (std::size_t i = span.first; i < span.end; ++i)
+            if (!in_group[i] && !blank_at(*labels[r], i)) ++left[level_at(r, i)];
+        const std::size_t distinct = static_cast<std::size_t>(std::count_if(left.begin(), left.end(), [](std::size_t n) { return n > 0; }));
+        if (distinct < 2 || *std::max_element(left.begin(), left.end()) < 2) return;
+    }
+
+    const CodedLabels& shape = *labels.front();
+    for (std::size_t g : groups) {
+        std::vector<std::size_t> places;
+        for (std::size_t i = first_of[g]; i < span.end; ++i)
+            if (in_group[i] && level_at(0, i) == g) places.push_back(i);
+        std::vector<std::string> named;
+        for (std::size_t i : places) named.push_back(std::to_string(i + 1));
+        const std::string word = record_place(shape, 0).substr(0, record_place(shape, 0).find(' '));
+        const std::string where = word + (places.size() > 1 ? "s " + name_list(named, 8) : " " + named.front());
+        const std::string what = name_list(texts_at(labels, places.front()));
+        if (places.front() == span.first && places.size() > 1 && !span.header)
+            throw Error(where + " hold the same texts (" + what + "), found nowhere else in the ranges: a header "
+                        "repeated among the records (as in a report pasted page by page), which would be counted as "
+                        "records; leave the header out of the ranges and delete its repeats from the records (if they "
+                        "are records, sort the records so that another one comes first)");
+        std::string text = where;
+        text[0] = static_cast<char>(text[0] - 'a' + 'A');
+        span.remarks.push_back(text + (places.size() > 1 ? " hold the same texts (" : " holds texts (") + what +
+                               "), found nowhere else in the ranges, and " +
+                               (places.size() > 1 ? "were counted as records" : "was counted as a record") +
+                               ": if " + (places.size() > 1 ? "they are a header" : "it is a header") +
+                               " repeated among the records (as in a report pasted page by page) or a note, leave " +
+                               (places.size() > 1 ? "them" : "it") + " out.");
+    }
+}
+
 }  // namespace
 
 RecordSpan record_span(const std::vector<const CodedLabels*>& labels, const Cell* first_weight, std::size_t weights_end) {
     RecordSpan span = records_and_header(labels, first_weight, weights_end);
     refuse_total_line_at_end(labels, span);
+    look_for_repeated_headers(labels, span);
     return span;
 }
 

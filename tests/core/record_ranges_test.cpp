@@ -361,3 +361,43 @@ TEST(RecordRanges, SayNothingOfLabelsWhenTheSidesShareAllOrNone) {
     EXPECT_FALSE(contains(same.feedback(), "share"));
     EXPECT_FALSE(contains(apart.feedback(), "share"));
 }
+
+// A header repeated among the records (a report pasted page by page): on top of the range and again
+// lower down, "Dept | Promoted" is found nowhere else, so it is no header by the first-row rule, and
+// counted it would add a level of two records on each side. Refused, naming the rows.
+TEST(RecordRanges, RefuseAHeaderRepeatedAmongTheRecords) {
+    expect_error(
+        [] {
+            counts_from_records(grid({{"Dept"}, {"Sales"}, {"Sales"}, {"IT"}, {"Dept"}, {"IT"}, {"Finance"}, {"Finance"}}),
+                                grid({{"Promoted"}, {"Yes"}, {"No"}, {"Yes"}, {"Promoted"}, {"No"}, {"Yes"}, {"No"}}));
+        },
+        "rows 1 and 5 hold the same texts (\"Dept\" and \"Promoted\"), found nowhere else in the ranges: a header "
+        "repeated among the records (as in a report pasted page by page), which would be counted as records; leave the "
+        "header out of the ranges and delete its repeats from the records (if they are records, sort the records so "
+        "that another one comes first)");
+}
+
+// The same line lower down, with the range started below the header, may be a group of its own (one
+// person whose department and answer no one else has): counted, and said.
+TEST(RecordRanges, CountARecordOfTextsFoundNowhereElseAndSaySo) {
+    const RecordCounts counts =
+        counts_from_records(grid({{"Sales"}, {"Sales"}, {"IT"}, {"Dept"}, {"IT"}, {"Finance"}, {"Finance"}}),
+                            grid({{"Yes"}, {"No"}, {"Yes"}, {"Promoted"}, {"No"}, {"Yes"}, {"No"}}));
+    EXPECT_EQ(counts.records, 7u);
+    EXPECT_EQ(counts.row_levels.size(), 4u);
+    ASSERT_EQ(counts.remarks.size(), 1u);
+    EXPECT_EQ(counts.remarks[0], "Row 4 holds texts (\"Dept\" and \"Promoted\"), found nowhere else in the ranges, and "
+                                 "was counted as a record: if it is a header repeated among the records (as in a "
+                                 "report pasted page by page) or a note, leave it out.");
+}
+
+// A department whose every record gave the one answer no other department gave is no header when the
+// others share a single answer: the rest of the records must vary in every range for the doubt.
+TEST(RecordRanges, CountAFirstRecordRepeatedWhenTheOtherRecordsShareOneAnswer) {
+    const RecordCounts counts =
+        counts_from_records(grid({{"Sales"}, {"IT"}, {"IT"}, {"Sales"}, {"Legal"}, {"Legal"}, {"IT"}, {"Legal"}}),
+                            grid({{"Yes"}, {"No"}, {"No"}, {"Yes"}, {"No"}, {"No"}, {"No"}, {"No"}}));
+    EXPECT_EQ(counts.records, 8u);
+    EXPECT_TRUE(counts.remarks.empty()) << counts.feedback();
+}
+
