@@ -546,8 +546,11 @@ FUNCTIONS = [
          "well under a millisecond at any size. Rows and columns of zeros are kept, since row i and column i "
          "must stay the same category; rows and columns labelled as totals are left out.",
          "When both the rows and the columns carry labels, the columns are matched to the rows by their labels "
-         "(spaces at the ends and capitals aside), whatever their order; labels that do not match are an error "
-         "that names them. With labels on one side only, the columns must come in the rows' order.",
+         "(spaces at the ends and capitals aside), whatever their order, and also once the words that every row "
+         "label shares and those that every column label shares are left out (\"Yes before\" with \"Yes after\", "
+         "\"Fail (first)\" with \"Fail (retest)\"; ASSOC.CHECK with \"paired\" lists the pairs); labels that do "
+         "not match are an error that names them. With labels on one side only, the columns must come in the rows' "
+         "order.",
          "Bowker's test adds (n_ij − n_ji)² / (n_ij + n_ji) over the pairs of categories, and a pair in which "
          "nobody changed either way (n_ij = n_ji = 0) is left out with its degree of freedom: it says nothing "
          "about symmetry, and its term would be 0 / 0. The degrees of freedom are the number of pairs with "

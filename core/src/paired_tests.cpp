@@ -54,6 +54,63 @@ PairedResult exact_mcnemar(double b, double c) {
     return result;
 }
 
+// The labels of one side without the words they all share at their start or end ("Yes before",
+// "No before": "Yes", "No"), compared as folded_label compares; empty when nothing is shared or when
+// a label would be left with nothing.
+std::vector<std::string> without_shared_words(const std::vector<std::string>& labels) {
+    std::vector<std::vector<std::string>> words(labels.size());
+    for (std::size_t i = 0; i < labels.size(); ++i) {
+        const std::string folded = folded_label(labels[i]);
+        std::size_t at = 0;
+        while (at < folded.size()) {
+            const std::size_t space = folded.find(' ', at);
+            const std::size_t end = space == std::string::npos ? folded.size() : space;
+            if (end > at) words[i].push_back(folded.substr(at, end - at));
+            at = end + 1;
+        }
+        if (words[i].empty()) return {};
+    }
+    const std::size_t shortest =
+        std::min_element(words.begin(), words.end(), [](const auto& a, const auto& b) { return a.size() < b.size(); })->size();
+    const auto shared = [&](std::size_t from_start, std::size_t from_end) {
+        return std::all_of(words.begin(), words.end(), [&](const std::vector<std::string>& w) {
+            const std::size_t i = from_start ? from_start - 1 : w.size() - from_end;
+            const std::size_t j = from_start ? from_start - 1 : words.front().size() - from_end;
+            return w[i] == words.front()[j];
+        });
+    };
+    std::size_t leading = 0, trailing = 0;
+    while (leading + trailing + 1 < shortest && shared(leading + 1, 0)) ++leading;
+    while (leading + trailing + 1 < shortest && shared(0, trailing + 1)) ++trailing;
+    if (leading + trailing == 0) return {};
+    std::vector<std::string> stems;
+    for (const std::vector<std::string>& w : words) {
+        std::string stem;
+        for (std::size_t i = leading; i + trailing < w.size(); ++i) stem += (stem.empty() ? "" : " ") + w[i];
+        stems.push_back(stem);
+    }
+    return stems;
+}
+
+// For each row, the column whose label folds to the same key, or k when none does; the keys of
+// one side must differ (require_labels sees to the labels themselves).
+std::vector<std::size_t> match_by_keys(const std::vector<std::string>& rows, const std::vector<std::string>& columns) {
+    std::vector<std::size_t> column_of_row(rows.size(), columns.size());
+    for (std::size_t r = 0; r < rows.size(); ++r)
+        for (std::size_t c = 0; c < columns.size(); ++c)
+            if (rows[r] == columns[c]) column_of_row[r] = c;
+    return column_of_row;
+}
+
+bool one_to_one(const std::vector<std::size_t>& column_of_row) {
+    std::vector<bool> taken(column_of_row.size(), false);
+    for (std::size_t c : column_of_row) {
+        if (c >= taken.size() || taken[c]) return false;
+        taken[c] = true;
+    }
+    return true;
+}
+
 // For each row of categories (in order), the position among the category columns of the column with
 // the same label. Without labels on both sides: the same position.
 std::vector<std::size_t> columns_matching_rows(const CountTable& read, std::vector<std::string>& remarks) {
@@ -101,6 +158,25 @@ std::vector<std::size_t> columns_matching_rows(const CountTable& read, std::vect
     for (const std::string& column : columns)
         if (std::none_of(rows.begin(), rows.end(), [&](const std::string& row) { return folded_label(row) == folded_label(column); }))
             columns_only.push_back(quoted_label(column));
+    // Labels that name the occasion beside the category ("Yes before" and "Yes after", "Fail (first)"
+    // and "Fail (retest)") match once the words every row shares, and those every column shares,
+    // are left out: all of them, one to one, or none. Said, with the labels matched.
+    if (!rows_only.empty() || !columns_only.empty()) {
+        std::vector<std::string> row_keys = without_shared_words(rows), column_keys = without_shared_words(columns);
+        if (row_keys.empty()) for (const std::string& row : rows) row_keys.push_back(folded_label(row));
+        if (column_keys.empty()) for (const std::string& column : columns) column_keys.push_back(folded_label(column));
+        const std::vector<std::size_t> by_stems = match_by_keys(row_keys, column_keys);
+        if (one_to_one(by_stems)) {
+            std::vector<std::string> pairs;
+            for (std::size_t r = 0; r < k; ++r)
+                pairs.push_back(quoted_label(rows[r]) + " with " + quoted_label(columns[by_stems[r]]));
+            remarks.push_back("The rows and the columns have different labels, which match once the words that all "
+                              "the rows share, and those that all the columns share, are left out; so row and column "
+                              "were paired as " + name_list(pairs, 6) + ". If these are not the same categories, "
+                              "give the rows and the columns the same labels.");
+            return by_stems;
+        }
+    }
     if (!rows_only.empty() || !columns_only.empty()) {
         std::vector<std::string> parts;
         if (!rows_only.empty()) parts.push_back("the rows have " + name_list(rows_only, 4) + ", which no column has");

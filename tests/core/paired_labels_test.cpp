@@ -50,6 +50,43 @@ TEST(PairedLabels, RefuseLabelsThatDoNotMatch) {
                  "row has. Give the rows and the columns the same labels");
 }
 
+// Labels that name the occasion beside the category ("Low before", "Low after"): matched once the words
+// all the rows share and those all the columns share are left out, and said. Exact identity: the same
+// test as the table with the columns in the rows' order under the same labels.
+TEST(PairedLabels, MatchLabelsThatDifferOnlyByTheWordsEachSideShares) {
+    const PairedResult named = paired_test(grid({{"", "High after", "Mid after", "Low after"},
+                                                 {"Low before", 2, 5, 20},
+                                                 {"Mid before", 4, 18, 6},
+                                                 {"High before", 15, 3, 1}}));
+    const PairedResult aligned = paired_test(grid({{20, 5, 2}, {6, 18, 4}, {1, 3, 15}}));
+    EXPECT_EQ(named.statistic, aligned.statistic);
+    EXPECT_EQ(named.p_value, aligned.p_value);
+    ASSERT_EQ(named.remarks.size(), 1u);
+    EXPECT_EQ(named.remarks[0], "The rows and the columns have different labels, which match once the words that all "
+                                "the rows share, and those that all the columns share, are left out; so row and column "
+                                "were paired as \"Low before\" with \"Low after\", \"Mid before\" with \"Mid after\" and "
+                                "\"High before\" with \"High after\". If these are not the same categories, give the rows "
+                                "and the columns the same labels.");
+}
+
+// The shared words may stand in brackets. Aligned, the table is Fail/Pass by Fail/Pass with 14 who failed
+// first and passed the retest and 9 the other way: McNemar's corrected statistic (|14 − 9| − 1)²/23 =
+// 16/23 (the formula by hand).
+TEST(PairedLabels, MatchLabelsWhoseSharedWordsStandInBrackets) {
+    const PairedResult result = paired_test(grid({{"", "Pass (retest)", "Fail (retest)"},
+                                                  {"Fail (first)", 14, 6},
+                                                  {"Pass (first)", 30, 9}}));
+    EXPECT_NEAR(result.statistic, 16.0 / 23.0, 1e-15);
+}
+
+// Only the words that every label of a side shares are left out: what is left must still match.
+TEST(PairedLabels, RefuseLabelsThatDifferBeyondTheWordsEachSideShares) {
+    expect_error([] { paired_test(grid({{"", "Approved after", "Rejected after"}, {"Yes before", 5, 30}, {"No before", 40, 10}})); },
+                 "a paired table needs the same categories as rows and as columns, matched by their labels; the rows "
+                 "have \"Yes before\" and \"No before\", which no column has; the columns have \"Approved after\" and "
+                 "\"Rejected after\", which no row has. Give the rows and the columns the same labels");
+}
+
 TEST(PairedLabels, RefuseALabelGivenTwice) {
     expect_error([] { paired_test(grid({{"", "Yes", "Yes"}, {"Yes", 5, 30}, {"No", 40, 10}})); },
                  "the columns of the paired table carry the label \"Yes\" twice; each category needs one row and one "
