@@ -12,6 +12,7 @@
 #include "assoc/wording.hpp"
 #include "discrete_tail.hpp"
 #include "row_names.hpp"
+#include "shared_words.hpp"
 #include "stirling.hpp"
 
 namespace assoc {
@@ -24,39 +25,8 @@ std::optional<PairedMethod> parse_paired_method(const std::string& word) {
     throw Error("the method must be \"corrected\", \"uncorrected\" or \"exact\", not \"" + word + "\"");
 }
 
-namespace {
+namespace detail {
 
-std::string not_square(std::size_t rows, std::size_t columns) {
-    return "a paired table must be square, the same categories as rows and as columns; this one has " +
-           std::to_string(rows) + " rows and " + std::to_string(columns) + " columns of counts";
-}
-
-// Two-sided: twice the smaller tail of Binomial(b + c, ½), at most 1. The tail comes from the same
-// summation as Fisher's 2×2 test (discrete_tail.hpp), whose cost does not grow with the counts;
-// Boost's binomial distribution lost digits at a million changes (2e-8 at 2e9, 2e-5 at 2e12) and
-// took minutes, or gave nonsense, far beyond.
-PairedResult exact_mcnemar(double b, double c) {
-    require(b == std::floor(b) && c == std::floor(c),
-            "the exact paired test needs whole counts; the cells off the diagonal hold " + format_number(b, 15) +
-                " and " + format_number(c, 15));
-    const double m = b + c;
-    require(m < 0x1p53, "the exact paired test takes up to 9,007,199,254,740,991 changes (2^53 − 1) in all, and this "
-                        "table has " + format_count(m) + "; at this size use the chi-squared version (\"corrected\")");
-    PairedResult result;
-    result.method = PairedMethod::exact;
-    result.statistic = std::min(b, c);
-    result.df = 0.0;
-    const detail::DiscreteTail<2> binomial({0.0, m}, {+1, -1}, {m / 2, m / 2}, m, 1.0, 2.0, detail::stirling_part(m), 0.0, m);
-    // The work is bounded by the method itself (well under a millisecond); the limit only guards it.
-    const ExactLimits limits;
-    const detail::Deadline deadline(limits);
-    result.p_value = std::min(1.0, 2 * binomial.lower(result.statistic, deadline));
-    return result;
-}
-
-// The labels of one side without the words they all share at their start or end ("Yes before",
-// "No before": "Yes", "No"), compared as folded_label compares; empty when nothing is shared or when
-// a label would be left with nothing.
 std::vector<std::string> without_shared_words(const std::vector<std::string>& labels) {
     std::vector<std::vector<std::string>> words(labels.size());
     for (std::size_t i = 0; i < labels.size(); ++i) {
@@ -90,6 +60,45 @@ std::vector<std::string> without_shared_words(const std::vector<std::string>& la
         stems.push_back(stem);
     }
     return stems;
+}
+
+std::vector<std::string> label_keys(const std::vector<std::string>& labels) {
+    std::vector<std::string> keys = without_shared_words(labels);
+    if (keys.empty())
+        for (const std::string& label : labels) keys.push_back(folded_label(label));
+    return keys;
+}
+
+}  // namespace detail
+
+namespace {
+
+std::string not_square(std::size_t rows, std::size_t columns) {
+    return "a paired table must be square, the same categories as rows and as columns; this one has " +
+           std::to_string(rows) + " rows and " + std::to_string(columns) + " columns of counts";
+}
+
+// Two-sided: twice the smaller tail of Binomial(b + c, ½), at most 1. The tail comes from the same
+// summation as Fisher's 2×2 test (discrete_tail.hpp), whose cost does not grow with the counts;
+// Boost's binomial distribution lost digits at a million changes (2e-8 at 2e9, 2e-5 at 2e12) and
+// took minutes, or gave nonsense, far beyond.
+PairedResult exact_mcnemar(double b, double c) {
+    require(b == std::floor(b) && c == std::floor(c),
+            "the exact paired test needs whole counts; the cells off the diagonal hold " + format_number(b, 15) +
+                " and " + format_number(c, 15));
+    const double m = b + c;
+    require(m < 0x1p53, "the exact paired test takes up to 9,007,199,254,740,991 changes (2^53 − 1) in all, and this "
+                        "table has " + format_count(m) + "; at this size use the chi-squared version (\"corrected\")");
+    PairedResult result;
+    result.method = PairedMethod::exact;
+    result.statistic = std::min(b, c);
+    result.df = 0.0;
+    const detail::DiscreteTail<2> binomial({0.0, m}, {+1, -1}, {m / 2, m / 2}, m, 1.0, 2.0, detail::stirling_part(m), 0.0, m);
+    // The work is bounded by the method itself (well under a millisecond); the limit only guards it.
+    const ExactLimits limits;
+    const detail::Deadline deadline(limits);
+    result.p_value = std::min(1.0, 2 * binomial.lower(result.statistic, deadline));
+    return result;
 }
 
 // For each row, the column whose label folds to the same key, or k when none does; the keys of
@@ -162,10 +171,7 @@ std::vector<std::size_t> columns_matching_rows(const CountTable& read, std::vect
     // and "Fail (retest)") match once the words every row shares, and those every column shares,
     // are left out: all of them, one to one, or none. Said, with the labels matched.
     if (!rows_only.empty() || !columns_only.empty()) {
-        std::vector<std::string> row_keys = without_shared_words(rows), column_keys = without_shared_words(columns);
-        if (row_keys.empty()) for (const std::string& row : rows) row_keys.push_back(folded_label(row));
-        if (column_keys.empty()) for (const std::string& column : columns) column_keys.push_back(folded_label(column));
-        const std::vector<std::size_t> by_stems = match_by_keys(row_keys, column_keys);
+        const std::vector<std::size_t> by_stems = match_by_keys(detail::label_keys(rows), detail::label_keys(columns));
         if (one_to_one(by_stems)) {
             std::vector<std::string> pairs;
             for (std::size_t r = 0; r < k; ++r)

@@ -10,6 +10,7 @@
 #include "assoc/format.hpp"
 #include "assoc/ratio_estimate.hpp"
 #include "assoc/wording.hpp"
+#include "shared_words.hpp"
 
 namespace assoc {
 namespace {
@@ -82,10 +83,21 @@ std::string same_labels_remark(const CountTable& table) {
     for (std::size_t c : table.category_columns()) columns.push_back(folded_label(table.body_column_labels()[c]));
     if (rows.size() < 2 || rows.size() != columns.size()) return "";
     if (std::any_of(rows.begin(), rows.end(), [](const std::string& label) { return label.empty(); })) return "";
-    std::sort(rows.begin(), rows.end());
-    std::sort(columns.begin(), columns.end());
-    if (rows != columns || std::adjacent_find(rows.begin(), rows.end()) != rows.end()) return "";
-    return "The rows and the columns carry the same labels (" + name_list(shown, 4) +
+    const auto same_sets = [](std::vector<std::string> a, std::vector<std::string> b) {
+        std::sort(a.begin(), a.end());
+        std::sort(b.begin(), b.end());
+        return a == b && std::adjacent_find(a.begin(), a.end()) == a.end();
+    };
+    std::string how = "carry the same labels";
+    if (!same_sets(rows, columns)) {
+        // "Yes before" and "Yes after": the same labels once the words each side shares are left out.
+        std::vector<std::string> row_labels, column_labels;
+        for (std::size_t r : table.category_rows()) row_labels.push_back(table.body_row_labels()[r]);
+        for (std::size_t c : table.category_columns()) column_labels.push_back(table.body_column_labels()[c]);
+        if (!same_sets(detail::label_keys(row_labels), detail::label_keys(column_labels))) return "";
+        how = "carry the same labels but for the words each side's labels share";
+    }
+    return "The rows and the columns " + how + " (" + name_list(shown, 4) +
            "): if the table counts the same people twice (before and after, or by two raters), the paired test "
            "(ASSOC.PAIRED) fits it, not this test of independence.";
 }

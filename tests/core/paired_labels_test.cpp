@@ -110,3 +110,22 @@ TEST(PairedLabels, AreMentionedByTheCheckOfATableWithTheSameLabelsOnBothSides) {
               std::string::npos)
         << summary;
 }
+
+TEST(PairedLabels, AreMentionedByTheCheckWhenTheyDifferOnlyByTheWordsEachSideShares) {
+    const std::string summary = check_validity(read_count_table(grid({{"", "No after", "Yes after"},
+                                                                      {"Yes before", 5, 30},
+                                                                      {"No before", 40, 10}})))
+                                    .summary();
+    EXPECT_NE(summary.find("The rows and the columns carry the same labels but for the words each side's labels share "
+                           "(\"Yes before\" and \"No before\"): if the table counts the same people twice"),
+              std::string::npos)
+        << summary;
+}
+
+TEST(PairedLabels, AreNotMentionedByTheCheckOfGroupsAgainstAnswers) {
+    const std::string summary = check_validity(read_count_table(grid({{"", "Yes (survey)", "No (survey)"},
+                                                                      {"Sales team", 5, 30},
+                                                                      {"Legal team", 40, 10}})))
+                                    .summary();
+    EXPECT_EQ(summary.find("paired test"), std::string::npos) << summary;
+}
