@@ -1,6 +1,7 @@
 #include "record_span.hpp"
 
 #include <algorithm>
+#include <iterator>
 #include <set>
 #include <string_view>
 #include <unordered_map>
@@ -250,9 +251,29 @@ void look_for_repeated_headers(const std::vector<const CodedLabels*>& labels, Re
             level[r][s] = range.spellings[s].is_text()
                               ? texts.emplace(trimmed_label(range.spellings[s].as_text()), texts.size()).first->second
                               : range.spellings.size() + s;
+        std::vector<std::size_t> by_code(range.spellings.size(), 0);
+        const std::size_t end = std::min(span.end, range.codes.size());
+        for (std::size_t i = span.first; i < end; ++i)
+            if (range.codes[i] != CodedLabels::blank) ++by_code[range.codes[i]];
         count[r].assign(2 * range.spellings.size(), 0);
-        for (std::size_t i = span.first; i < span.end; ++i)
-            if (!blank_at(range, i)) ++count[r][level[r][range.codes[i]]];
+        for (std::size_t s = 0; s < by_code.size(); ++s) count[r][level[r][s]] += by_code[s];
+    }
+    // The cheap test first (it runs on every call): such a line's texts come equally often in every
+    // range, so some count of a text must be found in every range.
+    std::vector<std::size_t> shared_counts;
+    for (std::size_t r = 0; r < ranges; ++r) {
+        std::vector<std::size_t> counts;
+        for (std::size_t s = 0; s < labels[r]->spellings.size(); ++s)
+            if (labels[r]->spellings[s].is_text() && count[r][level[r][s]] > 0) counts.push_back(count[r][level[r][s]]);
+        std::sort(counts.begin(), counts.end());
+        if (r == 0) {
+            shared_counts = std::move(counts);
+        } else {
+            std::vector<std::size_t> both;
+            std::set_intersection(shared_counts.begin(), shared_counts.end(), counts.begin(), counts.end(), std::back_inserter(both));
+            shared_counts = std::move(both);
+        }
+        if (shared_counts.empty()) return;
     }
     const auto level_at = [&](std::size_t r, std::size_t i) { return level[r][labels[r]->codes[i]]; };
     // A candidate holds texts in every range, each as often as the others: the group of its level in
