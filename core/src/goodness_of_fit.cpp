@@ -5,6 +5,7 @@
 #include <string>
 
 #include "argument_checks.hpp"
+#include "ascii_case.hpp"
 #include "assoc/chi_squared_distribution.hpp"
 #include "assoc/count_table.hpp"
 #include "assoc/error.hpp"
@@ -215,11 +216,8 @@ GoodnessOfFit goodness_of_fit(const CellGrid& observed, const CellGrid& expected
             throw Error(std::string("in the expected range: ") + error.what());
         }
         require_plan_adds_up(expected, expected_line.values);
-        for (std::string note : expected_line.notes) {
-            if (note.size() > 1 && note[0] >= 'A' && note[0] <= 'Z' && note[1] >= 'a' && note[1] <= 'z')
-                note[0] = static_cast<char>(note[0] - 'A' + 'a');
-            remarks.push_back("In the expected range: " + note);
-        }
+        for (const std::string& note : expected_line.notes)
+            remarks.push_back("In the expected range: " + detail::in_sentence(note));
         if (expected_line.values.size() == observed_line.values.size())
             expected_values = expected_by_label(observed_line, expected_line, remarks);
         else

@@ -6,6 +6,7 @@
 #include <string_view>
 #include <unordered_map>
 
+#include "ascii_case.hpp"
 #include "assoc/error.hpp"
 #include "assoc/wording.hpp"
 #include "total_lines.hpp"
@@ -16,6 +17,9 @@ namespace {
 bool is_text_code(const CodedLabels& labels, std::uint32_t code) {
     return code != CodedLabels::blank && code < labels.spellings.size() && labels.spellings[code].is_text();
 }
+
+// What a record is in ranges shaped like `labels`: a row, or a column of ranges laid along a row.
+const char* record_word(const CodedLabels& labels) { return labels.rows == 1 && labels.columns > 1 ? "column" : "row"; }
 
 bool blank_at(const CodedLabels& labels, std::size_t at) {
     return at >= labels.codes.size() || labels.codes[at] == CodedLabels::blank;
@@ -87,7 +91,7 @@ std::vector<std::string> texts_at(const std::vector<const CodedLabels*>& labels,
 }  // namespace
 
 std::string record_place(const CodedLabels& labels, std::size_t i) {
-    return std::string(labels.rows == 1 && labels.columns > 1 ? "column " : "row ") + std::to_string(i + 1);
+    return std::string(record_word(labels)) + " " + std::to_string(i + 1);
 }
 
 namespace {
@@ -115,7 +119,7 @@ RecordSpan records_and_header(const std::vector<const CodedLabels*>& labels, con
 
     const CodedLabels& shape = *labels.front();
     const bool along_row = shape.rows == 1 && shape.columns > 1;
-    const std::string word = along_row ? "column" : "row";
+    const std::string word = record_word(shape);
     const std::string line = (along_row ? "Column " : "Row ") + std::to_string(at + 1);
     const std::vector<std::string> firsts = texts_at(labels, at);
     const std::string what = firsts.size() > 1 ? " (" + name_list(firsts) + ")" : "";
@@ -321,14 +325,13 @@ void look_for_repeated_headers(const std::vector<const CodedLabels*>& labels, Re
         if (distinct < 2 || *std::max_element(left.begin(), left.end()) < 2) return;
     }
 
-    const CodedLabels& shape = *labels.front();
+    const std::string word = record_word(*labels.front());
     for (std::size_t g : groups) {
         std::vector<std::size_t> places;
         for (std::size_t i = first_of[g]; i < span.end; ++i)
             if (in_group[i] && level_at(0, i) == g) places.push_back(i);
         std::vector<std::string> named;
         for (std::size_t i : places) named.push_back(std::to_string(i + 1));
-        const std::string word = record_place(shape, 0).substr(0, record_place(shape, 0).find(' '));
         const std::string where = word + (places.size() > 1 ? "s " + name_list(named, 8) : " " + named.front());
         const std::string what = name_list(texts_at(labels, places.front()));
         if (places.front() == span.first && places.size() > 1 && !span.header)
@@ -336,9 +339,7 @@ void look_for_repeated_headers(const std::vector<const CodedLabels*>& labels, Re
                         "repeated among the records (as in a report pasted page by page), which would be counted as "
                         "records; leave the header out of the ranges and delete its repeats from the records (if they "
                         "are records, sort the records so that another one comes first)");
-        std::string text = where;
-        text[0] = static_cast<char>(text[0] - 'a' + 'A');
-        span.remarks.push_back(text + (places.size() > 1 ? " hold the same texts (" : " holds texts (") + what +
+        span.remarks.push_back(capitalised(where) + (places.size() > 1 ? " hold the same texts (" : " holds texts (") + what +
                                "), found nowhere else in the ranges, and " +
                                (places.size() > 1 ? "were counted as records" : "was counted as a record") +
                                ": if " + (places.size() > 1 ? "they are a header" : "it is a header") +

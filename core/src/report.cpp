@@ -5,6 +5,7 @@
 #include <optional>
 #include <utility>
 
+#include "ascii_case.hpp"
 #include "assoc/chi_squared_distribution.hpp"
 #include "assoc/cramers_v_interval.hpp"
 #include "assoc/effect_size.hpp"
@@ -235,12 +236,7 @@ void add_caution(const Findings&, Lines& lines) {
 }
 
 // "Department" reads as "department" inside a sentence; "HR band" keeps its capitals.
-std::string in_sentence(const std::string& name) {
-    std::string text = short_label(name, 40);
-    if (text.size() >= 2 && text[0] >= 'A' && text[0] <= 'Z' && text[1] >= 'a' && text[1] <= 'z')
-        text[0] = static_cast<char>(text[0] - 'A' + 'a');
-    return text;
-}
+std::string in_sentence(const std::string& name) { return detail::in_sentence(short_label(name, 40)); }
 
 }  // namespace
 

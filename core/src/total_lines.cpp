@@ -15,6 +15,7 @@
 
 #include <boost/container/small_vector.hpp>
 
+#include "ascii_case.hpp"
 #include "assoc/cell.hpp"
 #include "assoc/error.hpp"
 #include "assoc/wording.hpp"
@@ -160,10 +161,6 @@ std::string line_name(const BodySide& side, std::size_t line) {
     return std::string(side.word) + " " + std::to_string(side.first_number + line);
 }
 
-std::string capitalised(std::string text) {
-    if (!text.empty() && text[0] >= 'a' && text[0] <= 'z') text[0] = static_cast<char>(text[0] - 'a' + 'A');
-    return text;
-}
 
 // Buffers that the searches of both sides reuse: every table read runs them, thousands of times in a
 // sheet of small tables, where allocations cost more than the sums (a table of up to 16 lines a side

@@ -10,15 +10,14 @@
 #include "assoc/format.hpp"
 #include "assoc/ratio_estimate.hpp"
 #include "assoc/wording.hpp"
+#include "row_names.hpp"
 #include "shared_words.hpp"
 
 namespace assoc {
 namespace {
 
-std::string capitalised(std::string text) {
-    if (!text.empty() && text[0] >= 'a' && text[0] <= 'z') text[0] = static_cast<char>(text[0] - 'a' + 'A');
-    return text;
-}
+using detail::capitalised;
+
 
 // "The row "Legal" has no counts and was set aside.", "Rows 7–40 have no counts and were set aside.":
 // labelled lines by their labels (a handful, the rest counted), the others by their row numbers in runs.
@@ -75,12 +74,14 @@ namespace {
 // twice, and then the paired test is the one that fits.
 std::string same_labels_remark(const CountTable& table) {
     if (!table.has_row_labels() || !table.has_column_labels()) return "";
+    const std::vector<std::string> row_labels = detail::category_labels(table, true),
+                                   column_labels = detail::category_labels(table, false);
     std::vector<std::string> rows, columns, shown;
-    for (std::size_t r : table.category_rows()) {
-        rows.push_back(folded_label(table.body_row_labels()[r]));
-        shown.push_back(quoted_label(table.body_row_labels()[r]));
+    for (const std::string& label : row_labels) {
+        rows.push_back(folded_label(label));
+        shown.push_back(quoted_label(label));
     }
-    for (std::size_t c : table.category_columns()) columns.push_back(folded_label(table.body_column_labels()[c]));
+    for (const std::string& label : column_labels) columns.push_back(folded_label(label));
     if (rows.size() < 2 || rows.size() != columns.size()) return "";
     if (std::any_of(rows.begin(), rows.end(), [](const std::string& label) { return label.empty(); })) return "";
     const auto same_sets = [](std::vector<std::string> a, std::vector<std::string> b) {
@@ -91,9 +92,6 @@ std::string same_labels_remark(const CountTable& table) {
     std::string how = "carry the same labels";
     if (!same_sets(rows, columns)) {
         // "Yes before" and "Yes after": the same labels once the words each side shares are left out.
-        std::vector<std::string> row_labels, column_labels;
-        for (std::size_t r : table.category_rows()) row_labels.push_back(table.body_row_labels()[r]);
-        for (std::size_t c : table.category_columns()) column_labels.push_back(table.body_column_labels()[c]);
         if (!same_sets(detail::label_keys(row_labels), detail::label_keys(column_labels))) return "";
         how = "carry the same labels but for the words each side's labels share";
     }
